@@ -1,0 +1,250 @@
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+	"text/tabwriter"
+
+	"cloudwind/model"
+	"cloudwind/tui"
+)
+
+const evalSynopsis = `Usage: cloudwind eval [flags]
+
+Evaluate one cloud-in-wind scenario: every derived quantity (temperatures,
+densities, speeds, the cloud-crushing, shear, drag, growth and cooling times,
+cooling and shattering lengths) and, for every survival criterion, the ratio
+τ_cool/τ_dyn, the threshold radius r_crit, the margin r_cl/r_crit and the
+verdict. Criteria whose constants were not checked against their paper are
+marked, and so are inputs outside a criterion's calibrated range.`
+
+const evalExamples = `  cloudwind eval
+  cloudwind eval --chi 300 --mach 1.5 --pressure 3e3 --radius "10 pc"
+  cloudwind eval --radius 0.2kpc --heat-capacity isobaric --density-product n2
+  cloudwind eval --cooling powerlaw:4e-22,1e5,-0.7 --format json
+  cloudwind eval --criteria my-criteria.toml`
+
+// evalOptions are the parsed flags of eval.
+type evalOptions struct {
+	params   model.Params
+	cooling  coolingSource
+	criteria []model.Criterion
+	format   string
+}
+
+func runEval(e *env) error {
+	f := newFlagSet("eval", evalSynopsis, evalExamples)
+	var sf scenarioFlags
+	sf.register(f)
+	format := f.fs.String("format", "text", "output format: text or json")
+	if err := f.parse(e); err != nil {
+		return err
+	}
+	var opt evalOptions
+	var err error
+	if opt.params, err = sf.params(); err != nil {
+		return err
+	}
+	if opt.cooling, err = parseCooling(sf.cooling); err != nil {
+		return err
+	}
+	if *format != "text" && *format != "json" {
+		return usagef("--format: want text or json (got %q)", sanitizeArg(*format))
+	}
+	opt.format = *format
+	if opt.criteria, err = loadCriteria(e, sf.criteria); err != nil {
+		return err
+	}
+	res, err := model.Evaluate(opt.params, opt.cooling.fn, opt.criteria)
+	if err != nil {
+		return err
+	}
+	if opt.format == "json" {
+		return writeEvalJSON(e.stdout, &opt, &res)
+	}
+	return writeEvalText(e.stdout, &opt, &res)
+}
+
+// finite returns v, or nil (JSON null) when v is NaN or ±Inf.
+func finite(v float64) any {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return nil
+	}
+	return v
+}
+
+// interval returns [min, max] with open ends as null.
+func interval(i model.Interval) []any { return []any{finite(i.Min), finite(i.Max)} }
+
+// evalJSONSchema names the layout of eval's JSON output; it changes only
+// when a field changes meaning or disappears.
+const evalJSONSchema = "cloudwind.eval/1"
+
+func writeEvalJSON(w io.Writer, opt *evalOptions, r *model.Result) error {
+	q := r.Params
+	doc := map[string]any{
+		"schema":  evalJSONSchema,
+		"version": versionString(),
+		"inputs": map[string]any{
+			"chi":               q.Chi,
+			"mach":              q.Mach,
+			"pressure_kcm3":     float64(q.Pressure),
+			"t_cloud_k":         float64(q.TCloud),
+			"radius_pc":         tui.Convert(model.DimLength, float64(q.RCloud)),
+			"metallicity_zsun":  q.Metallicity,
+			"gamma":             q.Gamma,
+			"mu_cloud":          q.MuCold,
+			"mu_hot":            q.MuHot,
+			"mixture":           q.Mixture.Name,
+			"hydrogen_fraction": q.HydrogenFraction,
+			"t_floor_k":         float64(q.TFloor),
+			"heat_capacity":     q.HeatCapacity.String(),
+			"heat_capacity_f":   q.HeatCapacity.Factor(),
+			"density_product":   q.DensityProduct.String(),
+		},
+		"cooling": map[string]any{"spec": opt.cooling.spec, "description": opt.cooling.desc},
+	}
+	derived := map[string]any{}
+	for _, qt := range model.Quantities() {
+		derived[tui.JSONKey(qt.Key, qt.Dim)] = finite(tui.Convert(qt.Dim, qt.Value(&r.State)))
+	}
+	doc["derived"] = derived
+	crit := make([]map[string]any, len(r.Criteria))
+	for i := range r.Criteria {
+		c, o := &r.Criteria[i], r.Outcomes[i]
+		leaves := o.Leaves.Names()
+		if leaves == nil {
+			leaves = []string{}
+		}
+		crit[i] = map[string]any{
+			"id":             c.ID,
+			"label":          c.Label,
+			"formula":        c.Formula(),
+			"cooling_time":   c.Cool.String(),
+			"dynamical_time": c.Dyn.String(),
+			"alpha":          finite(c.Alpha),
+			"beta":           finite(c.Beta),
+			"threshold":      finite(o.Threshold),
+			"ratio":          finite(o.Ratio),
+			"radius_crit_pc": finite(tui.Convert(model.DimLength, float64(o.RCrit))),
+			"margin":         finite(o.Margin),
+			"verdict":        o.Verdict.String(),
+			"verified":       c.Verified,
+			"status":         c.Status,
+			"in_range":       o.InRange(),
+			"out_of_range":   leaves,
+			"calibrated_range": map[string]any{
+				"chi": interval(c.Range.Chi), "mach": interval(c.Range.Mach), "t_cloud_k": interval(c.Range.TCloud),
+				"status": c.Range.Status,
+			},
+			"citation": c.Citation.String(),
+			"arxiv":    c.Citation.ArXiv,
+			"note":     c.Note,
+		}
+	}
+	doc["criteria"] = crit
+	cautions := make([]map[string]string, 0, len(r.Cautions))
+	for _, c := range r.Cautions {
+		cautions = append(cautions, map[string]string{"field": c.Field, "message": c.Message})
+	}
+	doc["cautions"] = cautions
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(doc)
+}
+
+func writeEvalText(w io.Writer, opt *evalOptions, r *model.Result) error {
+	q := r.Params
+	var b strings.Builder
+	fmt.Fprintf(&b, "Scenario\n")
+	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+	row := func(cells ...string) { fmt.Fprintln(tw, "  "+strings.Join(cells, "\t")) }
+	row("χ (density contrast)", tui.Number(model.Dimensionless, q.Chi))
+	row("Mach number", tui.Number(model.Dimensionless, q.Mach))
+	row("P/k_B", tui.Format(model.DimPressure, float64(q.Pressure)))
+	row("T_cl", tui.Format(model.DimTemperature, float64(q.TCloud)))
+	row("r_cl", tui.Format(model.DimLength, float64(q.RCloud)))
+	row("Z", tui.Format(model.DimMetallicity, q.Metallicity)+"  (used by tabulated cooling only)")
+	row("γ, μ_cl, μ_hot", fmt.Sprintf("%s, %s, %s", tui.FormatSig(q.Gamma, 4), tui.FormatSig(q.MuCold, 4), tui.FormatSig(q.MuHot, 4)))
+	row("X (hydrogen)", fmt.Sprintf("%s  (%s)", tui.FormatSig(q.HydrogenFraction, 4), q.Mixture.Name))
+	row("T_floor", tui.Format(model.DimTemperature, float64(q.TFloor)))
+	row("convention", conventionText(q))
+	row("cooling", opt.cooling.desc)
+	tw.Flush()
+
+	fmt.Fprintf(&b, "\nDerived\n")
+	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+	for _, qt := range model.Quantities() {
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", qt.Symbol, tui.Format(qt.Dim, qt.Value(&r.State)), qt.Formula, qt.Source)
+	}
+	tw.Flush()
+
+	fmt.Fprintf(&b, "\nCriteria: survives and grows when τ_cool/τ_dyn < α (χ/100)^β\n")
+	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "  id\ttest\tratio\tlimit\tr_crit\tmargin\tverdict\tnotes")
+	unverified, outside := false, false
+	for i := range r.Criteria {
+		c, o := &r.Criteria[i], r.Outcomes[i]
+		marks := ""
+		if !c.Verified {
+			marks += " *"
+			unverified = true
+		}
+		if !o.InRange() {
+			marks += " ! " + strings.Join(o.Leaves.Names(), ",")
+			outside = true
+		}
+		test := c.Cool.Symbol() + "/" + c.Dyn.String()
+		limit := tui.FormatSig(o.Threshold, 3)
+		rc := tui.Format(model.DimLength, float64(o.RCrit))
+		if c.Cool == model.CoolNone {
+			test, limit, rc = "no cooling", "—", "none"
+		}
+		verdict := "✗ destroyed"
+		if o.Verdict == model.Survives {
+			verdict = "✓ survives-and-grows"
+		}
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", tui.Sanitize(c.ID), test, tui.FormatSig(o.Ratio, 3), limit, rc, tui.FormatSig(o.Margin, 3), verdict, marks)
+	}
+	tw.Flush()
+	if unverified {
+		fmt.Fprintf(&b, "  * constants not verified against the paper; see 'status' in --format json\n")
+	}
+	if outside {
+		fmt.Fprintf(&b, "  ! inputs outside the range the criterion was calibrated on\n")
+	}
+	if len(r.Cautions) > 0 {
+		fmt.Fprintf(&b, "\nCautions\n")
+		for _, c := range r.Cautions {
+			fmt.Fprintf(&b, "  - %s\n", c.Message)
+		}
+	}
+	return writeTrimmed(w, b.String())
+}
+
+// writeTrimmed writes text with the spaces that tabwriter leaves at line
+// ends removed.
+func writeTrimmed(w io.Writer, text string) error {
+	lines := strings.Split(text, "\n")
+	for i, l := range lines {
+		lines[i] = strings.TrimRight(l, " ")
+	}
+	_, err := io.WriteString(w, strings.Join(lines, "\n"))
+	return err
+}
+
+// conventionText states the cooling-time convention in words.
+func conventionText(q model.Params) string {
+	f := "f = 3/2 (isochoric)"
+	if q.HeatCapacity == model.Isobaric {
+		f = "f = 5/2 (isobaric)"
+	}
+	n := "𝒩 = n_H²"
+	if q.DensityProduct == model.N2 {
+		n = "𝒩 = n² (total particles)"
+	}
+	return "t_cool = f n k_B T/(𝒩 Λ) with " + f + ", " + n
+}

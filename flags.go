@@ -1,0 +1,376 @@
+package main
+
+import (
+	"bytes"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+
+	"cloudwind/config"
+	"cloudwind/model"
+	"cloudwind/tui"
+)
+
+// flagSet wraps flag.FlagSet with one-line errors, suggestions for typos
+// and help text with examples.
+type flagSet struct {
+	fs       *flag.FlagSet
+	cmd      string
+	synopsis string // usage line and description
+	examples string
+}
+
+func newFlagSet(cmd, synopsis, examples string) *flagSet {
+	fs := flag.NewFlagSet(cmd, flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	return &flagSet{fs: fs, cmd: cmd, synopsis: synopsis, examples: examples}
+}
+
+// parse parses args. --help prints help to stdout and returns errHelpShown.
+func (f *flagSet) parse(e *env) error {
+	for _, a := range e.args {
+		if a == "--" {
+			break
+		}
+		if a == "-h" || a == "--help" || a == "-help" {
+			f.printHelp(e.stdout)
+			return errHelpShown
+		}
+	}
+	if err := f.fs.Parse(e.args); err != nil {
+		return f.explain(err)
+	}
+	if f.fs.NArg() > 0 {
+		return usagef("unexpected argument %q (flags start with --; run 'cloudwind %s --help')", sanitizeArg(f.fs.Arg(0)), f.cmd)
+	}
+	return nil
+}
+
+// explain rewrites the flag package's errors as one line with a hint.
+func (f *flagSet) explain(err error) error {
+	msg := err.Error()
+	const undefined = "flag provided but not defined: "
+	if name, ok := strings.CutPrefix(msg, undefined); ok {
+		name = strings.TrimLeft(name, "-")
+		var names []string
+		f.fs.VisitAll(func(fl *flag.Flag) { names = append(names, fl.Name) })
+		hint := fmt.Sprintf("run 'cloudwind %s --help' for the flags", f.cmd)
+		if s := suggest(name, names); s != "" {
+			hint = fmt.Sprintf("did you mean --%s?", s)
+		}
+		return usagef("unknown flag --%s (%s)", sanitizeArg(name), hint)
+	}
+	if name, ok := strings.CutPrefix(msg, "flag needs an argument: "); ok {
+		return usagef("--%s needs a value", strings.TrimLeft(sanitizeArg(name), "-"))
+	}
+	return usagef("%s", sanitizeArg(msg))
+}
+
+func (f *flagSet) printHelp(w io.Writer) {
+	var b bytes.Buffer
+	fmt.Fprintf(&b, "%s\n\nFlags:\n", strings.TrimSpace(f.synopsis))
+	f.fs.VisitAll(func(fl *flag.Flag) {
+		name, usage := flag.UnquoteUsage(fl)
+		line := "  --" + fl.Name
+		if name != "" {
+			line += " " + name
+		}
+		if len(line) > 26 {
+			fmt.Fprintf(&b, "%s\n%28s", line, "")
+		} else {
+			fmt.Fprintf(&b, "%-28s", line)
+		}
+		b.WriteString(strings.ReplaceAll(usage, "\n", "\n"+strings.Repeat(" ", 28)))
+		if fl.DefValue != "" && fl.DefValue != "false" {
+			fmt.Fprintf(&b, " (default %s)", fl.DefValue)
+		}
+		b.WriteByte('\n')
+	})
+	if f.examples != "" {
+		fmt.Fprintf(&b, "\nExamples:\n%s\n", strings.TrimRight(f.examples, "\n"))
+	}
+	w.Write(b.Bytes())
+}
+
+// set reports whether the named flag was given on the command line.
+func (f *flagSet) set(name string) bool {
+	found := false
+	f.fs.Visit(func(fl *flag.Flag) {
+		if fl.Name == name {
+			found = true
+		}
+	})
+	return found
+}
+
+// scenarioFlags are the inputs shared by every command that evaluates a
+// scenario. Values are strings so that they may carry units.
+type scenarioFlags struct {
+	chi, mach, pressure, tCloud, radius, metallicity string
+	gamma, mu, muCloud, muHot, hydrogen, tFloor       string
+	mixture, heatCapacity, densityProduct             string
+	cooling, criteria                                 string
+}
+
+// scenarioFlag describes one numeric scenario flag.
+type scenarioFlag struct {
+	name  string       // flag name without dashes
+	field string       // model.Field… it sets
+	kind  tui.Kind     // dimension for units
+	ptr   func(*scenarioFlags) *string
+	set   func(p *model.Params, v float64)
+	def   string
+	usage string
+}
+
+// numericScenarioFlags lists the numeric scenario flags in help order.
+func numericScenarioFlags() []scenarioFlag {
+	fid := model.Fiducial()
+	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+	return []scenarioFlag{
+		{"chi", model.FieldChi, model.Dimensionless, func(s *scenarioFlags) *string { return &s.chi }, func(p *model.Params, v float64) { p.Chi = v }, g(fid.Chi), "density contrast χ = ρ_cloud/ρ_wind (> 1)"},
+		{"mach", model.FieldMach, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mach }, func(p *model.Params, v float64) { p.Mach = v }, g(fid.Mach), "wind Mach number against the hot adiabatic sound speed"},
+		{"pressure", model.FieldPressure, model.DimPressure, func(s *scenarioFlags) *string { return &s.pressure }, func(p *model.Params, v float64) { p.Pressure = model.Pressure(v) }, g(float64(fid.Pressure)), "pressure P/k_B in K cm-3 (or with a unit: \"1e-13 erg cm-3\")"},
+		{"t-cloud", model.FieldTCloud, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tCloud }, func(p *model.Params, v float64) { p.TCloud = model.Temperature(v) }, g(float64(fid.TCloud)), "cloud temperature in K (or \"1 keV\")"},
+		{"radius", model.FieldRCloud, model.DimLength, func(s *scenarioFlags) *string { return &s.radius }, func(p *model.Params, v float64) { p.RCloud = model.Length(v) }, "1 pc", "cloud radius: number with optional unit pc (default), kpc, au, km, m, cm"},
+		{"metallicity", model.FieldMetallicity, model.DimMetallicity, func(s *scenarioFlags) *string { return &s.metallicity }, func(p *model.Params, v float64) { p.Metallicity = v }, g(fid.Metallicity), "metallicity Z in solar units"},
+		{"gamma", model.FieldGamma, model.Dimensionless, func(s *scenarioFlags) *string { return &s.gamma }, func(p *model.Params, v float64) { p.Gamma = v }, "5/3", "adiabatic index γ"},
+		{"mu", model.FieldMu, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mu }, func(p *model.Params, v float64) { p.Mu = v }, g(model.DefaultMu), "mean molecular weight μ of both phases"},
+		{"mu-cloud", model.FieldMuCold, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muCloud }, func(p *model.Params, v float64) { p.MuCold = v }, "", "μ of the cloud, if different (then T_hot = χ T_cl μ_hot/μ_cl)"},
+		{"mu-hot", model.FieldMuHot, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muHot }, func(p *model.Params, v float64) { p.MuHot = v }, "", "μ of the wind, if different"},
+		{"hydrogen-fraction", model.FieldHydrogenFraction, model.Dimensionless, func(s *scenarioFlags) *string { return &s.hydrogen }, func(p *model.Params, v float64) { p.HydrogenFraction = v }, "", "hydrogen mass fraction X (default: that of --mixture)"},
+		{"t-floor", model.FieldTFloor, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tFloor }, func(p *model.Params, v float64) { p.TFloor = model.Temperature(v) }, "", "cooling floor in K: Λ = 0 below it (default: the cloud temperature)"},
+	}
+}
+
+// register adds the scenario flags to f.
+func (s *scenarioFlags) register(f *flagSet) {
+	for _, sf := range numericScenarioFlags() {
+		f.fs.StringVar(sf.ptr(s), sf.name, sf.def, sf.usage)
+	}
+	var mix []string
+	for _, m := range model.Mixtures() {
+		mix = append(mix, m.Name)
+	}
+	f.fs.StringVar(&s.mixture, "mixture", model.Asplund2009.Name, "solar mixture for n_H: "+strings.Join(mix, ", "))
+	f.fs.StringVar(&s.heatCapacity, "heat-capacity", "isochoric", "f in t_cool = f n k T/(𝒩 Λ): isochoric (3/2) or isobaric (5/2)")
+	f.fs.StringVar(&s.densityProduct, "density-product", "nh2", "𝒩 in t_cool: nh2 (n_H², physical) or n2 (n², total particles)")
+	f.fs.StringVar(&s.cooling, "cooling", defaultCooling, "cooling function: const:LAMBDA (erg cm3 s-1, per n_H²; 10^x allowed)\nor powerlaw:L0,T0,SLOPE for Λ = L0 (T/T0)^SLOPE")
+	f.fs.StringVar(&s.criteria, "criteria", "", "TOML file that corrects or adds criteria ('-' for stdin)")
+}
+
+// defaultCooling is the cooling function used when --cooling is not given:
+// the Gronke & Oh (2018) normalisation Λ = 10^-21.4 erg cm³ s⁻¹.
+const defaultCooling = "const:10^-21.4"
+
+// flagForField maps a model.Field… name to the flag that sets it.
+func flagForField(field string) string {
+	switch field {
+	case model.FieldHeatCapacity, model.FieldDensityProduct:
+		return "--" + strings.ReplaceAll(field, "_", "-")
+	}
+	for _, sf := range numericScenarioFlags() {
+		if sf.field == field {
+			return "--" + sf.name
+		}
+	}
+	return field
+}
+
+// params parses the scenario flags into model.Params and validates them.
+func (s *scenarioFlags) params() (model.Params, error) {
+	var p model.Params
+	for _, sf := range numericScenarioFlags() {
+		raw := strings.TrimSpace(*sf.ptr(s))
+		if raw == "" {
+			continue // optional: model default
+		}
+		if sf.name == "gamma" && raw == "5/3" {
+			p.Gamma = model.DefaultGamma
+			continue
+		}
+		v, err := tui.ParseValue(sf.kind, raw)
+		if err != nil {
+			return p, usagef("--%s: %v", sf.name, err)
+		}
+		sf.set(&p, v)
+	}
+	m, ok := model.MixtureByName(s.mixture)
+	if !ok {
+		return p, usagef("--mixture: unknown mixture %q (want one of %s)", sanitizeArg(s.mixture), mixtureNames())
+	}
+	p.Mixture = m
+	switch s.heatCapacity {
+	case "isochoric":
+		p.HeatCapacity = model.Isochoric
+	case "isobaric":
+		p.HeatCapacity = model.Isobaric
+	default:
+		return p, usagef("--heat-capacity: want isochoric or isobaric (got %q)", sanitizeArg(s.heatCapacity))
+	}
+	switch s.densityProduct {
+	case "nh2":
+		p.DensityProduct = model.NH2
+	case "n2":
+		p.DensityProduct = model.N2
+	default:
+		return p, usagef("--density-product: want nh2 or n2 (got %q)", sanitizeArg(s.densityProduct))
+	}
+	if err := p.Validate(); err != nil {
+		var fe *model.FieldError
+		if errors.As(err, &fe) {
+			return p, usagef("%s: %s", flagForField(fe.Field), fe.Reason)
+		}
+		return p, usagef("%v", err)
+	}
+	return p, nil
+}
+
+func mixtureNames() string {
+	var n []string
+	for _, m := range model.Mixtures() {
+		n = append(n, m.Name)
+	}
+	return strings.Join(n, ", ")
+}
+
+// coolingSource is a parsed --cooling value.
+type coolingSource struct {
+	fn   model.CoolingFunction
+	spec string // as given
+	desc string // for people
+}
+
+// parseCooling parses a --cooling value.
+func parseCooling(spec string) (coolingSource, error) {
+	kind, arg, ok := strings.Cut(spec, ":")
+	if !ok {
+		return coolingSource{}, usagef("--cooling: %q is not a cooling spec (want const:LAMBDA or powerlaw:L0,T0,SLOPE)", sanitizeArg(spec))
+	}
+	switch kind {
+	case "const":
+		v, err := parsePositive(arg)
+		if err != nil {
+			return coolingSource{}, usagef("--cooling const: Λ %v", err)
+		}
+		c := model.ConstantCooling{Value: model.CoolingRate(v)}
+		return coolingSource{c, spec, c.String()}, nil
+	case "powerlaw":
+		parts := strings.Split(arg, ",")
+		if len(parts) != 3 {
+			return coolingSource{}, usagef("--cooling powerlaw: want three values L0,T0,SLOPE (got %d)", len(parts))
+		}
+		l0, err := parsePositive(parts[0])
+		if err != nil {
+			return coolingSource{}, usagef("--cooling powerlaw: L0 %v", err)
+		}
+		t0, err := parsePositive(parts[1])
+		if err != nil {
+			return coolingSource{}, usagef("--cooling powerlaw: T0 %v", err)
+		}
+		slope, err := strconv.ParseFloat(strings.TrimSpace(parts[2]), 64)
+		if err != nil || math.IsNaN(slope) || math.IsInf(slope, 0) || math.Abs(slope) > 20 {
+			return coolingSource{}, usagef("--cooling powerlaw: SLOPE must be a number between -20 and 20 (got %q)", sanitizeArg(parts[2]))
+		}
+		c := model.PowerLawCooling{L0: model.CoolingRate(l0), T0: model.Temperature(t0), Slope: slope}
+		return coolingSource{c, spec, c.String()}, nil
+	}
+	return coolingSource{}, usagef("--cooling: unknown kind %q (want const or powerlaw)", sanitizeArg(kind))
+}
+
+// parsePositive parses a finite positive number, also written 10^x.
+func parsePositive(s string) (float64, error) {
+	s = strings.TrimSpace(s)
+	var v float64
+	var err error
+	if x, ok := strings.CutPrefix(s, "10^"); ok {
+		v, err = strconv.ParseFloat(x, 64)
+		v = math.Pow(10, v)
+	} else {
+		v, err = strconv.ParseFloat(s, 64)
+	}
+	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 {
+		return 0, fmt.Errorf("must be a finite number greater than 0 (got %q)", sanitizeArg(s))
+	}
+	return v, nil
+}
+
+// loadCriteria returns the built-in criteria, corrected and extended by the
+// --criteria file when one is given.
+func loadCriteria(e *env, path string) ([]model.Criterion, error) {
+	base := model.BuiltinCriteria()
+	if path == "" {
+		return base, nil
+	}
+	r, name, closeFn, err := openInput(e, path)
+	if err != nil {
+		return nil, err
+	}
+	defer closeFn()
+	cs, err := config.LoadCriteria(r, name, base)
+	if err != nil {
+		return nil, fmt.Errorf("--criteria: %w", err)
+	}
+	return cs, nil
+}
+
+// suggest returns the candidate closest to s by edit distance, if it is
+// close enough to be a likely typo.
+func suggest(s string, candidates []string) string {
+	best, bestD := "", 3
+	for _, c := range candidates {
+		if d := editDistance(s, c); d < bestD || (d == bestD && c < best) {
+			best, bestD = c, d
+		}
+	}
+	if bestD > 2 || bestD >= len(s) {
+		return ""
+	}
+	return best
+}
+
+// editDistance is the Levenshtein distance between a and b.
+func editDistance(a, b string) int {
+	ra, rb := []rune(a), []rune(b)
+	prev := make([]int, len(rb)+1)
+	cur := make([]int, len(rb)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(ra); i++ {
+		cur[0] = i
+		for j := 1; j <= len(rb); j++ {
+			cost := 1
+			if ra[i-1] == rb[j-1] {
+				cost = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(rb)]
+}
+
+// sanitizeArg makes user text safe to echo to a terminal.
+func sanitizeArg(s string) string {
+	s = tui.Sanitize(s)
+	if r := []rune(s); len(r) > 60 {
+		s = string(r[:59]) + "…"
+	}
+	return s
+}
+
+// sortedKeys returns the keys of m in order.
+func sortedKeys[V any](m map[string]V) []string {
+	k := make([]string, 0, len(m))
+	for s := range m {
+		k = append(k, s)
+	}
+	sort.Strings(k)
+	return k
+}

@@ -1,0 +1,67 @@
+// Package model computes whether a cold cloud in a hot wind survives and
+// grows or is destroyed, according to each published criterion: the
+// derived state of the cloud–wind problem (temperatures, densities, sound
+// speeds, the wind speed, the cloud-crushing, shear, drag and growth times,
+// the cooling times of hot, mixed and cold gas and the minimum along the
+// mixing isobar, cooling and shattering lengths) and, for every criterion,
+// the ratio τ_cool/τ_dyn, the threshold radius r_crit, the margin and the
+// verdict.
+//
+// The package is pure: it does no I/O and imports nothing of the program's
+// interface. It declares the cooling-function interface it consumes
+// (CoolingFunction); package cooling provides real ones, and this package
+// ships two analytic ones (ConstantCooling, PowerLawCooling).
+//
+// # Units
+//
+// Every quantity is CGS unless its name says otherwise, carried in a typed
+// float64 whose doc states the unit (Temperature in K, Length in cm, Time in
+// s, ...). Pressure is P/k_B in K cm⁻³. Dimensionless ratios (χ, the Mach
+// number, t_cool/t_cc) are plain float64. Constants (constants.go) are pinned
+// to CODATA 2018 and IAU 2012/2015, the defaults of astropy 5.2.1.
+//
+// # Conventions
+//
+// Λ is always normalised per n_H²; the density product 𝒩 that multiplies it
+// in t_cool = f n k_B T/(𝒩 Λ) is either n_H² (NH2, the default: the
+// physical loss rate) or n² with n the total particle density (N2, the
+// simplified form of many analytic estimates). f is 3/2 (Isochoric, the
+// default) or 5/2 (Isobaric). The Mach number is measured against the
+// adiabatic sound speed of the hot gas. One μ = 0.6 serves both phases
+// unless MuCold and MuHot are set. Logarithms are base 10 and named log10….
+// Published threshold radii differ by factors of 2–10 through these choices
+// alone (physics reference §4.3), so every output names them.
+//
+// # References
+//
+//   - [AFB23] Abruzzo, Fielding & Bryan 2023, arXiv:2307.03228.
+//   - [AAG21] Asplund, Amarsi & Grevesse 2021, A&A 653, A141.
+//   - [BF90] Begelman & Fabian 1990, MNRAS 244, 26P.
+//   - [FG22] Farber & Gronke 2022, MNRAS 510, 551, arXiv:2107.07991.
+//   - [GO18] Gronke & Oh 2018, MNRAS 480, L111, arXiv:1806.02728.
+//   - [GO20] Gronke & Oh 2020, MNRAS 492, 1970, arXiv:1907.04771.
+//   - [KDS21] Kanjilal, Dutta & Sharma 2021, MNRAS 501, 1143, arXiv:2009.00525.
+//   - [KMC94] Klein, McKee & Colella 1994, ApJ 420, 213.
+//   - [Li20] Li, Hopkins, Squire & Hummels 2020, MNRAS 492, 1841, arXiv:1909.02632.
+//   - [McC18] McCourt, Oh, O'Leary & Madigan 2018, MNRAS 473, 5407, arXiv:1610.01164.
+//   - [SPE20] Sparre, Pfrommer & Ehlert 2020, MNRAS 499, 4261, arXiv:2008.09118.
+//   - [TOG21] Tan, Oh & Gronke 2021, MNRAS 502, 3179, arXiv:2008.12302.
+//
+// Journal references of [FG22], [KDS21], [McC18] and [TOG21] and the year of
+// [BF90] are from memory; the arXiv identifiers are those the physics
+// reference confirmed. No equation number is cited, because none was read
+// from the papers themselves.
+//
+// [AFB23]: https://arxiv.org/abs/2307.03228
+// [AAG21]: https://arxiv.org/abs/2105.01661
+// [BF90]: https://ui.adsabs.harvard.edu/abs/1990MNRAS.244P..26B
+// [FG22]: https://arxiv.org/abs/2107.07991
+// [GO18]: https://arxiv.org/abs/1806.02728
+// [GO20]: https://arxiv.org/abs/1907.04771
+// [KDS21]: https://arxiv.org/abs/2009.00525
+// [KMC94]: https://ui.adsabs.harvard.edu/abs/1994ApJ...420..213K
+// [Li20]: https://arxiv.org/abs/1909.02632
+// [McC18]: https://arxiv.org/abs/1610.01164
+// [SPE20]: https://arxiv.org/abs/2008.09118
+// [TOG21]: https://arxiv.org/abs/2008.12302
+package model

@@ -1,0 +1,240 @@
+package model
+
+import (
+	"errors"
+	"fmt"
+	"math"
+)
+
+// HeatCapacity selects the factor f in t_cool = f n k_B T / (𝒩 Λ).
+type HeatCapacity int
+
+const (
+	// Isochoric uses f = 3/2 = 1/(γ−1) for γ = 5/3: thermal energy per volume.
+	Isochoric HeatCapacity = iota
+	// Isobaric uses f = 5/2 = γ/(γ−1) for γ = 5/3: enthalpy per volume, the
+	// natural choice for gas cooling at fixed pressure.
+	Isobaric
+)
+
+// Factor returns f: 3/2 for Isochoric and 5/2 for Isobaric.
+func (h HeatCapacity) Factor() float64 {
+	if h == Isobaric {
+		return 2.5
+	}
+	return 1.5
+}
+
+// String returns "isochoric" or "isobaric".
+func (h HeatCapacity) String() string {
+	if h == Isobaric {
+		return "isobaric"
+	}
+	return "isochoric"
+}
+
+// DensityProduct selects the density product 𝒩 that multiplies Λ in the
+// volumetric cooling rate 𝒩 Λ(T).
+type DensityProduct int
+
+const (
+	// NH2 uses 𝒩 = n_H², with n_H = X ρ / m_H from the composition. It is the
+	// normalisation cloudwind's cooling functions carry, so the loss rate is
+	// the physical one.
+	NH2 DensityProduct = iota
+	// N2 uses 𝒩 = n², n the total particle density: the simplified form many
+	// analytic estimates use. It is a labelled convention, not a unit
+	// conversion; it gives cooling times shorter by (n_H/n)² ≈ 0.196.
+	N2
+)
+
+// String returns "nh2" or "n2", the names used on the command line.
+func (d DensityProduct) String() string {
+	if d == N2 {
+		return "n2"
+	}
+	return "nh2"
+}
+
+// Params holds the inputs of a cloud-in-wind problem. A zero value in an
+// optional field means "use the default" stated on that field.
+type Params struct {
+	Chi         float64     // density contrast χ = ρ_cl/ρ_hot; > 1
+	Mach        float64     // wind Mach number against the hot adiabatic sound speed; > 0
+	Pressure    Pressure    // P/k_B in K cm⁻³, the same in both phases
+	TCloud      Temperature // cloud temperature T_cl in K
+	RCloud      Length      // cloud radius r_cl in cm
+	Metallicity float64     // Z in units of Z☉; ≥ 0. Selects the cooling curve; the caller builds it.
+
+	Gamma  float64 // adiabatic index γ; default 5/3
+	Mu     float64 // mean molecular weight of both phases; default 0.6
+	MuCold float64 // μ of the cloud; default Mu
+	MuHot  float64 // μ of the wind; default Mu. With MuCold ≠ MuHot, T_hot = χ T_cl μ_hot/μ_cl.
+
+	Mixture          Mixture     // solar mixture for n_H; default Asplund2009
+	HydrogenFraction float64     // hydrogen mass fraction X; default Mixture.X
+	TFloor           Temperature // cooling floor: Λ = 0 below it; default TCloud
+
+	HeatCapacity   HeatCapacity   // f in t_cool; default Isochoric (3/2)
+	DensityProduct DensityProduct // 𝒩 in t_cool; default NH2
+}
+
+// Default values of the optional fields and of the fiducial problem.
+const (
+	DefaultGamma = 5.0 / 3.0 // monatomic ideal gas
+	// DefaultMu is μ = 0.6 for both phases, the single value most wind-tunnel
+	// simulations use (status: from memory); fully ionised A09 gas has 0.5991.
+	DefaultMu = 0.6
+)
+
+// Fiducial returns the fiducial problem of the Gronke & Oh (2018) scaling:
+// χ = 100, M = 1, P/k_B = 10³ K cm⁻³, T_cl = 10⁴ K, r_cl = 1 pc, Z = 1,
+// and the default conventions.
+func Fiducial() Params {
+	return Params{Chi: 100, Mach: 1, Pressure: 1e3, TCloud: 1e4, RCloud: Parsec, Metallicity: 1}
+}
+
+// WithDefaults returns p with every zero optional field set to its default.
+func (p Params) WithDefaults() Params {
+	if p.Gamma == 0 {
+		p.Gamma = DefaultGamma
+	}
+	if p.Mu == 0 {
+		p.Mu = DefaultMu
+	}
+	if p.MuCold == 0 {
+		p.MuCold = p.Mu
+	}
+	if p.MuHot == 0 {
+		p.MuHot = p.Mu
+	}
+	if p.Mixture == (Mixture{}) {
+		p.Mixture = Asplund2009
+	}
+	if p.HydrogenFraction == 0 {
+		p.HydrogenFraction = p.Mixture.X
+	}
+	if p.TFloor == 0 {
+		p.TFloor = p.TCloud
+	}
+	return p
+}
+
+// Field names used in FieldError, in the snake_case of the JSON output.
+const (
+	FieldChi              = "chi"
+	FieldMach             = "mach"
+	FieldPressure         = "pressure"
+	FieldTCloud           = "t_cloud"
+	FieldRCloud           = "radius"
+	FieldMetallicity      = "metallicity"
+	FieldGamma            = "gamma"
+	FieldMu               = "mu"
+	FieldMuCold           = "mu_cloud"
+	FieldMuHot            = "mu_hot"
+	FieldHydrogenFraction = "hydrogen_fraction"
+	FieldTFloor           = "t_floor"
+	FieldHeatCapacity     = "heat_capacity"
+	FieldDensityProduct   = "density_product"
+)
+
+// Sentinel errors wrapped by FieldError.
+var (
+	ErrNotFinite   = errors.New("must be a finite number")
+	ErrOutOfBounds = errors.New("out of the accepted range")
+	ErrUnknown     = errors.New("unknown value")
+)
+
+// A FieldError reports an invalid input field.
+type FieldError struct {
+	Field  string  // one of the Field… names
+	Value  float64 // the offending value
+	Reason string  // what is wrong, for people
+	Err    error   // ErrNotFinite, ErrOutOfBounds or ErrUnknown
+}
+
+func (e *FieldError) Error() string { return e.Field + ": " + e.Reason }
+
+// Unwrap returns the underlying error.
+func (e *FieldError) Unwrap() error { return e.Err }
+
+// Accepted input ranges. They are wide enough for every published set-up
+// (physics reference §8: χ 10–10⁵, M up to ~10, P/k_B 10¹–10⁷ K cm⁻³) and
+// exist to catch typos and unit mistakes, not to judge physics.
+const (
+	MaxChi          = 1e8
+	MaxMach         = 1e3
+	MinPressure     = 1e-6 // K cm⁻³
+	MaxPressure     = 1e12 // K cm⁻³
+	MinTCloud       = 1.0  // K
+	MaxTCloud       = 1e8  // K
+	MaxTHot         = 1e11 // K
+	MinRCloud       = 1e-9 * Parsec
+	MaxRCloud       = 1e7 * Parsec
+	MaxMetallicity  = 1e3
+	MaxGamma        = 3.0
+	MinMu           = 0.1
+	MaxMu           = 10.0
+	MinHydrogenFrac = 1e-3
+	MaxHydrogenFrac = 1.0
+)
+
+// Validate checks every field of p (after defaults) and returns a
+// *FieldError naming the first invalid one, or nil.
+func (p Params) Validate() error {
+	q := p.WithDefaults()
+	// Reasons quote values in the unit people type: pc for the radius.
+	check := func(field string, v, lo, hi float64, loOpen bool, scale float64, unit string) error {
+		switch {
+		case math.IsNaN(v) || math.IsInf(v, 0):
+			return &FieldError{field, v, fmt.Sprintf("must be a finite number (got %g)", v), ErrNotFinite}
+		case loOpen && v <= lo:
+			return &FieldError{field, v, fmt.Sprintf("must be greater than %g%s (got %g%s)", lo*scale, unit, v*scale, unit), ErrOutOfBounds}
+		case !loOpen && v < lo:
+			return &FieldError{field, v, fmt.Sprintf("must be at least %g%s (got %g%s)", lo*scale, unit, v*scale, unit), ErrOutOfBounds}
+		case v > hi:
+			return &FieldError{field, v, fmt.Sprintf("must not exceed %g%s (got %g%s)", hi*scale, unit, v*scale, unit), ErrOutOfBounds}
+		}
+		return nil
+	}
+	checks := [...]struct {
+		field  string
+		v      float64
+		lo, hi float64
+		open   bool
+		scale  float64
+		unit   string
+	}{
+		{FieldChi, p.Chi, 1, MaxChi, true, 1, ""},
+		{FieldMach, p.Mach, 0, MaxMach, true, 1, ""},
+		{FieldPressure, float64(p.Pressure), MinPressure, MaxPressure, false, 1, " K cm⁻³"},
+		{FieldTCloud, float64(p.TCloud), MinTCloud, MaxTCloud, false, 1, " K"},
+		{FieldRCloud, float64(p.RCloud), float64(MinRCloud), float64(MaxRCloud), false, 1 / float64(Parsec), " pc"},
+		{FieldMetallicity, p.Metallicity, 0, MaxMetallicity, false, 1, " Z☉"},
+		{FieldGamma, q.Gamma, 1, MaxGamma, true, 1, ""},
+		{FieldMu, q.Mu, MinMu, MaxMu, false, 1, ""},
+		{FieldMuCold, q.MuCold, MinMu, MaxMu, false, 1, ""},
+		{FieldMuHot, q.MuHot, MinMu, MaxMu, false, 1, ""},
+		{FieldHydrogenFraction, q.HydrogenFraction, MinHydrogenFrac, MaxHydrogenFrac, false, 1, ""},
+	}
+	for _, c := range checks {
+		if err := check(c.field, c.v, c.lo, c.hi, c.open, c.scale, c.unit); err != nil {
+			return err
+		}
+	}
+	if tf := float64(q.TFloor); math.IsNaN(tf) || math.IsInf(tf, 0) || tf < 0 {
+		return &FieldError{FieldTFloor, tf, fmt.Sprintf("must be a finite temperature ≥ 0 K (got %g)", tf), ErrOutOfBounds}
+	} else if tf > float64(q.TCloud) {
+		return &FieldError{FieldTFloor, tf, fmt.Sprintf("the cooling floor %g K is above the cloud temperature %g K", tf, float64(q.TCloud)), ErrOutOfBounds}
+	}
+	if q.HeatCapacity != Isochoric && q.HeatCapacity != Isobaric {
+		return &FieldError{FieldHeatCapacity, float64(q.HeatCapacity), fmt.Sprintf("unknown heat-capacity convention %d", q.HeatCapacity), ErrUnknown}
+	}
+	if q.DensityProduct != NH2 && q.DensityProduct != N2 {
+		return &FieldError{FieldDensityProduct, float64(q.DensityProduct), fmt.Sprintf("unknown density-product convention %d", q.DensityProduct), ErrUnknown}
+	}
+	if th := HotTemperature(q.TCloud, q.Chi, q.MuCold, q.MuHot); th > MaxTHot {
+		return &FieldError{FieldChi, q.Chi, fmt.Sprintf("the wind temperature χ T_cl μ_hot/μ_cl = %.3g K exceeds %g K", float64(th), MaxTHot), ErrOutOfBounds}
+	}
+	return nil
+}

@@ -1,0 +1,203 @@
+package model
+
+import (
+	"fmt"
+	"math"
+)
+
+// State holds every quantity derived from Params and a cooling function.
+// Each field names the function or formula that computes it. Times that do
+// not exist (no cooling: Λ = 0) are +Inf.
+type State struct {
+	Params Params // the inputs, with defaults filled in
+
+	THot Temperature // wind temperature, HotTemperature
+	TMix Temperature // mixed-gas temperature (T_cl T_hot)^{1/2}, MixTemperature
+
+	NCold, NHot, NMix    NumberDensity // total particle densities, ParticleDensity
+	NHCold, NHHot, NHMix NumberDensity // hydrogen densities, HydrogenDensity
+	RhoCold, RhoHot      Density       // mass densities, MassDensity
+	RhoMix               Density       // (ρ_cl ρ_hot)^{1/2} [BF90]
+
+	CsCold, CsHot Velocity // adiabatic sound speeds, SoundSpeed
+	VWind         Velocity // M c_s,hot
+
+	TCC         Time // cloud-crushing time, CloudCrushingTime
+	TShear      Time // r_cl/v_w, ShearTime
+	TSoundCold  Time // cloud sound-crossing time r_cl/c_s,cl
+	TDrag       Time // χ r_cl/v_w, DragTime
+	TCoolHot    Time // t_cool of the wind at T_hot, n_hot
+	TCoolMix    Time // t_cool at T_mix, n_mix
+	TCoolCold   Time // t_cool of the cloud at T_cl, n_cl
+	TCoolMinMix Time // minimum isobaric t_cool over T ∈ [T_cl, T_hot]
+	TMinMix     Temperature
+
+	LambdaHot, LambdaMix, LambdaCold CoolingRate // Λ at T_hot, T_mix, T_cl
+
+	MassCold   Mass          // (4π/3) r_cl³ ρ_cl, CloudMass
+	ColumnCold ColumnDensity // n_cl r_cl, CloudColumn
+	LCoolCold  Length        // c_s,cl t_cool,cl, CoolingLength
+	LShatter   Length        // min over T ∈ [T_cl, T_hot] of c_s t_cool at fixed P [McC18]
+	TShatter   Temperature   // where that minimum lies
+	VMix       Velocity      // MixingVelocity with α_v = 1
+	TGrow      Time          // GrowthTime
+	Cautions   []Caution     // inputs outside the cooling function's range, and similar
+}
+
+// A Caution is a warning about the inputs that does not make them invalid.
+type Caution struct {
+	Field   string // the Params field concerned (a Field… name), or "" for general
+	Message string
+}
+
+// Derive computes the State of p with cooling function cf. It returns the
+// error of p.Validate() when p is invalid, and an error when cf is nil.
+func Derive(p Params, cf CoolingFunction) (State, error) {
+	var s State
+	err := s.derive(p, cf)
+	return s, err
+}
+
+func (s *State) derive(p Params, cf CoolingFunction) error {
+	if err := p.Validate(); err != nil {
+		return err
+	}
+	if cf == nil {
+		return fmt.Errorf("model: no cooling function")
+	}
+	q := p.WithDefaults()
+	*s = State{Params: q, Cautions: s.Cautions[:0]}
+	f := q.HeatCapacity.Factor()
+
+	s.THot = HotTemperature(q.TCloud, q.Chi, q.MuCold, q.MuHot)
+	s.TMix = MixTemperature(q.TCloud, s.THot)
+	s.NCold = ParticleDensity(q.Pressure, q.TCloud)
+	s.NHot = ParticleDensity(q.Pressure, s.THot)
+	s.NMix = ParticleDensity(q.Pressure, s.TMix)
+	s.RhoCold = MassDensity(s.NCold, q.MuCold)
+	s.RhoHot = MassDensity(s.NHot, q.MuHot)
+	s.RhoMix = Density(math.Sqrt(float64(s.RhoCold) * float64(s.RhoHot)))
+	x := q.HydrogenFraction
+	s.NHCold = HydrogenDensity(s.RhoCold, x)
+	s.NHHot = HydrogenDensity(s.RhoHot, x)
+	s.NHMix = HydrogenDensity(s.RhoMix, x)
+
+	s.CsCold = SoundSpeed(q.TCloud, q.MuCold, q.Gamma)
+	s.CsHot = SoundSpeed(s.THot, q.MuHot, q.Gamma)
+	s.VWind = Velocity(q.Mach * float64(s.CsHot))
+	s.TCC = CloudCrushingTime(q.RCloud, q.Chi, s.VWind)
+	s.TShear = ShearTime(q.RCloud, s.VWind)
+	s.TSoundCold = SoundCrossingTime(q.RCloud, s.CsCold)
+	s.TDrag = DragTime(q.RCloud, q.Chi, s.VWind)
+
+	s.LambdaHot = s.lambda(cf, s.THot)
+	s.LambdaMix = s.lambda(cf, s.TMix)
+	s.LambdaCold = s.lambda(cf, q.TCloud)
+	s.TCoolHot = CoolingTime(f, s.NHot, s.THot, s.densityProduct(s.NHot, s.NHHot), s.LambdaHot)
+	s.TCoolMix = CoolingTime(f, s.NMix, s.TMix, s.densityProduct(s.NMix, s.NHMix), s.LambdaMix)
+	s.TCoolCold = CoolingTime(f, s.NCold, q.TCloud, s.densityProduct(s.NCold, s.NHCold), s.LambdaCold)
+
+	s.minimaAlongIsobar(cf, f)
+
+	s.MassCold = CloudMass(q.RCloud, s.RhoCold)
+	s.ColumnCold = CloudColumn(s.NCold, q.RCloud)
+	s.LCoolCold = CoolingLength(s.CsCold, s.TCoolCold)
+	s.VMix = MixingVelocity(1, s.CsCold, s.TCoolCold, s.TSoundCold)
+	s.TGrow = GrowthTime(q.RCloud, q.Chi, s.VMix)
+	s.rangeCautions(cf)
+	return nil
+}
+
+// lambda returns Λ(t) with the cooling floor applied: Λ = 0 below T_floor.
+func (s *State) lambda(cf CoolingFunction, t Temperature) CoolingRate {
+	if t < s.Params.TFloor {
+		return 0
+	}
+	return cf.Lambda(t)
+}
+
+// densityProduct returns 𝒩 for gas of particle density n and hydrogen
+// density nH under the chosen convention.
+func (s *State) densityProduct(n, nH NumberDensity) float64 {
+	if s.Params.DensityProduct == N2 {
+		return float64(n) * float64(n)
+	}
+	return float64(nH) * float64(nH)
+}
+
+// minimaAlongIsobar finds the minimum cooling time and the shattering length
+// over T ∈ [T_cl, T_hot] at the common pressure.
+//
+// At fixed P/k_B, t_cool(T) = f k_B T²/(ξ(T) (P/k_B) Λ(T)) with ξ ≡ 𝒩/n²
+// (physics reference §4.1; derived). ξ = 1 under N2 and (X μ m_p/m_H)² under
+// NH2. With μ_cl ≠ μ_hot, μ along the mixing line is interpolated as a power
+// law in T between the phases, μ(T) = μ_cl (T/T_cl)^δ with
+// δ = ln(μ_hot/μ_cl)/ln(T_hot/T_cl), which gives (μ_cl μ_hot)^{1/2} at T_mix
+// as ρ_mix = (ρ_cl ρ_hot)^{1/2} requires (a modelling choice of cloudwind).
+// Then t_cool ∝ T^{2−2δ}/Λ under NH2 and c_s t_cool ∝ T^{2.5−2.5δ}/Λ, power
+// laws in T, so the minima are found exactly on piecewise power laws.
+func (s *State) minimaAlongIsobar(cf CoolingFunction, f float64) {
+	q := &s.Params
+	lo, hi := q.TCloud, s.THot
+	delta := 0.0
+	if q.MuCold != q.MuHot {
+		delta = math.Log(q.MuHot/q.MuCold) / math.Log(float64(hi)/float64(lo))
+	}
+	mu := func(t Temperature) float64 { return q.MuCold * math.Pow(float64(t)/float64(lo), delta) }
+	xi := func(t Temperature) float64 {
+		if q.DensityProduct == N2 {
+			return 1
+		}
+		r := q.HydrogenFraction * mu(t) * float64(ProtonMass) / float64(HydrogenAtomMass)
+		return r * r
+	}
+	tcool := func(m isobarPoint) Time {
+		if m.Lambda <= 0 {
+			return Time(math.Inf(1))
+		}
+		t := float64(m.T)
+		return Time(f * Boltzmann * t * t / (xi(m.T) * float64(q.Pressure) * float64(m.Lambda)))
+	}
+	eT := 2.0
+	if q.DensityProduct == NH2 {
+		eT -= 2 * delta
+	}
+	eL := eT + 0.5 - 0.5*delta
+	// T_cl ≥ T_floor (Validate), so the floor does not reach [T_cl, T_hot].
+	m0, m1 := minLogRatio(cf, lo, hi, s.LambdaCold, s.LambdaHot, eT, eL)
+	if m0.ok {
+		s.TMinMix, s.TCoolMinMix = m0.T, tcool(m0)
+	} else {
+		s.TMinMix, s.TCoolMinMix = Temperature(math.NaN()), Time(math.Inf(1))
+	}
+	if m1.ok {
+		s.TShatter = m1.T
+		s.LShatter = CoolingLength(SoundSpeed(m1.T, mu(m1.T), q.Gamma), tcool(m1))
+	} else {
+		s.TShatter, s.LShatter = Temperature(math.NaN()), Length(math.Inf(1))
+	}
+}
+
+// rangeCautions reports the temperatures of interest that lie outside the
+// cooling function's valid range.
+func (s *State) rangeCautions(cf CoolingFunction) {
+	r, ok := cf.(RangedCooling)
+	if !ok {
+		return
+	}
+	lo, hi := r.ValidRange()
+	for _, c := range []struct {
+		field, name string
+		t           Temperature
+	}{
+		{FieldTCloud, "T_cl", s.Params.TCloud},
+		{FieldChi, "T_mix", s.TMix},
+		{FieldChi, "T_hot", s.THot},
+	} {
+		if c.t < lo {
+			s.Cautions = append(s.Cautions, Caution{c.field, fmt.Sprintf("%s = %.3g K is below the cooling table (from %.3g K): Λ = 0 there", c.name, float64(c.t), float64(lo))})
+		} else if c.t > hi {
+			s.Cautions = append(s.Cautions, Caution{c.field, fmt.Sprintf("%s = %.3g K is above the cooling table (to %.3g K): Λ is extrapolated there", c.name, float64(c.t), float64(hi))})
+		}
+	}
+}
