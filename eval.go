@@ -8,6 +8,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"cloudwind/cooling"
 	"cloudwind/model"
 	"cloudwind/tui"
 )
@@ -30,7 +31,8 @@ const evalExamples = `  cloudwind eval
 // evalOptions are the parsed flags of eval.
 type evalOptions struct {
 	params   model.Params
-	cooling  coolingSource
+	cooling  *coolingSource
+	cf       model.CoolingFunction // the cooling function at the scenario's Z
 	criteria []model.Criterion
 	format   string
 }
@@ -48,8 +50,11 @@ func runEval(e *env) error {
 	if opt.params, err = sf.params(); err != nil {
 		return err
 	}
-	if opt.cooling, err = parseCooling(sf.cooling); err != nil {
+	if opt.cooling, err = sf.source(e); err != nil {
 		return err
+	}
+	if opt.cf, err = opt.cooling.function(opt.params.Metallicity); err != nil {
+		return usagef("--metallicity: %v", err)
 	}
 	if *format != "text" && *format != "json" {
 		return usagef("--format: want text or json (got %q)", sanitizeArg(*format))
@@ -58,7 +63,7 @@ func runEval(e *env) error {
 	if opt.criteria, err = loadCriteria(e, sf.criteria); err != nil {
 		return err
 	}
-	res, err := model.Evaluate(opt.params, opt.cooling.fn, opt.criteria)
+	res, err := model.Evaluate(opt.params, opt.cf, opt.criteria)
 	if err != nil {
 		return err
 	}
@@ -105,7 +110,7 @@ func writeEvalJSON(w io.Writer, opt *evalOptions, r *model.Result) error {
 			"heat_capacity_f":   q.HeatCapacity.Factor(),
 			"density_product":   q.DensityProduct.String(),
 		},
-		"cooling": map[string]any{"spec": opt.cooling.spec, "description": opt.cooling.desc},
+		"cooling": coolingJSON(opt.cooling, opt.cf),
 	}
 	derived := map[string]any{}
 	for _, qt := range model.Quantities() {
@@ -167,12 +172,25 @@ func writeEvalText(w io.Writer, opt *evalOptions, r *model.Result) error {
 	row("P/k_B", tui.Format(model.DimPressure, float64(q.Pressure)))
 	row("T_cl", tui.Format(model.DimTemperature, float64(q.TCloud)))
 	row("r_cl", tui.Format(model.DimLength, float64(q.RCloud)))
-	row("Z", tui.Format(model.DimMetallicity, q.Metallicity)+"  (used by tabulated cooling only)")
+	zNote := ""
+	if !opt.cooling.zDependent {
+		zNote = "  (this cooling function does not depend on Z)"
+	}
+	row("Z", tui.Format(model.DimMetallicity, q.Metallicity)+zNote)
 	row("γ, μ_cl, μ_hot", fmt.Sprintf("%s, %s, %s", tui.FormatSig(q.Gamma, 4), tui.FormatSig(q.MuCold, 4), tui.FormatSig(q.MuHot, 4)))
 	row("X (hydrogen)", fmt.Sprintf("%s  (%s)", tui.FormatSig(q.HydrogenFraction, 4), q.Mixture.Name))
 	row("T_floor", tui.Format(model.DimTemperature, float64(q.TFloor)))
 	row("convention", conventionText(q))
-	row("cooling", opt.cooling.desc)
+	row("cooling", coolingName(opt.cooling, opt.cf))
+	if p, ok := opt.cf.(*cooling.PowerLaw); ok {
+		m := p.Meta()
+		lo, hi := p.ValidRange()
+		row("", fmt.Sprintf("per %s in the source; tabulated %s–%s; y = %s", m.Normalisation.Symbol(),
+			tui.Format(model.DimTemperature, float64(lo)), tui.Format(model.DimTemperature, float64(hi)), tui.FormatSig(m.HeliumRatio, 3)))
+		for _, w := range m.Warnings {
+			row("", "warning: "+tui.Sanitize(w))
+		}
+	}
 	tw.Flush()
 
 	fmt.Fprintf(&b, "\nDerived\n")
@@ -247,4 +265,41 @@ func conventionText(q model.Params) string {
 		n = "𝒩 = n² (total particles)"
 	}
 	return "t_cool = f n k_B T/(𝒩 Λ) with " + f + ", " + n
+}
+
+// coolingName names the cooling function in use.
+func coolingName(src *coolingSource, cf model.CoolingFunction) string {
+	if p, ok := cf.(*cooling.PowerLaw); ok {
+		return tui.Sanitize(p.Meta().Name)
+	}
+	return src.desc
+}
+
+// coolingJSON describes the cooling function in use for JSON output.
+func coolingJSON(src *coolingSource, cf model.CoolingFunction) map[string]any {
+	out := map[string]any{"spec": src.spec, "name": coolingName(src, cf), "z_dependent": src.zDependent}
+	p, ok := cf.(*cooling.PowerLaw)
+	if !ok {
+		out["normalisation"] = "nH2"
+		return out
+	}
+	m := p.Meta()
+	lo, hi := p.ValidRange()
+	out["citation"] = m.Citation
+	out["source_normalisation"] = m.Normalisation.String()
+	out["helium_ratio"] = finite(m.HeliumRatio)
+	out["metallicity_zsun"] = finite(m.Metallicity)
+	out["mixture"] = m.Mixture
+	out["historical"] = m.Historical
+	out["table_range_k"] = []any{finite(float64(lo)), finite(float64(hi))}
+	out["caveats"] = nonNil(m.Caveats)
+	out["warnings"] = nonNil(m.Warnings)
+	return out
+}
+
+func nonNil(s []string) []string {
+	if s == nil {
+		return []string{}
+	}
+	return s
 }

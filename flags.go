@@ -6,7 +6,6 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"math"
 	"sort"
 	"strconv"
 	"strings"
@@ -112,16 +111,17 @@ func (f *flagSet) set(name string) bool {
 // scenario. Values are strings so that they may carry units.
 type scenarioFlags struct {
 	chi, mach, pressure, tCloud, radius, metallicity string
-	gamma, mu, muCloud, muHot, hydrogen, tFloor       string
-	mixture, heatCapacity, densityProduct             string
-	cooling, criteria                                 string
+	gamma, mu, muCloud, muHot, hydrogen, tFloor      string
+	mixture, heatCapacity, densityProduct            string
+	cooling, criteria                                string
+	table                                            tableSettings
 }
 
 // scenarioFlag describes one numeric scenario flag.
 type scenarioFlag struct {
-	name  string       // flag name without dashes
-	field string       // model.Field… it sets
-	kind  tui.Kind     // dimension for units
+	name  string   // flag name without dashes
+	field string   // model.Field… it sets
+	kind  tui.Kind // dimension for units
 	ptr   func(*scenarioFlags) *string
 	set   func(p *model.Params, v float64)
 	def   string
@@ -160,13 +160,9 @@ func (s *scenarioFlags) register(f *flagSet) {
 	f.fs.StringVar(&s.mixture, "mixture", model.Asplund2009.Name, "solar mixture for n_H: "+strings.Join(mix, ", "))
 	f.fs.StringVar(&s.heatCapacity, "heat-capacity", "isochoric", "f in t_cool = f n k T/(𝒩 Λ): isochoric (3/2) or isobaric (5/2)")
 	f.fs.StringVar(&s.densityProduct, "density-product", "nh2", "𝒩 in t_cool: nh2 (n_H², physical) or n2 (n², total particles)")
-	f.fs.StringVar(&s.cooling, "cooling", defaultCooling, "cooling function: const:LAMBDA (erg cm3 s-1, per n_H²; 10^x allowed)\nor powerlaw:L0,T0,SLOPE for Λ = L0 (T/T0)^SLOPE")
+	registerCoolingFlags(f, &s.cooling, &s.table, "cooling", "table")
 	f.fs.StringVar(&s.criteria, "criteria", "", "TOML file that corrects or adds criteria ('-' for stdin)")
 }
-
-// defaultCooling is the cooling function used when --cooling is not given:
-// the Gronke & Oh (2018) normalisation Λ = 10^-21.4 erg cm³ s⁻¹.
-const defaultCooling = "const:10^-21.4"
 
 // flagForField maps a model.Field… name to the flag that sets it.
 func flagForField(field string) string {
@@ -180,6 +176,11 @@ func flagForField(field string) string {
 		}
 	}
 	return field
+}
+
+// source resolves --cooling and its --table settings.
+func (s *scenarioFlags) source(e *env) (*coolingSource, error) {
+	return resolveCooling(e, "--cooling", s.cooling, s.table)
 }
 
 // params parses the scenario flags into model.Params and validates them.
@@ -237,67 +238,6 @@ func mixtureNames() string {
 		n = append(n, m.Name)
 	}
 	return strings.Join(n, ", ")
-}
-
-// coolingSource is a parsed --cooling value.
-type coolingSource struct {
-	fn   model.CoolingFunction
-	spec string // as given
-	desc string // for people
-}
-
-// parseCooling parses a --cooling value.
-func parseCooling(spec string) (coolingSource, error) {
-	kind, arg, ok := strings.Cut(spec, ":")
-	if !ok {
-		return coolingSource{}, usagef("--cooling: %q is not a cooling spec (want const:LAMBDA or powerlaw:L0,T0,SLOPE)", sanitizeArg(spec))
-	}
-	switch kind {
-	case "const":
-		v, err := parsePositive(arg)
-		if err != nil {
-			return coolingSource{}, usagef("--cooling const: Λ %v", err)
-		}
-		c := model.ConstantCooling{Value: model.CoolingRate(v)}
-		return coolingSource{c, spec, c.String()}, nil
-	case "powerlaw":
-		parts := strings.Split(arg, ",")
-		if len(parts) != 3 {
-			return coolingSource{}, usagef("--cooling powerlaw: want three values L0,T0,SLOPE (got %d)", len(parts))
-		}
-		l0, err := parsePositive(parts[0])
-		if err != nil {
-			return coolingSource{}, usagef("--cooling powerlaw: L0 %v", err)
-		}
-		t0, err := parsePositive(parts[1])
-		if err != nil {
-			return coolingSource{}, usagef("--cooling powerlaw: T0 %v", err)
-		}
-		slope, err := strconv.ParseFloat(strings.TrimSpace(parts[2]), 64)
-		if err != nil || math.IsNaN(slope) || math.IsInf(slope, 0) || math.Abs(slope) > 20 {
-			return coolingSource{}, usagef("--cooling powerlaw: SLOPE must be a number between -20 and 20 (got %q)", sanitizeArg(parts[2]))
-		}
-		c := model.PowerLawCooling{L0: model.CoolingRate(l0), T0: model.Temperature(t0), Slope: slope}
-		return coolingSource{c, spec, c.String()}, nil
-	}
-	return coolingSource{}, usagef("--cooling: unknown kind %q (want const or powerlaw)", sanitizeArg(kind))
-}
-
-// parsePositive parses a finite positive number, also written 10^x.
-func parsePositive(s string) (float64, error) {
-	s = strings.TrimSpace(s)
-	var v float64
-	var err error
-	if x, ok := strings.CutPrefix(s, "10^"); ok {
-		v, err = strconv.ParseFloat(x, 64)
-		v = math.Pow(10, v)
-	} else {
-		v, err = strconv.ParseFloat(s, 64)
-	}
-	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 {
-		return 0, fmt.Errorf("must be a finite number greater than 0 (got %q)", sanitizeArg(s))
-	}
-	return v, nil
 }
 
 // loadCriteria returns the built-in criteria, corrected and extended by the

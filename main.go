@@ -59,6 +59,7 @@ type command struct {
 func commands() []command {
 	return []command{
 		{"eval", "evaluate one scenario: derived quantities and every criterion", runEval},
+		{"cooling", "sample a cooling function Λ(T) and compare it with another", runCooling},
 		{"version", "print the version", runVersion},
 		{"help", "show help for cloudwind or a command", runHelp},
 	}

@@ -102,7 +102,9 @@ func TestEvalBadInput(t *testing.T) {
 		{[]string{"--heat-capacity", "isothermal"}, "--heat-capacity: want isochoric or isobaric"},
 		{[]string{"--density-product", "ne"}, "--density-product: want nh2 or n2"},
 		{[]string{"--cooling", "const:-1"}, "--cooling const: Λ must be a finite number greater than 0"},
-		{[]string{"--cooling", "table"}, "--cooling"},
+		{[]string{"--cooling", "bultin"}, `--cooling: "bultin" is neither a cooling function name nor a file (did you mean "builtin"?)`},
+		{[]string{"--cooling", "builtin", "--table", "norm: nH2"}, "--table settings apply to a table file"},
+		{[]string{"--metallicity", "-1"}, "--metallicity: must be at least 0"},
 		{[]string{"--format", "yaml"}, "--format: want text or json"},
 		{[]string{"--mixture", "solar"}, "--mixture: unknown mixture"},
 		{[]string{"--chi"}, "--chi needs a value"},
@@ -156,5 +158,69 @@ func TestTopLevel(t *testing.T) {
 	}
 	if code, out, _ := runCmd(t, "", "version"); code != 0 || !strings.HasPrefix(out, "cloudwind ") {
 		t.Errorf("version: exit %d, out %q", code, out)
+	}
+}
+
+func TestCoolingCommand(t *testing.T) {
+	code, out, errs := runCmd(t, "", "cooling", "--points", "5", "--format", "csv", "--vs", "const:1e-22")
+	if code != 0 {
+		t.Fatalf("cooling: exit %d: %s", code, errs)
+	}
+	lines := strings.Split(strings.TrimSpace(out), "\n")
+	// Output layout of the issue: T in K first, Λ per n_H² second, then n_e/n_H, then the --vs curve and the ratio.
+	if want := "T_K,lambda_nH2_erg_cm3_s,ne_over_nH,lambda_vs_nH2_erg_cm3_s,ratio,status,status_vs"; lines[0] != want {
+		t.Errorf("cooling CSV header %q, want %q", lines[0], want)
+	}
+	if len(lines) != 6 {
+		t.Fatalf("cooling CSV: %d lines, want 6", len(lines))
+	}
+	// 1e4 to 1e8 K in 5 points: the middle one is 1e6 K.
+	f := strings.Split(lines[3], ",")
+	if f[0] != "1000000" {
+		t.Errorf("third temperature %q, want 1000000", f[0])
+	}
+	for _, bad := range [][]string{{"--tmin", "1e6", "--tmax", "1e5"}, {"--points", "1"}, {"--format", "xml"}, {"--vs-table", "norm: nH2"}, {"--metallicity", "-2"}} {
+		if code, _, errs := runCmd(t, "", append([]string{"cooling"}, bad...)...); code != 2 || strings.Count(errs, "\n") != 1 {
+			t.Errorf("cooling %v: exit %d, stderr %q; want 2 and one line", bad, code, errs)
+		}
+	}
+}
+
+// A table in cloudwind's own layout with an H+He and a metals column
+// (synthetic values, no physical source) loads through --cooling FILE.
+func TestEvalWithTable(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "mine.txt")
+	table := "# cloudwind-table\n# norm: nH2\n# columns: T=1 HHe=2 metals=3\n# log: T=yes lambda=yes\n" +
+		"4.0 -23.0 -22.0\n5.0 -22.5 -21.3\n6.0 -23.2 -22.0\n7.0 -23.0 -22.6\n8.0 -22.6 -23.5\n"
+	os.WriteFile(path, []byte(table), 0o644)
+	code, out, errs := runCmd(t, "", "eval", "--cooling", path, "--metallicity", "0.5", "--format", "json")
+	if code != 0 {
+		t.Fatalf("eval --cooling FILE: exit %d: %s", code, errs)
+	}
+	var doc struct {
+		Derived map[string]*float64 `json:"derived"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	// At T_hot = 1e6 K, a node: Λ = 10^-23.2 + 0.5 × 10^-22.0 (the table's own rows).
+	want := math.Pow(10, -23.2) + 0.5*math.Pow(10, -22)
+	if got := doc.Derived["lambda_hot_ergcm3s"]; got == nil || math.Abs(*got/want-1) > 1e-9 {
+		t.Errorf("lambda_hot = %v, want %g", got, want)
+	}
+	// The same table without its norm directive is refused: never guessed.
+	os.WriteFile(path, []byte(strings.Replace(table, "# norm: nH2\n", "", 1)), 0o644)
+	if code, _, errs := runCmd(t, "", "eval", "--cooling", path); code != 2 || !strings.Contains(errs, "normalisation is required") {
+		t.Errorf("table without norm: exit %d, stderr %q", code, errs)
+	}
+	// ...unless the command line gives it.
+	if code, _, errs := runCmd(t, "", "eval", "--cooling", path, "--table", "norm: nH2"); code != 0 {
+		t.Errorf("table with --table norm: exit %d, stderr %q", code, errs)
+	}
+	// A broken row is reported with its line.
+	os.WriteFile(path, []byte(table+"8.5 abc -23\n"), 0o644)
+	if code, _, errs := runCmd(t, "", "eval", "--cooling", path); code != 1 || !strings.Contains(errs, "mine.txt:10") {
+		t.Errorf("bad row: exit %d, stderr %q; want the file and line 10", code, errs)
 	}
 }

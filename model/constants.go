@@ -67,3 +67,15 @@ const SolarMass Mass = SolarMassParameter / GravitationalConstant
 
 // ElectronVolt is 1 eV in erg (exact in the 2019 SI; CODATA 2018).
 const ElectronVolt = 1.602176634e-12
+
+// Planck is Planck's constant h in erg s (exact in the 2019 SI; CODATA 2018).
+const Planck = 6.62607015e-27
+
+// SpeedOfLight is the speed of light in vacuum c in cm s⁻¹ (exact; CODATA
+// 2018).
+const SpeedOfLight = 2.99792458e10
+
+// ElementaryCharge is the elementary charge e in statcoulomb (esu),
+// 1.602176634e-19 C (exact in the 2019 SI; CODATA 2018) times c/(10 cm s⁻¹)
+// statC per C: 4.80320471…e-10 esu. Derived, never retyped.
+const ElementaryCharge = 1.602176634e-19 * SpeedOfLight / 10

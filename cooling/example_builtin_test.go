@@ -1,0 +1,62 @@
+package cooling_test
+
+import (
+	"errors"
+	"fmt"
+
+	"cloudwind/cooling"
+)
+
+// The built-in curve at a few metallicities: Λ per n_H² at 10^5.5 K.
+func ExampleBuiltin_At() {
+	b, err := cooling.NewBuiltin()
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, z := range []float64{0, 0.1, 1} {
+		p, err := b.At(z)
+		if err != nil {
+			fmt.Println(err)
+			return
+		}
+		fmt.Printf("Z = %.1f: Λ(10^5.5 K) = %.3g erg cm^3 s^-1\n", z, float64(p.Lambda(316227.766)))
+	}
+	m := b.HHe().Meta()
+	fmt.Println(m.Name, m.Normalisation)
+	// Output:
+	// Z = 0.0: Λ(10^5.5 K) = 8.29e-24 erg cm^3 s^-1
+	// Z = 0.1: Λ(10^5.5 K) = 4.93e-23 erg cm^3 s^-1
+	// Z = 1.0: Λ(10^5.5 K) = 4.18e-22 erg cm^3 s^-1
+	// primordial CIE (KWH96+V97 H) nH2
+}
+
+// The ionisation state and the cooling of hydrogen and helium at 10^5 K.
+func ExamplePrimordialCIE() {
+	ion, c := cooling.PrimordialCIE(1e5, 0.0851, cooling.PrimordialOptions{})
+	fmt.Printf("n_e/n_H = %.3g, x_He++ = %.3g\n", ion.NeOverNH, ion.XHepp)
+	fmt.Printf("Λ = %.3g erg cm^3 s^-1, of which He+ excitation %.2f\n", float64(c.Total()), float64(c.ExcitationHep/c.Total()))
+	// Output:
+	// n_e/n_H = 1.15, x_He++ = 0.821
+	// Λ = 5.52e-23 erg cm^3 s^-1, of which He+ excitation 0.80
+}
+
+// Bremsstrahlung of fully ionised gas at 10^8 K (cooling reference §4.2).
+func ExampleFreeFree() {
+	fmt.Printf("C_ff = %.6g\n", cooling.FreeFreePrefactor())
+	fmt.Printf("Λ_ff = %.4g erg cm^3 s^-1\n", float64(cooling.FreeFree(1e8, 0.0833, 1.2)))
+	// Output:
+	// C_ff = 1.42556e-27
+	// Λ_ff = 2.661e-23 erg cm^3 s^-1
+}
+
+// The Tozzi & Norman (2001) fit refuses temperatures below 0.1 keV.
+func ExampleTozziNorman01Lambda() {
+	_, err := cooling.TozziNorman01Lambda(1e6)
+	fmt.Println(errors.Is(err, cooling.ErrBelowValidity))
+	l, _ := cooling.TozziNorman01Lambda(1e7)
+	fmt.Printf("%.3g\n", float64(l))
+	// Output:
+	// true
+	// 1.28e-23
+}
