@@ -101,7 +101,7 @@ func resolveCooling(e *env, flag, spec string, table tableSettings) (*coolingSou
 		}
 		m0, _ := b.At(1)
 		meta := m0.Meta()
-		return &coolingSource{spec: spec, desc: "built-in CIE (KWH96+V97 H+He, CHIANTI-fit metals) × Z", meta: &meta,
+		return &coolingSource{spec: spec, desc: "built-in CIE (KWH96+V97 H+He, CHIANTI-fit metals), metals scaled with Z", meta: &meta,
 			zDependent: true, at: b.At, neOverNH: ne(cooling.BuiltinHeliumRatio)}, nil
 	case "builtin-hhe", "hhe-kwh96":
 		var p *cooling.PowerLaw

@@ -186,6 +186,9 @@ func (s *scenarioFlags) source(e *env) (*coolingSource, error) {
 // params parses the scenario flags into model.Params and validates them.
 func (s *scenarioFlags) params() (model.Params, error) {
 	var p model.Params
+	if s.cooling == "-" && s.criteria == "-" {
+		return p, usagef("--cooling and --criteria cannot both read standard input")
+	}
 	for _, sf := range numericScenarioFlags() {
 		raw := strings.TrimSpace(*sf.ptr(s))
 		if raw == "" {
@@ -223,13 +226,18 @@ func (s *scenarioFlags) params() (model.Params, error) {
 		return p, usagef("--density-product: want nh2 or n2 (got %q)", sanitizeArg(s.densityProduct))
 	}
 	if err := p.Validate(); err != nil {
-		var fe *model.FieldError
-		if errors.As(err, &fe) {
-			return p, usagef("%s: %s", flagForField(fe.Field), fe.Reason)
-		}
-		return p, usagef("%v", err)
+		return p, fieldUsage(err)
 	}
 	return p, nil
+}
+
+// fieldUsage turns a validation error into a usage error naming the flag.
+func fieldUsage(err error) error {
+	var fe *model.FieldError
+	if errors.As(err, &fe) {
+		return usagef("%s: %s", flagForField(fe.Field), fe.Reason)
+	}
+	return usagef("%v", err)
 }
 
 func mixtureNames() string {

@@ -60,6 +60,7 @@ func commands() []command {
 	return []command{
 		{"eval", "evaluate one scenario: derived quantities and every criterion", runEval},
 		{"cooling", "sample a cooling function Λ(T) and compare it with another", runCooling},
+		{"sweep", "evaluate every criterion over a grid of inputs, to CSV, ECSV or JSON", runSweep},
 		{"version", "print the version", runVersion},
 		{"help", "show help for cloudwind or a command", runHelp},
 	}

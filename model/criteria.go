@@ -291,6 +291,11 @@ func (s *State) DynamicalTime(k DynamicalTimeKind) Time {
 // since both dynamical times are proportional to r_cl and no cooling time
 // depends on it.
 func (s *State) Evaluate(c *Criterion) Outcome {
+	return s.evaluate(c, c.Threshold(s.Params.Chi))
+}
+
+// evaluate applies c with its threshold α (χ/100)^β already computed.
+func (s *State) evaluate(c *Criterion, threshold float64) Outcome {
 	q := &s.Params
 	var o Outcome
 	if !c.Range.Chi.Contains(q.Chi) {
@@ -309,7 +314,7 @@ func (s *State) Evaluate(c *Criterion) Outcome {
 	}
 	tc := float64(s.CoolingTime(c.Cool))
 	td := float64(s.DynamicalTime(c.Dyn))
-	o.Threshold = c.Threshold(q.Chi)
+	o.Threshold = threshold
 	o.Ratio = tc / td
 	crossing := float64(s.VWind) * tc / o.Threshold // v_w τ_cool / (α (χ/100)^β)
 	if c.Dyn == DynCloudCrushing {

@@ -5,6 +5,8 @@ type Result struct {
 	State
 	Criteria []Criterion // the criteria, in order
 	Outcomes []Outcome   // Outcomes[i] belongs to Criteria[i]
+
+	thresholds []float64 // α (χ/100)^β of each criterion, reused by Reevaluate
 }
 
 // Evaluate derives the state of p with cooling function cf and evaluates
@@ -26,8 +28,36 @@ func (r *Result) Evaluate(p Params, cf CoolingFunction, cs []Criterion) error {
 		r.Outcomes = make([]Outcome, len(cs))
 	}
 	r.Outcomes = r.Outcomes[:len(cs)]
+	if cap(r.thresholds) < len(cs) {
+		r.thresholds = make([]float64, len(cs))
+	}
+	r.thresholds = r.thresholds[:len(cs)]
 	for i := range cs {
-		r.Outcomes[i] = r.State.Evaluate(&cs[i])
+		r.thresholds[i] = cs[i].Threshold(r.Params.Chi)
+		r.Outcomes[i] = r.State.evaluate(&cs[i], r.thresholds[i])
+	}
+	return nil
+}
+
+// Reevaluate recomputes r for another Mach number and cloud radius, keeping
+// every other input: the fast path for sweeps, since no cooling time
+// depends on either (the thermal state, Λ lookups and the search along the
+// mixing isobar are reused). r must hold a successful Evaluate. It returns
+// a *FieldError for an invalid mach or rCl and leaves r unchanged then.
+func (r *Result) Reevaluate(mach float64, rCl Length) error {
+	p := r.Params
+	p.Mach, p.RCloud = mach, rCl
+	// The bounds of Validate for these two fields, checked directly; the full
+	// Validate then only runs to word the error.
+	if !(mach > 0 && mach <= MaxMach && rCl >= MinRCloud && rCl <= MaxRCloud) {
+		if err := p.Validate(); err != nil {
+			return err
+		}
+	}
+	r.Params = p
+	r.State.deriveFlow()
+	for i := range r.Criteria {
+		r.Outcomes[i] = r.State.evaluate(&r.Criteria[i], r.thresholds[i])
 	}
 	return nil
 }

@@ -2,7 +2,9 @@ package model
 
 import (
 	"errors"
+	"fmt"
 	"math"
+	"reflect"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
@@ -438,5 +440,41 @@ func TestCriterionFormula(t *testing.T) {
 		if got := c.Formula(); got != want {
 			t.Errorf("%s Formula() = %q, want %q", id, got, want)
 		}
+	}
+}
+
+// TestReevaluate checks the sweep fast path against a full evaluation
+// (identity: no cooling time depends on the Mach number or radius).
+func TestReevaluate(t *testing.T) {
+	cs := BuiltinCriteria()
+	cf := testPeak{}
+	var fast Result
+	if err := fast.Evaluate(fiducial(), cf, cs); err != nil {
+		t.Fatal(err)
+	}
+	for _, mach := range []float64{0.3, 1, 4.5} {
+		for _, r := range []Length{0.01 * Parsec, 3 * Parsec, 2 * Kiloparsec} {
+			if err := fast.Reevaluate(mach, r); err != nil {
+				t.Fatal(err)
+			}
+			p := fiducial()
+			p.Mach, p.RCloud = mach, r
+			full, err := Evaluate(p, cf, cs)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !reflect.DeepEqual(full.State, fast.State) {
+				t.Errorf("Reevaluate(%g, %g pc): state differs from a full evaluation:\n%+v\n%+v", mach, float64(r/Parsec), fast.State, full.State)
+			}
+			for i := range cs {
+				if fmt.Sprint(full.Outcomes[i]) != fmt.Sprint(fast.Outcomes[i]) { // NaN thresholds compare as text
+					t.Errorf("Reevaluate(%g, %g pc): %s outcome %+v, want %+v", mach, float64(r/Parsec), cs[i].ID, fast.Outcomes[i], full.Outcomes[i])
+				}
+			}
+		}
+	}
+	before := fast.Params
+	if err := fast.Reevaluate(-1, Parsec); err == nil || fast.Params != before {
+		t.Errorf("Reevaluate(-1, 1 pc) = %v and changed the params; want an error and no change", err)
 	}
 }

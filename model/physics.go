@@ -146,7 +146,8 @@ func CoolingLength(cs Velocity, tCool Time) Length {
 //
 //	MixingVelocity(α, cs, +Inf, t) = 0
 func MixingVelocity(alphaV float64, csCold Velocity, tCoolCold, tSoundCold Time) Velocity {
-	return Velocity(alphaV * float64(csCold) * math.Pow(float64(tCoolCold)/float64(tSoundCold), -0.25))
+	x := float64(tCoolCold) / float64(tSoundCold)
+	return Velocity(alphaV * float64(csCold) / math.Sqrt(math.Sqrt(x))) // x^{-1/4}, without Pow's cost
 }
 
 // GrowthTime returns the mass-growth time of a spherical cloud accreting

@@ -84,11 +84,6 @@ func (s *State) derive(p Params, cf CoolingFunction) error {
 
 	s.CsCold = SoundSpeed(q.TCloud, q.MuCold, q.Gamma)
 	s.CsHot = SoundSpeed(s.THot, q.MuHot, q.Gamma)
-	s.VWind = Velocity(q.Mach * float64(s.CsHot))
-	s.TCC = CloudCrushingTime(q.RCloud, q.Chi, s.VWind)
-	s.TShear = ShearTime(q.RCloud, s.VWind)
-	s.TSoundCold = SoundCrossingTime(q.RCloud, s.CsCold)
-	s.TDrag = DragTime(q.RCloud, q.Chi, s.VWind)
 
 	s.LambdaHot = s.lambda(cf, s.THot)
 	s.LambdaMix = s.lambda(cf, s.TMix)
@@ -96,16 +91,27 @@ func (s *State) derive(p Params, cf CoolingFunction) error {
 	s.TCoolHot = CoolingTime(f, s.NHot, s.THot, s.densityProduct(s.NHot, s.NHHot), s.LambdaHot)
 	s.TCoolMix = CoolingTime(f, s.NMix, s.TMix, s.densityProduct(s.NMix, s.NHMix), s.LambdaMix)
 	s.TCoolCold = CoolingTime(f, s.NCold, q.TCloud, s.densityProduct(s.NCold, s.NHCold), s.LambdaCold)
+	s.LCoolCold = CoolingLength(s.CsCold, s.TCoolCold)
 
 	s.minimaAlongIsobar(cf, f)
+	s.rangeCautions(cf)
+	s.deriveFlow()
+	return nil
+}
 
+// deriveFlow computes what depends on the Mach number and the radius. No
+// cooling time depends on either, so sweeps over them need only this.
+func (s *State) deriveFlow() {
+	q := &s.Params
+	s.VWind = Velocity(q.Mach * float64(s.CsHot))
+	s.TCC = CloudCrushingTime(q.RCloud, q.Chi, s.VWind)
+	s.TShear = ShearTime(q.RCloud, s.VWind)
+	s.TSoundCold = SoundCrossingTime(q.RCloud, s.CsCold)
+	s.TDrag = DragTime(q.RCloud, q.Chi, s.VWind)
 	s.MassCold = CloudMass(q.RCloud, s.RhoCold)
 	s.ColumnCold = CloudColumn(s.NCold, q.RCloud)
-	s.LCoolCold = CoolingLength(s.CsCold, s.TCoolCold)
 	s.VMix = MixingVelocity(1, s.CsCold, s.TCoolCold, s.TSoundCold)
 	s.TGrow = GrowthTime(q.RCloud, q.Chi, s.VMix)
-	s.rangeCautions(cf)
-	return nil
 }
 
 // lambda returns Λ(t) with the cooling floor applied: Λ = 0 below T_floor.
