@@ -83,7 +83,7 @@ func runCooling(e *env) error {
 	if err != nil {
 		return err
 	}
-	cf, err := src.function(z)
+	cf, err := src.Function(z)
 	if err != nil {
 		return usagef("--metallicity: %v", err)
 	}
@@ -93,7 +93,7 @@ func runCooling(e *env) error {
 		if vs, err = resolveCooling(e, "--vs", vsSpec, vsTable); err != nil {
 			return err
 		}
-		if vf, err = vs.function(z); err != nil {
+		if vf, err = vs.Function(z); err != nil {
 			return usagef("--metallicity (for --vs): %v", err)
 		}
 	} else if len(vsTable) > 0 {
@@ -105,8 +105,8 @@ func runCooling(e *env) error {
 		t := model.Temperature(math.Pow(10, a+(b-a)*float64(i)/float64(points-1)))
 		p := coolingPoint{t: t, lambda: float64(cf.Lambda(t)), neOverNH: math.NaN(), lambdaVs: math.NaN()}
 		p.status = statusOf(cf, t)
-		if src.neOverNH != nil {
-			p.neOverNH = src.neOverNH(t)
+		if src.NeOverNH != nil {
+			p.neOverNH = src.NeOverNH(t)
 		}
 		if vf != nil {
 			p.lambdaVs, p.statusVs = float64(vf.Lambda(t)), statusOf(vf, t)
@@ -174,7 +174,7 @@ func csvNumber(v float64) string {
 func (c *coolingOutput) writeCSV(w io.Writer) error {
 	cw := csv.NewWriter(w)
 	head := []string{"T_K", "lambda_nH2_erg_cm3_s"}
-	haveNe := c.src.neOverNH != nil
+	haveNe := c.src.NeOverNH != nil
 	if haveNe {
 		head = append(head, "ne_over_nH")
 	}
@@ -208,7 +208,7 @@ func (c *coolingOutput) writeJSON(w io.Writer) error {
 	pts := make([]map[string]any, len(c.pts))
 	for i, p := range c.pts {
 		m := map[string]any{"t_k": float64(p.t), "lambda_nh2": finite(p.lambda), "status": statusWord(p.status)}
-		if c.src.neOverNH != nil {
+		if c.src.NeOverNH != nil {
 			m["ne_over_nh"] = finite(p.neOverNH)
 		}
 		if c.vf != nil {
@@ -263,7 +263,7 @@ func (c *coolingOutput) writeText(w io.Writer) error {
 	b.WriteString("\n")
 	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
 	head := "T (K)\tΛ (erg cm³ s⁻¹)\t"
-	if c.src.neOverNH != nil {
+	if c.src.NeOverNH != nil {
 		head += "n_e/n_H\t"
 	}
 	if c.vf != nil {
@@ -272,7 +272,7 @@ func (c *coolingOutput) writeText(w io.Writer) error {
 	fmt.Fprintln(tw, head+"note\t")
 	for _, p := range c.pts {
 		row := tui.FormatSig(float64(p.t), 3) + "\t" + tui.FormatSig(p.lambda, 4) + "\t"
-		if c.src.neOverNH != nil {
+		if c.src.NeOverNH != nil {
 			row += tui.FormatSig(p.neOverNH, 4) + "\t"
 		}
 		note := ""

@@ -4,7 +4,6 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
-	"math"
 	"strings"
 	"text/tabwriter"
 
@@ -53,7 +52,7 @@ func runEval(e *env) error {
 	if opt.cooling, err = sf.source(e); err != nil {
 		return err
 	}
-	if opt.cf, err = opt.cooling.function(opt.params.Metallicity); err != nil {
+	if opt.cf, err = opt.cooling.Function(opt.params.Metallicity); err != nil {
 		return usagef("--metallicity: %v", err)
 	}
 	if *format != "text" && *format != "json" {
@@ -73,92 +72,23 @@ func runEval(e *env) error {
 	return writeEvalText(e.stdout, &opt, &res)
 }
 
-// finite returns v, or nil (JSON null) when v is NaN or ±Inf.
-func finite(v float64) any {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return nil
-	}
-	return v
-}
-
-// interval returns [min, max] with open ends as null.
-func interval(i model.Interval) []any { return []any{finite(i.Min), finite(i.Max)} }
-
-// evalJSONSchema names the layout of eval's JSON output; it changes only
-// when a field changes meaning or disappears.
-const evalJSONSchema = "cloudwind.eval/1"
-
 func writeEvalJSON(w io.Writer, opt *evalOptions, r *model.Result) error {
-	q := r.Params
-	doc := map[string]any{
-		"schema":  evalJSONSchema,
-		"version": versionString(),
-		"inputs": map[string]any{
-			"chi":               q.Chi,
-			"mach":              q.Mach,
-			"pressure_kcm3":     float64(q.Pressure),
-			"t_cloud_k":         float64(q.TCloud),
-			"radius_pc":         tui.Convert(model.DimLength, float64(q.RCloud)),
-			"metallicity_zsun":  q.Metallicity,
-			"gamma":             q.Gamma,
-			"mu_cloud":          q.MuCold,
-			"mu_hot":            q.MuHot,
-			"mixture":           q.Mixture.Name,
-			"hydrogen_fraction": q.HydrogenFraction,
-			"t_floor_k":         float64(q.TFloor),
-			"heat_capacity":     q.HeatCapacity.String(),
-			"heat_capacity_f":   q.HeatCapacity.Factor(),
-			"density_product":   q.DensityProduct.String(),
-		},
-		"cooling": coolingJSON(opt.cooling, opt.cf),
-	}
-	derived := map[string]any{}
-	for _, qt := range model.Quantities() {
-		derived[tui.JSONKey(qt.Key, qt.Dim)] = finite(tui.Convert(qt.Dim, qt.Value(&r.State)))
-	}
-	doc["derived"] = derived
-	crit := make([]map[string]any, len(r.Criteria))
-	for i := range r.Criteria {
-		c, o := &r.Criteria[i], r.Outcomes[i]
-		leaves := o.Leaves.Names()
-		if leaves == nil {
-			leaves = []string{}
-		}
-		crit[i] = map[string]any{
-			"id":             c.ID,
-			"label":          c.Label,
-			"formula":        c.Formula(),
-			"cooling_time":   c.Cool.String(),
-			"dynamical_time": c.Dyn.String(),
-			"alpha":          finite(c.Alpha),
-			"beta":           finite(c.Beta),
-			"threshold":      finite(o.Threshold),
-			"ratio":          finite(o.Ratio),
-			"radius_crit_pc": finite(tui.Convert(model.DimLength, float64(o.RCrit))),
-			"margin":         finite(o.Margin),
-			"verdict":        o.Verdict.String(),
-			"verified":       c.Verified,
-			"status":         c.Status,
-			"in_range":       o.InRange(),
-			"out_of_range":   leaves,
-			"calibrated_range": map[string]any{
-				"chi": interval(c.Range.Chi), "mach": interval(c.Range.Mach), "t_cloud_k": interval(c.Range.TCloud),
-				"status": c.Range.Status,
-			},
-			"citation": c.Citation.String(),
-			"arxiv":    c.Citation.ArXiv,
-			"note":     c.Note,
-		}
-	}
-	doc["criteria"] = crit
-	cautions := make([]map[string]string, 0, len(r.Cautions))
-	for _, c := range r.Cautions {
-		cautions = append(cautions, map[string]string{"field": c.Field, "message": c.Message})
-	}
-	doc["cautions"] = cautions
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
+	return enc.Encode(tui.StateDocument(r, opt.cooling, opt.cf, versionString()))
+}
+
+// finite returns v, or nil (JSON null) when v is NaN or ±Inf.
+func finite(v float64) any { return tui.JSONNumber(v) }
+
+// coolingName names the cooling function in use.
+func coolingName(src *coolingSource, cf model.CoolingFunction) string {
+	return tui.CoolingName(src, cf)
+}
+
+// coolingJSON describes the cooling function in use for JSON output.
+func coolingJSON(src *coolingSource, cf model.CoolingFunction) map[string]any {
+	return tui.CoolingDocument(src, cf)
 }
 
 func writeEvalText(w io.Writer, opt *evalOptions, r *model.Result) error {
@@ -173,7 +103,7 @@ func writeEvalText(w io.Writer, opt *evalOptions, r *model.Result) error {
 	row("T_cl", tui.Format(model.DimTemperature, float64(q.TCloud)))
 	row("r_cl", tui.Format(model.DimLength, float64(q.RCloud)))
 	zNote := ""
-	if !opt.cooling.zDependent {
+	if !opt.cooling.ZDependent {
 		zNote = "  (this cooling function does not depend on Z)"
 	}
 	row("Z", tui.Format(model.DimMetallicity, q.Metallicity)+zNote)
@@ -265,41 +195,4 @@ func conventionText(q model.Params) string {
 		n = "𝒩 = n² (total particles)"
 	}
 	return "t_cool = f n k_B T/(𝒩 Λ) with " + f + ", " + n
-}
-
-// coolingName names the cooling function in use.
-func coolingName(src *coolingSource, cf model.CoolingFunction) string {
-	if p, ok := cf.(*cooling.PowerLaw); ok {
-		return tui.Sanitize(p.Meta().Name)
-	}
-	return src.desc
-}
-
-// coolingJSON describes the cooling function in use for JSON output.
-func coolingJSON(src *coolingSource, cf model.CoolingFunction) map[string]any {
-	out := map[string]any{"spec": src.spec, "name": coolingName(src, cf), "z_dependent": src.zDependent}
-	p, ok := cf.(*cooling.PowerLaw)
-	if !ok {
-		out["normalisation"] = "nH2"
-		return out
-	}
-	m := p.Meta()
-	lo, hi := p.ValidRange()
-	out["citation"] = m.Citation
-	out["source_normalisation"] = m.Normalisation.String()
-	out["helium_ratio"] = finite(m.HeliumRatio)
-	out["metallicity_zsun"] = finite(m.Metallicity)
-	out["mixture"] = m.Mixture
-	out["historical"] = m.Historical
-	out["table_range_k"] = []any{finite(float64(lo)), finite(float64(hi))}
-	out["caveats"] = nonNil(m.Caveats)
-	out["warnings"] = nonNil(m.Warnings)
-	return out
-}
-
-func nonNil(s []string) []string {
-	if s == nil {
-		return []string{}
-	}
-	return s
 }

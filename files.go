@@ -4,7 +4,8 @@ import (
 	"fmt"
 	"io"
 	"os"
-	"path/filepath"
+
+	"cloudwind/tui"
 )
 
 // openInput opens path for reading; "-" is standard input. The returned
@@ -28,39 +29,7 @@ func unwrapPathError(err error) error {
 	return err
 }
 
-// writeFileAtomic writes path through a temporary file in the same
-// directory, synced and then renamed over path, so that a failed or
-// interrupted write never leaves a truncated or half-overwritten file.
-// write receives the temporary file.
-func writeFileAtomic(path string, write func(w io.Writer) error) (err error) {
-	dir := filepath.Dir(path)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
-	if err != nil {
-		return fmt.Errorf("write %s: %w", sanitizeArg(path), unwrapPathError(err))
-	}
-	defer func() {
-		if err != nil {
-			tmp.Close()
-			os.Remove(tmp.Name())
-		}
-	}()
-	if err = write(tmp); err != nil {
-		return err
-	}
-	if err = tmp.Sync(); err != nil {
-		return fmt.Errorf("write %s: %w", sanitizeArg(path), err)
-	}
-	if err = tmp.Close(); err != nil {
-		return fmt.Errorf("write %s: %w", sanitizeArg(path), err)
-	}
-	// Keep the permissions a new file would get (CreateTemp uses 0600).
-	if st, statErr := os.Stat(path); statErr == nil {
-		os.Chmod(tmp.Name(), st.Mode().Perm())
-	} else {
-		os.Chmod(tmp.Name(), 0o644)
-	}
-	if err = os.Rename(tmp.Name(), path); err != nil {
-		return fmt.Errorf("write %s: %w", sanitizeArg(path), unwrapPathError(err))
-	}
-	return nil
+// writeFileAtomic writes path atomically; see tui.WriteFileAtomic.
+func writeFileAtomic(path string, write func(w io.Writer) error) error {
+	return tui.WriteFileAtomic(path, write)
 }

@@ -5,7 +5,7 @@
 //
 // Usage:
 //
-//	cloudwind                 open the explorer
+//	cloudwind [explore]       open the explorer
 //	cloudwind eval [flags]    evaluate one scenario
 //	cloudwind version         print the version
 //	cloudwind help [COMMAND]  show help
@@ -58,6 +58,7 @@ type command struct {
 
 func commands() []command {
 	return []command{
+		{"explore", "open the explorer (the default without a command)", runExplore},
 		{"eval", "evaluate one scenario: derived quantities and every criterion", runEval},
 		{"cooling", "sample a cooling function Λ(T) and compare it with another", runCooling},
 		{"sweep", "evaluate every criterion over a grid of inputs, to CSV, ECSV or JSON", runSweep},
@@ -74,9 +75,7 @@ func main() {
 // only place that turns errors into statuses.
 func run(e *env) int {
 	if len(e.args) == 0 {
-		// The explorer arrives with its own issue; until then show help.
-		printTopHelp(e.stdout)
-		return exitOK
+		return report(e, "explore", runExplore(e))
 	}
 	name := e.args[0]
 	if name == "-h" || name == "--help" || name == "-help" {
@@ -92,6 +91,9 @@ func run(e *env) int {
 			sub.args = e.args[1:]
 			return report(e, name, c.run(&sub))
 		}
+	}
+	if strings.HasPrefix(name, "-") { // flags without a command: the explorer's
+		return report(e, "explore", runExplore(e))
 	}
 	msg := fmt.Sprintf("unknown command %q", sanitizeArg(name))
 	if s := suggest(name, commandNames()); s != "" {

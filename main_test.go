@@ -103,7 +103,7 @@ func TestEvalBadInput(t *testing.T) {
 		{[]string{"--density-product", "ne"}, "--density-product: want nh2 or n2"},
 		{[]string{"--cooling", "const:-1"}, "--cooling const: Λ must be a finite number greater than 0"},
 		{[]string{"--cooling", "bultin"}, `--cooling: "bultin" is neither a cooling function name nor a file (did you mean "builtin"?)`},
-		{[]string{"--cooling", "builtin", "--table", "norm: nH2"}, "--table settings apply to a table file"},
+		{[]string{"--cooling", "builtin", "--table", "norm: nH2"}, "table settings apply to a table file, but --cooling is \"builtin\""},
 		{[]string{"--metallicity", "-1"}, "--metallicity: must be at least 0"},
 		{[]string{"--format", "yaml"}, "--format: want text or json"},
 		{[]string{"--mixture", "solar"}, "--mixture: unknown mixture"},

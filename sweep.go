@@ -126,7 +126,7 @@ func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers in
 	}
 	// Every metallicity must give a cooling function.
 	for _, z := range metallicities(opt) {
-		if _, err := opt.cooling.function(z); err != nil {
+		if _, err := opt.cooling.Function(z); err != nil {
 			return nil, usagef("--metallicity %g: %v", z, err)
 		}
 	}
@@ -186,8 +186,8 @@ func sweepMeta(opt *sweepOptions) []metaItem {
 				{"t_cloud_k", []any{c.Range.TCloud.Min, c.Range.TCloud.Max}}, {"status", c.Range.Status}}},
 		})
 	}
-	cool := []metaItem{{"spec", opt.cooling.spec}, {"description", opt.cooling.desc}}
-	if m := opt.cooling.meta; m != nil {
+	cool := []metaItem{{"spec", opt.cooling.Spec}, {"description", opt.cooling.Desc}}
+	if m := opt.cooling.Meta; m != nil {
 		cool = append(cool, metaItem{"citation", m.Citation}, metaItem{"source_normalisation", m.Normalisation.String()},
 			metaItem{"helium_ratio", m.HeliumRatio}, metaItem{"mixture", m.Mixture}, metaItem{"historical", m.Historical},
 			metaItem{"caveats", stringsToAny(m.Caveats)}, metaItem{"warnings", stringsToAny(m.Warnings)})

@@ -86,7 +86,7 @@ func TestSweepGridAndOrder(t *testing.T) {
 	json.Unmarshal([]byte(js), &doc)
 	for name, want := range map[string]*float64{"t_cc_myr": doc.Derived["t_cc_myr"], "gronke_oh_2018_radius_crit_pc": doc.Criteria[0].RCrit} {
 		got := parseF(r[col(name)])
-		if want == nil || math.Abs(got / *want-1) > 1e-8 {
+		if want == nil || math.Abs(got / *want - 1) > 1e-8 {
 			t.Errorf("sweep row 22 %s = %g, eval gives %v", name, got, fmtPtr(want))
 		}
 	}

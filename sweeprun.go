@@ -206,7 +206,7 @@ func (sw *sweepWorker) evaluate(i int) error {
 	p := sw.opt.base
 	g.apply(&p, sw.idx)
 	if sw.cf == nil || p.Metallicity != sw.coolZ {
-		cf, err := sw.opt.cooling.function(p.Metallicity)
+		cf, err := sw.opt.cooling.Function(p.Metallicity)
 		if err != nil {
 			return fmt.Errorf("metallicity %g: %w", p.Metallicity, err)
 		}

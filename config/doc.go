@@ -1,6 +1,6 @@
 // Package config reads the files people write for cloudwind: criteria
-// files now, scenario files later. Every error names the file and the line
-// of the problem.
+// files and scenario files. Every error names the file and the line of the
+// problem.
 //
 // # The TOML subset
 //
@@ -87,4 +87,62 @@
 // Range.Status "changed by criteria file NAME". A new criterion without a
 // status gets "from criteria file NAME, no status given", and without a
 // range status "not given in criteria file NAME".
+//
+// # Scenario files
+//
+// A scenario file holds one problem as the explorer saves it: the inputs,
+// the conventions and the cooling function. ParseScenario reads one and
+// WriteScenario writes one:
+//
+//	# cloudwind scenario
+//	[scenario]
+//	name = "Starburst outflow, inner kpc"  # shown in the explorer
+//	description = "free text"
+//	demo = false              # true only for cloudwind's fictional demo scenarios
+//
+//	[inputs]                  # a key left out takes the fiducial value of model.Fiducial()
+//	chi = 300                 # rho_cl/rho_hot
+//	mach = 1.5
+//	pressure = 1e5            # P/k_B in K cm^-3
+//	t_cloud = 1e4             # K
+//	radius = 10               # pc
+//	metallicity = 1           # Z/Z_sun
+//
+//	[conventions]             # every key optional; left out = the model default
+//	gamma = 1.6666666666666667
+//	mu = 0.6
+//	mu_cloud = 0.6
+//	mu_hot = 0.6
+//	mixture = "A09"           # A09, A09p, AG89, GS98 or A21 (model.Mixtures)
+//	hydrogen_fraction = 0.7381
+//	t_floor = 1e4             # K; left out = the cloud temperature
+//	heat_capacity = "isochoric"  # or "isobaric"
+//	density_product = "nh2"      # or "n2"
+//
+//	[cooling]                 # optional; left out = the program's default
+//	spec = "builtin"          # a name, const:LAMBDA, powerlaw:L0,T0,SLOPE or a table path
+//	table = ["norm: nH2", "columns: T=1 lambda=2"]  # settings for a table path
+//
+// Rules, checked with the line of the offending key or table header:
+//
+//   - the tables are [scenario], [inputs], [conventions] and [cooling], each
+//     at most once and all optional; no key may stand outside them, and
+//     unknown keys and tables are errors that suggest the closest known one;
+//   - numbers must be finite; integers and floats are both accepted;
+//   - a convention number may not be 0 (which the model reads as "use the
+//     default"): leave the key out for the default;
+//   - mixture, heat_capacity and density_product take the names above;
+//   - strings may not hold control characters (raw or escaped), line
+//     separators or bidirectional overrides (U+2028–U+202E,
+//     U+2066–U+2069), so no file can disguise what the explorer shows;
+//   - table needs spec; the program, not this package, resolves spec, and
+//     reads a relative table path from the scenario file's directory;
+//   - the inputs and conventions together must pass
+//     (model.Params).Validate; its error is reported on the line of the key
+//     it names (for the wind-temperature check on chi, on t_cloud or the
+//     μ keys when chi is left out).
+//
+// WriteScenario writes every input and only the conventions that are set
+// (non-zero in model.Params), with numbers in their shortest round-tripping
+// form, so that reading the file back gives an equal Scenario.
 package config

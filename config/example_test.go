@@ -2,6 +2,7 @@ package config_test
 
 import (
 	"fmt"
+	"os"
 	"strings"
 
 	"cloudwind/config"
@@ -51,4 +52,51 @@ chi = [100, 1000]
 	// my-2026: t_cool,mix / t_cc < (χ/100)^-0.5, threshold at χ = 1000: 0.316, verified: false
 	//   status: from criteria file my.toml, no status given
 	// typo.toml:3: unknown key "alpah" (did you mean "alpha"?)
+}
+
+func ExampleParseScenario() {
+	const file = `# cloudwind scenario
+[scenario]
+name = "My cloud"
+[inputs]
+chi = 300
+radius = 10            # pc
+[conventions]
+heat_capacity = "isobaric"
+`
+	s, err := config.ParseScenario(strings.NewReader(file), "my.toml")
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	// Inputs left out are those of model.Fiducial(): M = 1, P/k_B = 1e3.
+	p := s.Params
+	fmt.Printf("%s: chi = %.3g, M = %.3g, P/k_B = %.3g K cm^-3, r_cl = %.3g pc, f = %.3g\n",
+		s.Name, p.Chi, p.Mach, float64(p.Pressure), float64(p.RCloud/model.Parsec), p.HeatCapacity.Factor())
+
+	if err := config.WriteScenario(os.Stdout, s); err != nil {
+		fmt.Println(err)
+	}
+
+	_, err = config.ParseScenario(strings.NewReader("[inputs]\nchi = 100\nradius = 2e7\n"), "big.toml")
+	fmt.Println(err)
+
+	// Output:
+	// My cloud: chi = 300, M = 1, P/k_B = 1e+03 K cm^-3, r_cl = 10 pc, f = 2.5
+	// # cloudwind scenario
+	// [scenario]
+	// name = "My cloud"
+	// demo = false
+	//
+	// [inputs]
+	// chi = 300                # rho_cl/rho_hot
+	// mach = 1
+	// pressure = 1000          # P/k_B in K cm^-3
+	// t_cloud = 10000          # K
+	// radius = 10              # pc
+	// metallicity = 1          # Z/Z_sun
+	//
+	// [conventions]
+	// heat_capacity = "isobaric"
+	// big.toml:3: radius: must not exceed 1e+07 pc (got 2e+07 pc)
 }

@@ -1,0 +1,76 @@
+#!/usr/bin/env bash
+# End-to-end test of the explorer in a real terminal (tmux): start the built
+# binary at 120×40, change χ with keys and see the threshold and verdict
+# text change, switch every view, resize to 80×24 and 30×10, quit, and
+# confirm the exit status and that the terminal was restored.
+# Usage: .ci/e2e-tmux.sh PATH/TO/cloudwind
+set -euo pipefail
+bin=$(realpath "$1")
+export LANG=C.UTF-8 TERM=xterm-256color
+S=cloudwind-e2e-$$
+out=$(mktemp -d)
+trap 'tmux kill-session -t "$S" 2>/dev/null || true; rm -rf "$out"' EXIT
+
+fail() { echo "e2e: $*"; echo "--- screen:"; tmux capture-pane -p -t "$S" 2>/dev/null || true; exit 1; }
+screen() { tmux capture-pane -p -t "$S"; }
+# wait_for TEXT: poll the screen (no fixed sleeps) for up to 10 s.
+wait_for() {
+  for _ in $(seq 1 200); do
+    if screen | grep -qF -- "$1"; then return 0; fi
+    sleep 0.05
+  done
+  fail "timed out waiting for: $1"
+}
+wait_gone() {
+  for _ in $(seq 1 200); do
+    if ! screen | grep -qF -- "$1"; then return 0; fi
+    sleep 0.05
+  done
+  fail "timed out waiting for this to disappear: $1"
+}
+# criterion_row ID: the criteria-table row of a criterion.
+criterion_row() { screen | grep -F -- "  $1 " | head -1; }
+
+# The shell prints a marker first so that a restored screen can be recognised.
+tmux -u new-session -d -s "$S" -x 120 -y 40 \
+  "echo SHELL-BEFORE-EXPLORER; '$bin' --chi 100 --mach 1 --radius '5 pc' --cooling builtin; echo \"exit=\$?\" > '$out/status'; sleep 30"
+wait_for "Criteria"
+wait_for "gronke-oh-2018"
+before=$(criterion_row gronke-oh-2018)
+echo "$before" | grep -q "destroyed" || fail "expected gronke-oh-2018 destroyed at χ = 100, r = 5 pc: $before"
+
+# Raise χ by one dex: two coarse steps (each ten fine steps of 0.05 dex).
+tmux send-keys -t "$S" S-Right
+tmux send-keys -t "$S" S-Right
+wait_for "χ        1000"
+after=$(criterion_row gronke-oh-2018)
+[ "$before" != "$after" ] || fail "the gronke-oh-2018 row did not change with χ"
+# Enlarge the radius by two dex (four coarse steps of 0.5 dex): the verdict flips to survival.
+tmux send-keys -t "$S" Down Down Down Down Down
+for _ in 1 2 3 4; do tmux send-keys -t "$S" S-Right; done
+wait_for "r_cl     500 pc"
+criterion_row gronke-oh-2018 | grep -q "survives" || fail "gronke-oh-2018 does not survive at r_cl = 500 pc: $(criterion_row gronke-oh-2018)"
+
+# Every view.
+tmux send-keys -t "$S" 1; wait_for "1 threshold radius vs χ"; wait_for "r_crit (pc)"
+tmux send-keys -t "$S" 2; wait_for "2 cooling curve"; wait_for "T (K)"
+tmux send-keys -t "$S" 3; wait_for "3 timescale ratios"; wait_for "t_cool,mix/t_cc"
+tmux send-keys -t "$S" 4; wait_for "4 regime map"; wait_for "criteria predict survival"
+tmux send-keys -t "$S" m; wait_for "(χ × Mach)"
+tmux send-keys -t "$S" '?'; wait_for "? or esc close"; tmux send-keys -t "$S" Escape; wait_gone "? or esc close"
+
+# Resizes: compact, then too small, then back.
+tmux resize-window -t "$S" -x 80 -y 24; wait_for "Criteria"
+[ "$(screen | wc -L)" -le 80 ] || fail "a line is wider than 80 columns at 80×24"
+tmux resize-window -t "$S" -x 30 -y 10; wait_for "terminal too small"
+tmux resize-window -t "$S" -x 120 -y 40; wait_for "Criteria"
+
+# Quit: status 0 and the terminal restored (alternate screen left, shell output back).
+tmux send-keys -t "$S" q
+for _ in $(seq 1 200); do [ -s "$out/status" ] && break; sleep 0.05; done
+[ -s "$out/status" ] || fail "the explorer did not exit"
+grep -qx "exit=0" "$out/status" || fail "exit status: $(cat "$out/status")"
+[ "$(tmux display -p -t "$S" '#{alternate_on}')" = "0" ] || fail "still in the alternate screen after quitting"
+wait_for "SHELL-BEFORE-EXPLORER"
+screen | grep -qF "Criteria" && fail "the explorer's frame is still on the screen after quitting"
+echo "e2e: ok (start, χ and r_cl steps changed the threshold and verdict, 4 views, map axes, help, resize 80×24 and 30×10, quit with status 0, terminal restored)"

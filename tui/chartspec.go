@@ -1,0 +1,58 @@
+package tui
+
+// Chart data, independent of how it is drawn: the explorer's chart pane
+// renders it in the terminal (chart.go) and export writes it to SVG and PNG
+// (export.go). Coordinates on a log axis are log10 values.
+
+// A Series is one curve.
+type Series struct {
+	Name   string    // legend text
+	X, Y   []float64 // points, in axis units (log10 on log axes); NaN or ±Inf breaks the line
+	Index  int       // style and glyph index (criterion order), see Styles.SeriesStyle
+	Dashed bool      // drawn lighter/dotted: e.g. the pinned scenario A in compare mode
+}
+
+// MarkerKind is the shape of a Marker.
+type MarkerKind int
+
+const (
+	VLine MarkerKind = iota // vertical line at X
+	HLine                   // horizontal line at Y
+	Point                   // a point at (X, Y)
+)
+
+// A Marker marks a value of interest: the current χ or r_cl, T_mix, T_hot.
+type Marker struct {
+	Kind  MarkerKind
+	X, Y  float64 // axis units
+	Label string  // short, ASCII preferred
+	Warn  bool    // drawn in the warning style (e.g. outside the cooling table)
+}
+
+// An Axis describes one axis.
+type Axis struct {
+	Label    string  // with unit, e.g. "χ" or "r_crit (pc)"
+	Log      bool    // values are log10; ticks are labelled 1e-2, 1e0, …
+	Min, Max float64 // visible range in axis units
+}
+
+// A LineChart is a set of curves on two axes.
+type LineChart struct {
+	Title   string
+	X, Y    Axis
+	Series  []Series
+	Markers []Marker
+	Note    string // one line under the chart, e.g. a caution
+}
+
+// A RegimeMap is a grid of cells over two axes, each cell holding how many
+// of the criteria predict survival, so that disagreement shows at a glance.
+type RegimeMap struct {
+	Title  string
+	X, Y   Axis
+	NX, NY int   // cells along X and Y
+	Counts []int // NX×NY counts, row-major from the lowest Y: Counts[j*NX+i]; a negative count marks a cell without a valid state (drawn blank)
+	Total  int   // number of criteria counted (the largest possible count)
+	Mark   *Marker
+	Note   string
+}

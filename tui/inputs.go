@@ -1,0 +1,256 @@
+package tui
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"github.com/charmbracelet/bubbles/cursor"
+	"github.com/charmbracelet/bubbles/textinput"
+
+	"cloudwind/model"
+)
+
+// An input is one editable setting of the inputs pane.
+type input struct {
+	label    string          // as shown, e.g. "χ"
+	field    string          // model.Field… (or "cooling")
+	dim      model.Dimension // unit for display and typing
+	advanced bool            // shown behind the Advanced key
+	log      bool            // steps multiply (fine and coarse in dex) instead of add
+	fine     float64         // one step: dex when log, else an absolute amount in display units
+	get      func(p *model.Params) float64
+	set      func(p *model.Params, v float64)
+	options  []string // an enumeration: cycled by the step keys
+	getEnum  func(p *model.Params) int
+	setEnum  func(p *model.Params, i int)
+	about    string // one line for the details pane
+}
+
+// isEnum reports whether the input cycles through options.
+func (in *input) isEnum() bool { return in.options != nil }
+
+// coarseFactor is how many fine steps one coarse step makes.
+const coarseFactor = 10
+
+// inputs returns the inputs in pane order.
+func inputs() []input {
+	mixtures := model.Mixtures()
+	var mixNames []string
+	for _, m := range mixtures {
+		mixNames = append(mixNames, m.Name)
+	}
+	return []input{
+		{label: "χ", field: model.FieldChi, dim: model.Dimensionless, log: true, fine: 0.05,
+			get: func(p *model.Params) float64 { return p.Chi }, set: func(p *model.Params, v float64) { p.Chi = v },
+			about: "density contrast ρ_cl/ρ_hot; T_hot = χ T_cl μ_hot/μ_cl"},
+		{label: "Mach", field: model.FieldMach, dim: model.Dimensionless, fine: 0.05,
+			get: func(p *model.Params) float64 { return p.Mach }, set: func(p *model.Params, v float64) { p.Mach = v },
+			about: "wind Mach number against the adiabatic sound speed of the hot gas"},
+		{label: "P/k_B", field: model.FieldPressure, dim: model.DimPressure, log: true, fine: 0.05,
+			get: func(p *model.Params) float64 { return float64(p.Pressure) }, set: func(p *model.Params, v float64) { p.Pressure = model.Pressure(v) },
+			about: "thermal pressure over Boltzmann's constant, the same in cloud and wind"},
+		{label: "Z", field: model.FieldMetallicity, dim: model.DimMetallicity, log: true, fine: 0.05,
+			get: func(p *model.Params) float64 { return p.Metallicity }, set: func(p *model.Params, v float64) { p.Metallicity = v },
+			about: "metallicity in solar units; scales the metal part of the cooling function"},
+		{label: "T_cl", field: model.FieldTCloud, dim: model.DimTemperature, log: true, fine: 0.02,
+			get: func(p *model.Params) float64 { return float64(p.TCloud) }, set: func(p *model.Params, v float64) { p.TCloud = model.Temperature(v) },
+			about: "cloud temperature (the cooling floor follows it unless T_floor is set)"},
+		{label: "r_cl", field: model.FieldRCloud, dim: model.DimLength, log: true, fine: 0.05,
+			get: func(p *model.Params) float64 { return float64(p.RCloud) }, set: func(p *model.Params, v float64) { p.RCloud = model.Length(v) },
+			about: "cloud radius"},
+		{label: "γ", field: model.FieldGamma, dim: model.Dimensionless, advanced: true, fine: 0.01,
+			get: func(p *model.Params) float64 { return p.Gamma }, set: func(p *model.Params, v float64) { p.Gamma = v },
+			about: "adiabatic index (default 5/3)"},
+		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, fine: 0.01,
+			get: func(p *model.Params) float64 { return p.MuCold }, set: func(p *model.Params, v float64) { p.MuCold = v },
+			about: "mean molecular weight of the cloud (default 0.6, as most simulations use for both phases)"},
+		{label: "μ_hot", field: model.FieldMuHot, dim: model.Dimensionless, advanced: true, fine: 0.01,
+			get: func(p *model.Params) float64 { return p.MuHot }, set: func(p *model.Params, v float64) { p.MuHot = v },
+			about: "mean molecular weight of the wind (default 0.6)"},
+		{label: "X", field: model.FieldHydrogenFraction, dim: model.Dimensionless, advanced: true, fine: 0.005,
+			get: func(p *model.Params) float64 { return p.HydrogenFraction }, set: func(p *model.Params, v float64) { p.HydrogenFraction = v },
+			about: "hydrogen mass fraction, for n_H = X ρ/m_H (default: that of the mixture)"},
+		{label: "mixture", field: "mixture", advanced: true, options: mixNames,
+			getEnum: func(p *model.Params) int {
+				for i, m := range mixtures {
+					if m.Name == p.Mixture.Name {
+						return i
+					}
+				}
+				return 0
+			},
+			setEnum: func(p *model.Params, i int) { p.Mixture, p.HydrogenFraction = mixtures[i], mixtures[i].X },
+			about:   "solar mixture of X, Y, Z (Asplund et al. 2021 Table 4 values)"},
+		{label: "T_floor", field: model.FieldTFloor, dim: model.DimTemperature, advanced: true, log: true, fine: 0.02,
+			get: func(p *model.Params) float64 { return float64(p.TFloor) }, set: func(p *model.Params, v float64) { p.TFloor = model.Temperature(v) },
+			about: "cooling floor: Λ = 0 below it (default: the cloud temperature)"},
+		{label: "f", field: model.FieldHeatCapacity, advanced: true, options: []string{"3/2 isochoric", "5/2 isobaric"},
+			getEnum: func(p *model.Params) int { return int(p.HeatCapacity) },
+			setEnum: func(p *model.Params, i int) { p.HeatCapacity = model.HeatCapacity(i) },
+			about:   "heat capacity in t_cool = f n k_B T/(𝒩 Λ)"},
+		{label: "n×n", field: model.FieldDensityProduct, advanced: true, options: []string{"n_H²", "n² (total)"},
+			getEnum: func(p *model.Params) int { return int(p.DensityProduct) },
+			setEnum: func(p *model.Params, i int) { p.DensityProduct = model.DensityProduct(i) },
+			about:   "density product in t_cool: n_H² (physical for Λ per n_H²) or n² (simplified form)"},
+		{label: "cooling", field: "cooling", advanced: true,
+			about: "cooling function: step through the named ones, or type a name, const:Λ, powerlaw:L0,T0,S or a table path"},
+	}
+}
+
+// inputsPane lists the inputs; one is selected, and one may be edited as
+// text.
+type inputsPane struct {
+	all      []input
+	selected int // index into visible()
+	advanced bool
+	editing  bool
+	edit     textinput.Model
+}
+
+func newInputsPane() inputsPane {
+	ti := textinput.New()
+	ti.Prompt = "> "
+	ti.Cursor.SetMode(cursor.CursorStatic) // no blinking: fewer redraws over SSH
+	ti.CharLimit = 120
+	return inputsPane{all: inputs(), edit: ti}
+}
+
+// visible returns the inputs shown now.
+func (ip *inputsPane) visible() []*input {
+	var out []*input
+	for i := range ip.all {
+		if !ip.all[i].advanced || ip.advanced {
+			out = append(out, &ip.all[i])
+		}
+	}
+	return out
+}
+
+// current returns the selected input.
+func (ip *inputsPane) current() *input {
+	vis := ip.visible()
+	ip.selected = max(0, min(ip.selected, len(vis)-1))
+	return vis[ip.selected]
+}
+
+// move changes the selection by d, wrapping.
+func (ip *inputsPane) move(d int) {
+	n := len(ip.visible())
+	ip.selected = ((ip.selected+d)%n + n) % n
+}
+
+// step returns p with the selected input stepped by n fine steps (n may be
+// negative; coarse steps pass ±coarseFactor). For the cooling input it
+// returns the name to switch to instead.
+func (ip *inputsPane) step(p model.Params, n int, coolingSpec string) (model.Params, string) {
+	in := ip.current()
+	switch {
+	case in.field == "cooling":
+		names := NamedCooling()
+		i := 0
+		for k, c := range names {
+			if c.Name == coolingSpec {
+				i = k
+			}
+		}
+		sign := 1
+		if n < 0 {
+			sign = -1
+		}
+		return p, names[((i+sign)%len(names)+len(names))%len(names)].Name
+	case in.isEnum():
+		sign := 1
+		if n < 0 {
+			sign = -1
+		}
+		k := len(in.options)
+		in.setEnum(&p, ((in.getEnum(&p)+sign)%k+k)%k)
+		return p, ""
+	}
+	v := in.get(&p)
+	if in.field == model.FieldTFloor && v == 0 {
+		v = float64(p.TCloud) // the floor follows T_cl until set
+	}
+	if in.log {
+		v *= math.Pow(10, float64(n)*in.fine)
+	} else {
+		v += float64(n) * in.fine * unitFactor(in.dim)
+		v = roundTo(v, in.fine*unitFactor(in.dim)) // no 0.30000000000000004
+	}
+	in.set(&p, v)
+	return p, ""
+}
+
+// unitFactor is the CGS size of one display unit of d.
+func unitFactor(d model.Dimension) float64 { return displayUnits[d].factor }
+
+// roundTo rounds v to a multiple of step/1000, removing float noise from
+// repeated additions.
+func roundTo(v, step float64) float64 {
+	q := step / 1000
+	return math.Round(v/q) * q
+}
+
+// startEdit opens the text field for the selected input with its value.
+func (ip *inputsPane) startEdit(p *model.Params, coolingSpec string) {
+	in := ip.current()
+	ip.editing = true
+	switch {
+	case in.field == "cooling":
+		ip.edit.SetValue(coolingSpec)
+	case in.isEnum():
+		ip.edit.SetValue(in.options[in.getEnum(p)])
+	default:
+		ip.edit.SetValue(strings.TrimSpace(Number(in.dim, in.get(p))))
+	}
+	ip.edit.CursorEnd()
+	ip.edit.Focus()
+}
+
+// stopEdit closes the text field.
+func (ip *inputsPane) stopEdit() {
+	ip.editing = false
+	ip.edit.Blur()
+}
+
+// applyEdit parses the typed text into p. For the cooling input it returns
+// the spec to resolve instead.
+func (ip *inputsPane) applyEdit(p model.Params) (model.Params, string, error) {
+	in := ip.current()
+	text := strings.TrimSpace(ip.edit.Value())
+	switch {
+	case in.field == "cooling":
+		if text == "" {
+			return p, "", fmt.Errorf("cooling: empty")
+		}
+		return p, text, nil
+	case in.isEnum():
+		for i, o := range in.options {
+			if strings.EqualFold(o, text) || strings.EqualFold(strings.Fields(o)[0], text) {
+				in.setEnum(&p, i)
+				return p, "", nil
+			}
+		}
+		return p, "", fmt.Errorf("%s: %q is not one of %s", in.label, Sanitize(text), strings.Join(in.options, ", "))
+	}
+	v, err := ParseValue(in.dim, text)
+	if err != nil {
+		return p, "", fmt.Errorf("%s: %w", in.label, err)
+	}
+	in.set(&p, v)
+	return p, "", nil
+}
+
+// valueText formats the value of in for the pane.
+func valueText(in *input, p *model.Params, coolingName string) string {
+	switch {
+	case in.field == "cooling":
+		return coolingName
+	case in.isEnum():
+		return in.options[in.getEnum(p)]
+	case in.field == model.FieldTFloor && p.TFloor == 0:
+		return "= T_cl"
+	}
+	return Format(in.dim, in.get(p))
+}

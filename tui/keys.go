@@ -1,0 +1,94 @@
+package tui
+
+import "github.com/charmbracelet/bubbles/key"
+
+// KeyMap is the explorer's one keymap. Every binding carries its help
+// text, so the help overlay and the hint line are generated from the data
+// that drives Update; bindings that do not apply are disabled and vanish
+// from help.
+type KeyMap struct {
+	Up, Down          key.Binding // select an input, a criterion or a quantity
+	Inc, Dec          key.Binding // step the selected input finely
+	IncBig, DecBig    key.Binding // step it coarsely
+	Edit              key.Binding // type a value
+	Undo, Reset       key.Binding
+	ResetAll          key.Binding
+	Advanced          key.Binding // show γ, μ, T_floor, conventions, cooling
+	Focus, FocusBack  key.Binding // move between panes
+	View1, View2      key.Binding
+	View3, View4      key.Binding
+	View5, View6      key.Binding
+	NextView          key.Binding
+	Family            key.Binding // threshold chart: a family over Mach numbers
+	MapAxis           key.Binding // regime map: χ × r_cl or χ × Mach
+	Details           key.Binding
+	Pin, Unpin        key.Binding // compare mode
+	Scenarios         key.Binding
+	Save              key.Binding
+	ExportChart       key.Binding
+	ExportState       key.Binding
+	Palette           key.Binding
+	Help              key.Binding
+	Quit              key.Binding
+	Accept, Cancel    key.Binding // in prompts and overlays
+	PromptUp, PromDwn key.Binding // in the scenario menu
+}
+
+// DefaultKeyMap returns the explorer's keys.
+func DefaultKeyMap() KeyMap {
+	b := func(help1, help2 string, keys ...string) key.Binding {
+		return key.NewBinding(key.WithKeys(keys...), key.WithHelp(help1, help2))
+	}
+	return KeyMap{
+		Up:          b("↑/k", "select up", "up", "k"),
+		Down:        b("↓/j", "select down", "down", "j"),
+		Inc:         b("→/l", "increase", "right", "l"),
+		Dec:         b("←/h", "decrease", "left", "h"),
+		IncBig:      b("shift+→/L", "increase ×10 step", "shift+right", "L"),
+		DecBig:      b("shift+←/H", "decrease ×10 step", "shift+left", "H"),
+		Edit:        b("enter/e", "type a value", "enter", "e"),
+		Undo:        b("u", "undo", "u"),
+		Reset:       b("r", "reset input", "r"),
+		ResetAll:    b("R", "reset all", "R"),
+		Advanced:    b("a", "more inputs", "a"),
+		Focus:       b("tab", "next pane", "tab"),
+		FocusBack:   b("shift+tab", "previous pane", "shift+tab"),
+		View1:       b("1", "r_crit vs χ", "1"),
+		View2:       b("2", "cooling curve", "2"),
+		View3:       b("3", "ratios vs r_cl", "3"),
+		View4:       b("4", "regime map", "4"),
+		View5:       b("5", "evolution", "5"),
+		View6:       b("6", "simulation plan", "6"),
+		NextView:    b("v", "next chart", "v"),
+		Family:      b("f", "family over Mach", "f"),
+		MapAxis:     b("m", "map axes χ×r / χ×M", "m"),
+		Details:     b("d", "details", "d"),
+		Pin:         b("p", "pin as A (compare)", "p"),
+		Unpin:       b("P", "unpin A", "P"),
+		Scenarios:   b("o", "open scenario", "o"),
+		Save:        b("s", "save scenario", "s"),
+		ExportChart: b("x", "export chart SVG/PNG", "x"),
+		ExportState: b("J", "export state JSON", "J"),
+		Palette:     b("t", "light/dark palette", "t"),
+		Help:        b("?", "help", "?"),
+		Quit:        b("q", "quit", "q", "ctrl+c"),
+		Accept:      b("enter", "accept", "enter"),
+		Cancel:      b("esc", "cancel", "esc"),
+		PromptUp:    b("↑", "previous", "up"),
+		PromDwn:     b("↓", "next", "down"),
+	}
+}
+
+// ShortHelp returns the bindings of the one-line hint.
+func (k KeyMap) ShortHelp() []key.Binding {
+	return []key.Binding{k.Up, k.Inc, k.Edit, k.NextView, k.Details, k.Pin, k.Help, k.Quit}
+}
+
+// FullHelp returns the bindings of the help overlay, in columns.
+func (k KeyMap) FullHelp() [][]key.Binding {
+	return [][]key.Binding{
+		{k.Up, k.Down, k.Inc, k.Dec, k.IncBig, k.DecBig, k.Edit, k.Undo, k.Reset, k.ResetAll, k.Advanced},
+		{k.Focus, k.FocusBack, k.View1, k.View2, k.View3, k.View4, k.View5, k.View6, k.NextView, k.Family, k.MapAxis},
+		{k.Details, k.Pin, k.Unpin, k.Scenarios, k.Save, k.ExportChart, k.ExportState, k.Palette, k.Help, k.Quit},
+	}
+}
