@@ -62,6 +62,8 @@ func commands() []command {
 		{"eval", "evaluate one scenario: derived quantities and every criterion", runEval},
 		{"cooling", "sample a cooling function Λ(T) and compare it with another", runCooling},
 		{"sweep", "evaluate every criterion over a grid of inputs, to CSV, ECSV or JSON", runSweep},
+		{"evolve", "integrate the cloud's mass, velocity and position against t/t_cc", runEvolve},
+		{"plan", "plan a simulation that can tell the criteria apart: box, resolution, cost", runPlan},
 		{"version", "print the version", runVersion},
 		{"help", "show help for cloudwind or a command", runHelp},
 	}

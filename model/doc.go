@@ -5,7 +5,11 @@
 // the cooling times of hot, mixed and cold gas and the minimum along the
 // mixing isobar, cooling and shattering lengths) and, for every criterion,
 // the ratio τ_cool/τ_dyn, the threshold radius r_crit, the margin and the
-// verdict.
+// verdict. Evolve integrates the semi-analytic growth and entrainment of
+// the cloud (mass, velocity and position against t/t_cc, with its own
+// adaptive Dormand–Prince 5(4) integrator), and MakePlan and ComparePlans
+// turn a scenario into a costed wind-tunnel simulation that can tell the
+// criteria apart.
 //
 // The package is pure: it does no I/O and imports nothing of the program's
 // interface. It declares the cooling-function interface it consumes
@@ -35,6 +39,13 @@
 // # References
 //
 //   - [AFB23] Abruzzo, Fielding & Bryan 2023, arXiv:2307.03228.
+//   - [BB18] Banda-Barragán, Federrath, Crocker & Bicknell 2018, MNRAS 473, 3454, arXiv:1706.06607.
+//   - [DP80] Dormand & Prince 1980, J. Comput. Appl. Math. 6, 19.
+//   - [GOJN22] Gronke, Oh, Ji & Norman 2022, MNRAS 511, 859, arXiv:2107.13012.
+//   - [HNW93] Hairer, Nørsett & Wanner 1993, Solving Ordinary Differential Equations I, Springer, §II.4.
+//   - [LRS26] Leary, Richie & Schneider 2026, arXiv:2602.10082.
+//   - [McC15] McCourt, O'Leary, Madigan & Quataert 2015, MNRAS 449, 2, arXiv:1409.6719.
+//   - [YFB10] Yirak, Frank & Cunningham 2010, ApJ 722, 412, arXiv:0912.4777.
 //   - [AAG21] Asplund, Amarsi & Grevesse 2021, A&A 653, A141.
 //   - [BF90] Begelman & Fabian 1990, MNRAS 244, 26P.
 //   - [FG22] Farber & Gronke 2022, MNRAS 510, 551, arXiv:2107.07991.
@@ -47,13 +58,19 @@
 //   - [SPE20] Sparre, Pfrommer & Ehlert 2020, MNRAS 499, 4261, arXiv:2008.09118.
 //   - [TOG21] Tan, Oh & Gronke 2021, MNRAS 502, 3179, arXiv:2008.12302.
 //
-// Journal references of [FG22], [KDS21], [McC18] and [TOG21] and the year of
+// Journal references of [BB18], [FG22], [GOJN22], [KDS21], [McC15], [McC18],
+// [TOG21] and [YFB10], the authors of [McC15] and [YFB10], and the year of
 // [BF90] are from memory; the arXiv identifiers are those the physics
 // reference confirmed. No equation number is cited, because none was read
 // from the papers themselves.
 //
 // [AFB23]: https://arxiv.org/abs/2307.03228
 // [AAG21]: https://arxiv.org/abs/2105.01661
+// [BB18]: https://arxiv.org/abs/1706.06607
+// [GOJN22]: https://arxiv.org/abs/2107.13012
+// [LRS26]: https://arxiv.org/abs/2602.10082
+// [McC15]: https://arxiv.org/abs/1409.6719
+// [YFB10]: https://arxiv.org/abs/0912.4777
 // [BF90]: https://ui.adsabs.harvard.edu/abs/1990MNRAS.244P..26B
 // [FG22]: https://arxiv.org/abs/2107.07991
 // [GO18]: https://arxiv.org/abs/1806.02728

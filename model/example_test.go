@@ -77,3 +77,117 @@ func ExampleCriterion_Threshold() {
 	// t_cool,mix / t_cc < (χ/100)^-0.5
 	// 0.316
 }
+
+// Plan the wind-tunnel run of the physics reference's check value (§9 row
+// 13): χ = 100, M = 1.5, 16 cells per cloud radius, C = 0.3, 20 t_cc, in a
+// cloud-tracking frame with the default 40 × 20 × 20 r_cl box.
+func ExampleMakePlan() {
+	p := model.Fiducial() // P/k_B = 1e3 K cm⁻³, T_cl = 1e4 K, r_cl = 1 pc
+	p.Mach, p.DensityProduct = 1.5, model.N2
+	s, err := model.Derive(p, model.ConstantCooling{Value: model.CoolingRate(math.Pow(10, -21.4))})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	pl, err := model.MakePlan(&s, model.PlanSettings{RunTcc: 20, Tracking: true})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("Δx = %.3g pc, box %.3g × %.3g² r_cl, %.3g cells\n", float64(pl.Dx/model.Parsec), pl.BoxAlongRcl, pl.BoxAcrossRcl, pl.Cells)
+	fmt.Printf("t_end = %.3g t_cc = %.3g Myr (t_cool,hot = %.3g t_cc), %.3g steps\n", pl.RunTcc, float64(pl.RunTime/model.Megayear), pl.TCoolHotTcc, pl.Steps)
+	fmt.Printf("%.3g cell-updates, %.3g core-hours, %.3g GB\n", pl.CellUpdates, pl.CoreHours, pl.MemoryBytes/1e9)
+	for _, w := range pl.Warnings {
+		fmt.Printf("%-7v %s\n", w.Level, w.Code)
+	}
+	// Output:
+	// Δx = 0.0625 pc, box 40 × 20² r_cl, 6.55e+07 cells
+	// t_end = 20 t_cc = 0.861 Myr (t_cool,hot = 383 t_cc), 1.78e+04 steps
+	// 1.17e+12 cell-updates, 324 core-hours, 16.8 GB
+	// caution too-short-for-growth
+	// caution resolution-growth
+	// info    supersonic-convergence
+	// info    radiative-convergence
+	// info    shattering-unresolved
+}
+
+// Plan the simulations that tell the built-in criteria apart at the
+// Gronke & Oh (2018) fiducial problem (χ = 100, M = 1, Λ = 10^-21.4, 𝒩 = n²),
+// in a cloud-tracking frame.
+func ExampleComparePlans() {
+	p := model.Fiducial()
+	p.DensityProduct = model.N2
+	cf := model.ConstantCooling{Value: model.CoolingRate(math.Pow(10, -21.4))}
+	cmp, err := model.ComparePlans(p, cf, model.BuiltinCriteria(), model.PlanSettings{Tracking: true}, nil)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, c := range cmp {
+		pl := c.Plan
+		fmt.Printf("%v vs %v: r_cl = %.3g pc for %.3g t_cc at %.3g cells/r_cl, %.3g core-hours\n",
+			c.LowerIDs, c.UpperIDs, float64(c.RCloud/model.Parsec), pl.RunTcc, pl.Settings.CellsPerRadius, pl.CoreHours)
+		fmt.Printf("  survive %v\n  destroy %v\n", c.Survive, c.Destroy)
+	}
+	// Output:
+	// [abruzzo-2023] vs [gronke-oh-2018 farber-gronke-2022]: r_cl = 0.807 pc for 42.2 t_cc at 16 cells/r_cl, 819 core-hours
+	//   survive [abruzzo-2023]
+	//   destroy [gronke-oh-2018 li-2020 sparre-2020 farber-gronke-2022 adiabatic]
+	// [gronke-oh-2018 farber-gronke-2022] vs [li-2020 sparre-2020]: r_cl = 8.07 pc for 23.7 t_cc at 16 cells/r_cl, 460 core-hours
+	//   survive [gronke-oh-2018 abruzzo-2023 farber-gronke-2022]
+	//   destroy [li-2020 sparre-2020 adiabatic]
+}
+
+// Evolve a 30 pc cloud in the fiducial wind. It lies above the
+// gronke-oh-2018 threshold radius (≈ 13 pc with this cooling function),
+// so it grows and is entrained.
+func ExampleEvolve() {
+	p := model.Fiducial()
+	p.RCloud = 30 * model.Parsec
+	s, err := model.Derive(p, model.PowerLawCooling{L0: 4e-22, T0: 1e5, Slope: -0.7})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	c, _ := model.CriterionByID(model.BuiltinCriteria(), "gronke-oh-2018")
+	tr, err := model.Evolve(&s, c, model.EvolveSettings{TEnd: 100})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("t_cool,mix/t_cc = %.3g, t_grow,0 = %.3g t_cc\n", tr.Ratio0, tr.TGrow0)
+	fmt.Printf("mass doubled at %.3g t_cc, entrained at %.3g t_cc\n", tr.TDouble, tr.TEntrain)
+	m, v, x := tr.At(50)
+	fmt.Printf("t = 50 t_cc: m = %.3g m0, v = %.3g v_w, x = %.3g r0\n", m, v, x)
+	n := len(tr.T) - 1
+	fmt.Printf("t = %.3g t_cc: m = %.3g m0, v = %.3g v_w\n", tr.T[n], tr.M[n], tr.V[n])
+	// Output:
+	// t_cool,mix/t_cc = 0.432, t_grow,0 = 5.71 t_cc
+	// mass doubled at 4.32 t_cc, entrained at 16.9 t_cc
+	// t = 50 t_cc: m = 103 m0, v = 0.991 v_w, x = 430 r0
+	// t = 100 t_cc: m = 836 m0, v = 0.999 v_w
+}
+
+// The settings of Evolve with their defaults; each also carries a status
+// (here the first of them).
+func ExampleEvolveSettings_Constants() {
+	ks := model.DefaultEvolveSettings().Constants()
+	for _, k := range ks[:8] {
+		v := fmt.Sprintf("%.3g", k.Value)
+		if k.Text != "" {
+			v = k.Text
+		}
+		fmt.Printf("%-18s %s\n", k.Symbol, v)
+	}
+	fmt.Println(ks[0].Status)
+	// Output:
+	// α_v                1
+	// f_A                1
+	// κ                  4
+	// C_D                0.5
+	// v_A/v_w            0
+	// (Δv/c_s,hot)^1/2   off
+	// t_cool,X           t_cool,cold
+	// v0/v_w             0
+	// value from memory — check the paper; the form v_mix ∝ c_s,cl (t_cool/t_sc,cl)^-1/4 is confirmed (Tan, Oh & Gronke 2021, abstract)
+}

@@ -50,11 +50,14 @@ const (
 	viewCooling                   // Λ(T)
 	viewRatios                    // τ_cool/τ_dyn vs r_cl
 	viewRegime                    // regime map
+	viewEvolution                 // m/m0 and v/v_w vs t/t_cc
+	viewPlan                      // simulation plan
 	viewCount
 )
 
 func (v viewKind) String() string {
-	return [...]string{"threshold radius vs χ", "cooling curve Λ(T)", "timescale ratios vs r_cl", "regime map"}[v]
+	return [...]string{"threshold radius vs χ", "cooling curve Λ(T)", "timescale ratios vs r_cl", "regime map",
+		"evolution vs t/t_cc", "simulation plan"}[v]
 }
 
 // snapshot is a complete state of the inputs: what undo restores and what
@@ -115,7 +118,9 @@ type chartState struct {
 	gen    int
 	view   viewKind
 	line   *LineChart
+	line2  *LineChart // the evolution view's second chart (v/v_w)
 	regime *RegimeMap
+	text   []string // the plan view
 }
 
 // maxHistory bounds the undo stack.
@@ -126,8 +131,6 @@ const maxHistory = 200
 func New(cfg Config) (*App, error) {
 	a := &App{cfg: cfg, keys: DefaultKeyMap(), help: help.New(), in: newInputsPane(), scenario: cfg.Scenario}
 	a.styles = NewStyles(cfg.Palette, cfg.Color, cfg.ASCII)
-	a.keys.View5.SetEnabled(false) // evolution and planning arrive with their own views
-	a.keys.View6.SetEnabled(false)
 	cf, err := cfg.Cooling.Function(cfg.Params.Metallicity)
 	if err != nil {
 		return nil, err
@@ -160,7 +163,7 @@ func (a *App) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		return a, a.requestChart()
 	case chartMsg:
 		if msg.gen == a.gen { // stale results are dropped
-			a.chart = chartState{gen: msg.gen, view: msg.view, line: msg.line, regime: msg.regime}
+			a.chart = chartState{gen: msg.gen, view: msg.view, line: msg.line, line2: msg.line2, regime: msg.regime, text: msg.text}
 		}
 		return a, nil
 	case statusMsg:
@@ -223,6 +226,10 @@ func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
 		return a.setView(viewRatios)
 	case key.Matches(msg, k.View4):
 		return a.setView(viewRegime)
+	case key.Matches(msg, k.View5):
+		return a.setView(viewEvolution)
+	case key.Matches(msg, k.View6):
+		return a.setView(viewPlan)
 	case key.Matches(msg, k.NextView):
 		return a.setView((a.view + 1) % viewCount)
 	case key.Matches(msg, k.Family):

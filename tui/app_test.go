@@ -191,7 +191,7 @@ func TestStaleChartDropped(t *testing.T) {
 
 func TestViewsAndFocus(t *testing.T) {
 	a := newTestApp(t, 120, 40)
-	for i, want := range []string{"threshold radius vs χ", "cooling curve", "timescale ratios", "regime map"} {
+	for i, want := range []string{"threshold radius vs χ", "cooling curve", "timescale ratios", "regime map", "cloud mass m/m0", "Plan for a growth study"} {
 		press(a, string(rune('1'+i)))
 		if s := screen(a); !strings.Contains(s, want) {
 			t.Errorf("view %d: %q not on screen", i+1, want)
@@ -336,7 +336,7 @@ func TestGoldenViews(t *testing.T) {
 }
 
 func goldenName(v viewKind, w, h int) string {
-	return sizeName([...]string{"threshold", "cooling", "ratios", "regime"}[v], w, h)
+	return sizeName([...]string{"threshold", "cooling", "ratios", "regime", "evolution", "plan"}[v], w, h)
 }
 
 func sizeName(s string, w, h int) string {

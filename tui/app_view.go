@@ -157,8 +157,13 @@ func (a *App) chartLines(w, h int) []string {
 	c := a.chart
 	var s string
 	switch {
-	case c.view != a.view || (c.line == nil && c.regime == nil):
+	case c.view != a.view || (c.line == nil && c.regime == nil && c.text == nil):
 		return block([]string{a.styles.Dim.Render("computing…")}, w, h)
+	case c.text != nil:
+		return block(a.wrapLines(c.text, w), w, h)
+	case c.line2 != nil:
+		top := h / 2
+		s = RenderLineChart(c.line, w, top, &a.styles) + "\n" + RenderLineChart(c.line2, w, h-top, &a.styles)
 	case c.line != nil:
 		s = RenderLineChart(c.line, w, h, &a.styles)
 	default:
@@ -216,4 +221,19 @@ func (a *App) derivedValue(key string) string {
 		}
 	}
 	return ""
+}
+
+// wrapLines wraps text lines to w cells, indenting continuations.
+func (a *App) wrapLines(lines []string, w int) []string {
+	var out []string
+	for _, l := range lines {
+		if visibleLen(l) <= w {
+			out = append(out, l)
+			continue
+		}
+		trimmed := strings.TrimLeft(l, " ")
+		indent := strings.Repeat(" ", len(l)-len(trimmed))
+		out = append(out, wrapText(indent, trimmed, w)...)
+	}
+	return out
 }

@@ -66,3 +66,22 @@ func BenchmarkChartThresholdFamily(b *testing.B) {
 		computeChart(req)
 	}
 }
+
+// BenchmarkChartEvolution computes the evolution view: one trajectory per
+// criterion to 100 t_cc.
+func BenchmarkChartEvolution(b *testing.B) {
+	a := newTestApp(b, 120, 40)
+	req := chartRequest{view: viewEvolution, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria()}
+	for b.Loop() {
+		computeChart(req)
+	}
+}
+
+// BenchmarkChartPlan computes the plan view, comparison included.
+func BenchmarkChartPlan(b *testing.B) {
+	a := newTestApp(b, 120, 40)
+	req := chartRequest{view: viewPlan, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria()}
+	for b.Loop() {
+		computeChart(req)
+	}
+}

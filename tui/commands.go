@@ -21,7 +21,9 @@ type chartMsg struct {
 	gen    int
 	view   viewKind
 	line   *LineChart
+	line2  *LineChart
 	regime *RegimeMap
+	text   []string
 }
 
 // statusMsg sets the status line.
@@ -85,6 +87,10 @@ func computeChart(r chartRequest) tea.Msg {
 		m.line = ratioChart(r)
 	case viewRegime:
 		m.regime = regimeMap(r)
+	case viewEvolution:
+		m.line, m.line2 = evolutionCharts(r)
+	case viewPlan:
+		m.text = planLines(r)
 	}
 	return m
 }
