@@ -147,45 +147,27 @@ func runEvolve(e *env) error {
 	if err := f.parse(e); err != nil {
 		return err
 	}
-	p, err := sf.params()
-	if err != nil {
-		return err
-	}
 	set, err := ef.settings()
 	if err != nil {
 		return err
 	}
-	switch *format {
-	case "text", "csv", "ecsv", "json":
-	default:
-		return usagef("--format: want text, csv, ecsv or json (got %q)", sanitizeArg(*format))
+	if err := checkFormat(*format, "text", "csv", "ecsv", "json"); err != nil {
+		return err
 	}
-	src, err := sf.source(e)
+	sc, err := sf.evaluate(e)
 	if err != nil {
 		return err
 	}
-	cf, err := src.Function(p.Metallicity)
-	if err != nil {
-		return usagef("--metallicity: %v", err)
-	}
-	all, err := loadCriteria(e, sf.criteria)
-	if err != nil {
-		return err
-	}
-	cs, err := selectCriteria(all, ef.criterion)
-	if err != nil {
-		return err
-	}
-	res, err := model.Evaluate(p, cf, all)
+	cs, err := selectCriteria(sc.criteria, ef.criterion)
 	if err != nil {
 		return err
 	}
 	runs := make([]evolveRun, len(cs))
 	for i := range cs {
 		runs[i].c = cs[i]
-		runs[i].tr, runs[i].err = model.Evolve(&res.State, &cs[i], set)
+		runs[i].tr, runs[i].err = model.Evolve(&sc.res.State, &cs[i], set)
 	}
-	out := evolveOutput{res: &res, set: set, runs: runs, samples: ef.samples, cooling: tui.CoolingName(src, cf)}
+	out := evolveOutput{res: &sc.res, set: set, runs: runs, samples: ef.samples, cooling: tui.CoolingName(sc.cooling, sc.cf)}
 	switch *format {
 	case "csv":
 		return out.writeDelimited(e.stdout, false)
@@ -376,4 +358,3 @@ func (o *evolveOutput) writeText(w io.Writer) error {
 	fmt.Fprintf(&b, "\nentrained: first |Δv| ≤ 0.1 v_w; doubled: m = 2 m0; destroyed: m < 10⁻³ m0 (the run stops). Times in t_cc of the initial cloud.\n")
 	return writeTrimmed(w, b.String())
 }
-

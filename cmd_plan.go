@@ -51,10 +51,7 @@ func runPlan(e *env) error {
 	if err := f.parse(e); err != nil {
 		return err
 	}
-	p, err := sf.params()
-	if err != nil {
-		return err
-	}
+	var err error
 	// Only what the user gave is set; the rest stays zero, so that the
 	// plan reports cloudwind's defaults as defaults, with their status.
 	given := func(name string, v float64) float64 {
@@ -85,44 +82,32 @@ func runPlan(e *env) error {
 		}
 		return usagef("%v", err)
 	}
-	if *format != "text" && *format != "json" {
-		return usagef("--format: want text or json (got %q)", sanitizeArg(*format))
+	if err := checkFormat(*format, "text", "json"); err != nil {
+		return err
 	}
-	src, err := sf.source(e)
+	sc, err := sf.evaluate(e)
 	if err != nil {
 		return err
 	}
-	cf, err := src.Function(p.Metallicity)
-	if err != nil {
-		return usagef("--metallicity: %v", err)
-	}
-	cs, err := loadCriteria(e, sf.criteria)
+	sel, err := selectCriteria(sc.criteria, *criterion)
 	if err != nil {
 		return err
 	}
-	sel, err := selectCriteria(cs, *criterion)
-	if err != nil {
-		return err
-	}
-	res, err := model.Evaluate(p, cf, cs)
-	if err != nil {
-		return err
-	}
-	disp := model.EvolveDisplacement(cf, &sel[0], model.EvolveSettings{})
-	pl, err := model.MakePlanWith(&res.State, set, disp)
+	disp := model.EvolveDisplacement(sc.cf, &sel[0], model.EvolveSettings{})
+	pl, err := model.MakePlanWith(&sc.res.State, set, disp)
 	if err != nil {
 		return err
 	}
 	var cmp []model.PlanComparison
 	if *compare {
-		if cmp, err = model.ComparePlans(p, cf, cs, set, disp); err != nil {
+		if cmp, err = model.ComparePlans(sc.params, sc.cf, sc.criteria, set, disp); err != nil {
 			return err
 		}
 	}
 	if *format == "json" {
-		return writePlanJSON(e.stdout, &res, &pl, cmp, set)
+		return writePlanJSON(e.stdout, &pl, cmp, set)
 	}
-	return writePlanText(e.stdout, &res, &pl, cmp, set, tui.CoolingName(src, cf))
+	return writePlanText(e.stdout, &sc.res, &pl, cmp, set, tui.CoolingName(sc.cooling, sc.cf))
 }
 
 // parseBox parses LxW or LxWxH (W = H) in r_cl.
@@ -189,7 +174,7 @@ func planJSON(pl *model.Plan) map[string]any {
 	}
 }
 
-func writePlanJSON(w io.Writer, res *model.Result, pl *model.Plan, cmp []model.PlanComparison, set model.PlanSettings) error {
+func writePlanJSON(w io.Writer, pl *model.Plan, cmp []model.PlanComparison, set model.PlanSettings) error {
 	doc := planJSON(pl)
 	doc["schema"] = "cloudwind.plan/1"
 	doc["version"] = versionString()

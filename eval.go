@@ -27,15 +27,6 @@ const evalExamples = `  cloudwind eval
   cloudwind eval --cooling powerlaw:4e-22,1e5,-0.7 --format json
   cloudwind eval --criteria my-criteria.toml`
 
-// evalOptions are the parsed flags of eval.
-type evalOptions struct {
-	params   model.Params
-	cooling  *coolingSource
-	cf       model.CoolingFunction // the cooling function at the scenario's Z
-	criteria []model.Criterion
-	format   string
-}
-
 func runEval(e *env) error {
 	f := newFlagSet("eval", evalSynopsis, evalExamples)
 	var sf scenarioFlags
@@ -44,38 +35,23 @@ func runEval(e *env) error {
 	if err := f.parse(e); err != nil {
 		return err
 	}
-	var opt evalOptions
-	var err error
-	if opt.params, err = sf.params(); err != nil {
+	if err := checkFormat(*format, "text", "json"); err != nil {
 		return err
 	}
-	if opt.cooling, err = sf.source(e); err != nil {
-		return err
-	}
-	if opt.cf, err = opt.cooling.Function(opt.params.Metallicity); err != nil {
-		return usagef("--metallicity: %v", err)
-	}
-	if *format != "text" && *format != "json" {
-		return usagef("--format: want text or json (got %q)", sanitizeArg(*format))
-	}
-	opt.format = *format
-	if opt.criteria, err = loadCriteria(e, sf.criteria); err != nil {
-		return err
-	}
-	res, err := model.Evaluate(opt.params, opt.cf, opt.criteria)
+	sc, err := sf.evaluate(e)
 	if err != nil {
 		return err
 	}
-	if opt.format == "json" {
-		return writeEvalJSON(e.stdout, &opt, &res)
+	if *format == "json" {
+		return writeEvalJSON(e.stdout, sc)
 	}
-	return writeEvalText(e.stdout, &opt, &res)
+	return writeEvalText(e.stdout, sc)
 }
 
-func writeEvalJSON(w io.Writer, opt *evalOptions, r *model.Result) error {
+func writeEvalJSON(w io.Writer, sc *scenario) error {
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
-	return enc.Encode(tui.StateDocument(r, opt.cooling, opt.cf, versionString()))
+	return enc.Encode(tui.StateDocument(&sc.res, sc.cooling, sc.cf, versionString()))
 }
 
 // finite returns v, or nil (JSON null) when v is NaN or ±Inf.
@@ -91,7 +67,8 @@ func coolingJSON(src *coolingSource, cf model.CoolingFunction) map[string]any {
 	return tui.CoolingDocument(src, cf)
 }
 
-func writeEvalText(w io.Writer, opt *evalOptions, r *model.Result) error {
+func writeEvalText(w io.Writer, sc *scenario) error {
+	r := &sc.res
 	q := r.Params
 	var b strings.Builder
 	fmt.Fprintf(&b, "Scenario\n")
@@ -103,7 +80,7 @@ func writeEvalText(w io.Writer, opt *evalOptions, r *model.Result) error {
 	row("T_cl", tui.Format(model.DimTemperature, float64(q.TCloud)))
 	row("r_cl", tui.Format(model.DimLength, float64(q.RCloud)))
 	zNote := ""
-	if !opt.cooling.ZDependent {
+	if !sc.cooling.ZDependent {
 		zNote = "  (this cooling function does not depend on Z)"
 	}
 	row("Z", tui.Format(model.DimMetallicity, q.Metallicity)+zNote)
@@ -111,8 +88,8 @@ func writeEvalText(w io.Writer, opt *evalOptions, r *model.Result) error {
 	row("X (hydrogen)", fmt.Sprintf("%s  (%s)", tui.FormatSig(q.HydrogenFraction, 4), q.Mixture.Name))
 	row("T_floor", tui.Format(model.DimTemperature, float64(q.TFloor)))
 	row("convention", conventionText(q))
-	row("cooling", coolingName(opt.cooling, opt.cf))
-	if p, ok := opt.cf.(*cooling.PowerLaw); ok {
+	row("cooling", coolingName(sc.cooling, sc.cf))
+	if p, ok := sc.cf.(*cooling.PowerLaw); ok {
 		m := p.Meta()
 		lo, hi := p.ValidRange()
 		row("", fmt.Sprintf("per %s in the source; tabulated %s–%s; y = %s", m.Normalisation.Symbol(),

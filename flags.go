@@ -231,6 +231,57 @@ func (s *scenarioFlags) params() (model.Params, error) {
 	return p, nil
 }
 
+// scenario is a parsed and evaluated scenario of the single-point
+// commands (eval, evolve, plan).
+type scenario struct {
+	params   model.Params
+	cooling  *coolingSource
+	cf       model.CoolingFunction // the cooling function at params.Metallicity
+	criteria []model.Criterion
+	res      model.Result
+}
+
+// evaluate parses the scenario flags, resolves the cooling function at the
+// scenario's metallicity, loads the criteria and evaluates them.
+func (s *scenarioFlags) evaluate(e *env) (*scenario, error) {
+	var sc scenario
+	var err error
+	if sc.params, err = s.params(); err != nil {
+		return nil, err
+	}
+	if sc.cooling, err = s.source(e); err != nil {
+		return nil, err
+	}
+	if sc.cf, err = sc.cooling.Function(sc.params.Metallicity); err != nil {
+		return nil, usagef("--metallicity: %v", err)
+	}
+	if sc.criteria, err = loadCriteria(e, s.criteria); err != nil {
+		return nil, err
+	}
+	if sc.res, err = model.Evaluate(sc.params, sc.cf, sc.criteria); err != nil {
+		return nil, err
+	}
+	return &sc, nil
+}
+
+// checkFormat refuses a --format value that is not one of allowed.
+func checkFormat(format string, allowed ...string) error {
+	for _, a := range allowed {
+		if format == a {
+			return nil
+		}
+	}
+	return usagef("--format: want %s (got %q)", orList(allowed), sanitizeArg(format))
+}
+
+// orList writes "a, b or c".
+func orList(s []string) string {
+	if len(s) == 1 {
+		return s[0]
+	}
+	return strings.Join(s[:len(s)-1], ", ") + " or " + s[len(s)-1]
+}
+
 // fieldUsage turns a validation error into a usage error naming the flag.
 func fieldUsage(err error) error {
 	var fe *model.FieldError
