@@ -344,3 +344,23 @@ func sizeName(s string, w, h int) string {
 }
 
 func itoa(n int) string { return strings.TrimSpace(FormatSig(float64(n), 6)) }
+
+// TestReadmeCapture keeps the README's screen capture equal to the golden
+// view it was taken from.
+func TestReadmeCapture(t *testing.T) {
+	readme, err := os.ReadFile(filepath.Join("..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	golden, err := os.ReadFile(filepath.Join("testdata", "TestGoldenViews", "threshold_80x24.golden"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var lines []string
+	for _, l := range strings.Split(strings.TrimRight(string(golden), "\n"), "\n") {
+		lines = append(lines, strings.TrimRight(l, " "))
+	}
+	if !strings.Contains(string(readme), strings.Join(lines, "\n")) {
+		t.Error("README.md's explorer capture differs from testdata/TestGoldenViews/threshold_80x24.golden; paste the golden into the README")
+	}
+}
