@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strconv"
+	"strings"
 )
 
 // HeatCapacity selects the factor f in t_cool = f n k_B T / (𝒩 Λ).
@@ -187,13 +189,13 @@ func (p Params) Validate() error {
 	check := func(field string, v, lo, hi float64, loOpen bool, scale float64, unit string) error {
 		switch {
 		case math.IsNaN(v) || math.IsInf(v, 0):
-			return &FieldError{field, v, fmt.Sprintf("must be a finite number (got %g)", v), ErrNotFinite}
+			return &FieldError{field, v, fmt.Sprintf("must be a finite number (got %s)", num(v)), ErrNotFinite}
 		case loOpen && v <= lo:
-			return &FieldError{field, v, fmt.Sprintf("must be greater than %g%s (got %g%s)", lo*scale, unit, v*scale, unit), ErrOutOfBounds}
+			return &FieldError{field, v, fmt.Sprintf("must be greater than %s%s (got %s%s)", num(lo*scale), unit, num(v*scale), unit), ErrOutOfBounds}
 		case !loOpen && v < lo:
-			return &FieldError{field, v, fmt.Sprintf("must be at least %g%s (got %g%s)", lo*scale, unit, v*scale, unit), ErrOutOfBounds}
+			return &FieldError{field, v, fmt.Sprintf("must be at least %s%s (got %s%s)", num(lo*scale), unit, num(v*scale), unit), ErrOutOfBounds}
 		case v > hi:
-			return &FieldError{field, v, fmt.Sprintf("must not exceed %g%s (got %g%s)", hi*scale, unit, v*scale, unit), ErrOutOfBounds}
+			return &FieldError{field, v, fmt.Sprintf("must not exceed %s%s (got %s%s)", num(hi*scale), unit, num(v*scale), unit), ErrOutOfBounds}
 		}
 		return nil
 	}
@@ -223,9 +225,9 @@ func (p Params) Validate() error {
 		}
 	}
 	if tf := float64(q.TFloor); math.IsNaN(tf) || math.IsInf(tf, 0) || tf < 0 {
-		return &FieldError{FieldTFloor, tf, fmt.Sprintf("must be a finite temperature ≥ 0 K (got %g)", tf), ErrOutOfBounds}
+		return &FieldError{FieldTFloor, tf, fmt.Sprintf("must be a finite temperature ≥ 0 K (got %s)", num(tf)), ErrOutOfBounds}
 	} else if tf > float64(q.TCloud) {
-		return &FieldError{FieldTFloor, tf, fmt.Sprintf("the cooling floor %g K is above the cloud temperature %g K", tf, float64(q.TCloud)), ErrOutOfBounds}
+		return &FieldError{FieldTFloor, tf, fmt.Sprintf("the cooling floor %s K is above the cloud temperature %s K", num(tf), num(float64(q.TCloud))), ErrOutOfBounds}
 	}
 	if q.HeatCapacity != Isochoric && q.HeatCapacity != Isobaric {
 		return &FieldError{FieldHeatCapacity, float64(q.HeatCapacity), fmt.Sprintf("unknown heat-capacity convention %d", q.HeatCapacity), ErrUnknown}
@@ -234,7 +236,26 @@ func (p Params) Validate() error {
 		return &FieldError{FieldDensityProduct, float64(q.DensityProduct), fmt.Sprintf("unknown density-product convention %d", q.DensityProduct), ErrUnknown}
 	}
 	if th := HotTemperature(q.TCloud, q.Chi, q.MuCold, q.MuHot); th > MaxTHot {
-		return &FieldError{FieldChi, q.Chi, fmt.Sprintf("the wind temperature χ T_cl μ_hot/μ_cl = %.3g K exceeds %g K", float64(th), MaxTHot), ErrOutOfBounds}
+		return &FieldError{FieldChi, q.Chi, fmt.Sprintf("the wind temperature χ T_cl μ_hot/μ_cl = %s K exceeds %s K", num(float64(th)), num(MaxTHot)), ErrOutOfBounds}
 	}
 	return nil
+}
+
+// num writes v for people, as %g does but without exponent padding:
+// 1e8, not 1e+08.
+func num(v float64) string {
+	s := strconv.FormatFloat(v, 'g', 6, 64)
+	if i := strings.IndexByte(s, 'e'); i >= 0 {
+		mant, exp := s[:i], s[i+1:]
+		sign := ""
+		if exp[0] == '-' {
+			sign = "-"
+		}
+		exp = strings.TrimLeft(exp[1:], "0")
+		if exp == "" {
+			exp = "0"
+		}
+		s = mant + "e" + sign + exp
+	}
+	return s
 }
