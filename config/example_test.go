@@ -98,5 +98,5 @@ heat_capacity = "isobaric"
 	//
 	// [conventions]
 	// heat_capacity = "isobaric"
-	// big.toml:3: radius: must not exceed 1e+07 pc (got 2e+07 pc)
+	// big.toml:3: radius: must not exceed 1e7 pc (got 2e7 pc)
 }

@@ -297,9 +297,9 @@ func badScenarioCases() []badScenarioCase {
 		// Validate errors (model/params.go) on the line of the key they name.
 		{"chi at most 1", "[inputs]\nmach = 1\nchi = 1\n", 3, "chi: must be greater than 1 (got 1)", model.FieldChi},
 		{"mach zero", "[inputs]\nmach = 0\n", 2, "mach: must be greater than 0", model.FieldMach},
-		{"radius too large", "[inputs]\nchi = 100\n\nradius = 2e7\n", 4, "radius: must not exceed 1e+07 pc (got 2e+07 pc)", model.FieldRCloud},
+		{"radius too large", "[inputs]\nchi = 100\n\nradius = 2e7\n", 4, "radius: must not exceed 1e7 pc (got 2e7 pc)", model.FieldRCloud},
 		{"negative metallicity", "[inputs]\nmetallicity = -1\n", 2, "metallicity: must be at least 0", model.FieldMetallicity},
-		{"pressure too low", "[inputs]\npressure = 1e-9\n", 2, "pressure: must be at least 1e-06 K cm⁻³", model.FieldPressure},
+		{"pressure too low", "[inputs]\npressure = 1e-9\n", 2, "pressure: must be at least 1e-6 K cm⁻³", model.FieldPressure},
 		{"gamma at most 1", "[inputs]\nchi = 10\n[conventions]\ngamma = 1\n", 4, "gamma: must be greater than 1", model.FieldGamma},
 		{"hydrogen fraction above 1", "[conventions]\nhydrogen_fraction = 2\n", 2, "hydrogen_fraction: must not exceed 1", model.FieldHydrogenFraction},
 		{"mu_cloud out of range", "[conventions]\nmu_cloud = 20\n", 2, "mu_cloud: must not exceed 10", model.FieldMuCold},
