@@ -4,6 +4,8 @@ import (
 	"testing"
 
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
+	"github.com/muesli/termenv"
 
 	"cloudwind/model"
 )
@@ -83,5 +85,32 @@ func BenchmarkChartPlan(b *testing.B) {
 	req := chartRequest{view: viewPlan, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria()}
 	for b.Loop() {
 		computeChart(req)
+	}
+}
+
+// BenchmarkStepViewColour is BenchmarkStepView with 256-colour output, as
+// a terminal gets it (the colour profile is set for this benchmark only).
+func BenchmarkStepViewColour(b *testing.B) {
+	prev := lipgloss.ColorProfile()
+	lipgloss.SetColorProfile(termenv.ANSI256)
+	defer lipgloss.SetColorProfile(prev)
+	src, err := ResolveCooling("cooling", "builtin", nil, fileOpener)
+	if err != nil {
+		b.Fatal(err)
+	}
+	a, err := New(Config{Params: testParams(), Cooling: src, Criteria: model.BuiltinCriteria(), Palette: DarkPalette(), Color: true})
+	if err != nil {
+		b.Fatal(err)
+	}
+	drain(a, a.Init())
+	drain(a, func() tea.Msg { return tea.WindowSizeMsg{Width: 120, Height: 40} })
+	right, left := tea.KeyMsg{Type: tea.KeyRight}, tea.KeyMsg{Type: tea.KeyLeft}
+	for i := 0; b.Loop(); i++ {
+		k := right
+		if i%2 == 1 {
+			k = left
+		}
+		a.Update(k)
+		_ = a.View()
 	}
 }
