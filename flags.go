@@ -123,7 +123,6 @@ type scenarioFlag struct {
 	field string   // model.Field… it sets
 	kind  tui.Kind // dimension for units
 	ptr   func(*scenarioFlags) *string
-	set   func(p *model.Params, v float64)
 	def   string
 	usage string
 }
@@ -133,18 +132,18 @@ func numericScenarioFlags() []scenarioFlag {
 	fid := model.Fiducial()
 	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 	return []scenarioFlag{
-		{"chi", model.FieldChi, model.Dimensionless, func(s *scenarioFlags) *string { return &s.chi }, func(p *model.Params, v float64) { p.Chi = v }, g(fid.Chi), "density contrast χ = ρ_cloud/ρ_wind (> 1)"},
-		{"mach", model.FieldMach, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mach }, func(p *model.Params, v float64) { p.Mach = v }, g(fid.Mach), "wind Mach number against the hot adiabatic sound speed"},
-		{"pressure", model.FieldPressure, model.DimPressure, func(s *scenarioFlags) *string { return &s.pressure }, func(p *model.Params, v float64) { p.Pressure = model.Pressure(v) }, g(float64(fid.Pressure)), "pressure P/k_B in K cm-3 (or with a unit: \"1e-13 erg cm-3\")"},
-		{"t-cloud", model.FieldTCloud, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tCloud }, func(p *model.Params, v float64) { p.TCloud = model.Temperature(v) }, g(float64(fid.TCloud)), "cloud temperature in K (or \"1 keV\")"},
-		{"radius", model.FieldRCloud, model.DimLength, func(s *scenarioFlags) *string { return &s.radius }, func(p *model.Params, v float64) { p.RCloud = model.Length(v) }, "1 pc", "cloud radius: number with optional unit pc (default), kpc, au, km, m, cm"},
-		{"metallicity", model.FieldMetallicity, model.DimMetallicity, func(s *scenarioFlags) *string { return &s.metallicity }, func(p *model.Params, v float64) { p.Metallicity = v }, g(fid.Metallicity), "metallicity Z in solar units"},
-		{"gamma", model.FieldGamma, model.Dimensionless, func(s *scenarioFlags) *string { return &s.gamma }, func(p *model.Params, v float64) { p.Gamma = v }, "5/3", "adiabatic index γ"},
-		{"mu", model.FieldMu, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mu }, func(p *model.Params, v float64) { p.Mu = v }, g(model.DefaultMu), "mean molecular weight μ of both phases"},
-		{"mu-cloud", model.FieldMuCold, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muCloud }, func(p *model.Params, v float64) { p.MuCold = v }, "", "μ of the cloud, if different (then T_hot = χ T_cl μ_hot/μ_cl)"},
-		{"mu-hot", model.FieldMuHot, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muHot }, func(p *model.Params, v float64) { p.MuHot = v }, "", "μ of the wind, if different"},
-		{"hydrogen-fraction", model.FieldHydrogenFraction, model.Dimensionless, func(s *scenarioFlags) *string { return &s.hydrogen }, func(p *model.Params, v float64) { p.HydrogenFraction = v }, "", "hydrogen mass fraction X (default: that of --mixture)"},
-		{"t-floor", model.FieldTFloor, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tFloor }, func(p *model.Params, v float64) { p.TFloor = model.Temperature(v) }, "", "cooling floor in K: Λ = 0 below it (default: the cloud temperature)"},
+		{"chi", model.FieldChi, model.Dimensionless, func(s *scenarioFlags) *string { return &s.chi }, g(fid.Chi), "density contrast χ = ρ_cloud/ρ_wind (> 1)"},
+		{"mach", model.FieldMach, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mach }, g(fid.Mach), "wind Mach number against the hot adiabatic sound speed"},
+		{"pressure", model.FieldPressure, model.DimPressure, func(s *scenarioFlags) *string { return &s.pressure }, g(float64(fid.Pressure)), "pressure P/k_B in K cm-3 (or with a unit: \"1e-13 erg cm-3\")"},
+		{"t-cloud", model.FieldTCloud, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tCloud }, g(float64(fid.TCloud)), "cloud temperature in K (or \"1 keV\")"},
+		{"radius", model.FieldRCloud, model.DimLength, func(s *scenarioFlags) *string { return &s.radius }, "1 pc", "cloud radius: number with optional unit pc (default), kpc, au, km, m, cm"},
+		{"metallicity", model.FieldMetallicity, model.DimMetallicity, func(s *scenarioFlags) *string { return &s.metallicity }, g(fid.Metallicity), "metallicity Z in solar units"},
+		{"gamma", model.FieldGamma, model.Dimensionless, func(s *scenarioFlags) *string { return &s.gamma }, "5/3", "adiabatic index γ"},
+		{"mu", model.FieldMu, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mu }, g(model.DefaultMu), "mean molecular weight μ of both phases"},
+		{"mu-cloud", model.FieldMuCold, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muCloud }, "", "μ of the cloud, if different (then T_hot = χ T_cl μ_hot/μ_cl)"},
+		{"mu-hot", model.FieldMuHot, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muHot }, "", "μ of the wind, if different"},
+		{"hydrogen-fraction", model.FieldHydrogenFraction, model.Dimensionless, func(s *scenarioFlags) *string { return &s.hydrogen }, "", "hydrogen mass fraction X (default: that of --mixture)"},
+		{"t-floor", model.FieldTFloor, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tFloor }, "", "cooling floor in K: Λ = 0 below it (default: the cloud temperature)"},
 	}
 }
 
@@ -185,6 +184,19 @@ func (s *scenarioFlags) source(e *env) (*coolingSource, error) {
 
 // params parses the scenario flags into model.Params and validates them.
 func (s *scenarioFlags) params() (model.Params, error) {
+	p, err := s.parse()
+	if err != nil {
+		return p, err
+	}
+	if err := p.Validate(); err != nil {
+		return p, fieldUsage(err)
+	}
+	return p, nil
+}
+
+// parse reads the scenario flags into model.Params without validating
+// them; an empty numeric flag leaves its field zero (the default).
+func (s *scenarioFlags) parse() (model.Params, error) {
 	var p model.Params
 	if s.cooling == "-" && s.criteria == "-" {
 		return p, usagef("--cooling and --criteria cannot both read standard input")
@@ -202,7 +214,7 @@ func (s *scenarioFlags) params() (model.Params, error) {
 		if err != nil {
 			return p, usagef("--%s: %v", sf.name, err)
 		}
-		sf.set(&p, v)
+		p.SetField(sf.field, v)
 	}
 	m, ok := model.MixtureByName(s.mixture)
 	if !ok {
@@ -224,9 +236,6 @@ func (s *scenarioFlags) params() (model.Params, error) {
 		p.DensityProduct = model.N2
 	default:
 		return p, usagef("--density-product: want nh2 or n2 (got %q)", sanitizeArg(s.densityProduct))
-	}
-	if err := p.Validate(); err != nil {
-		return p, fieldUsage(err)
 	}
 	return p, nil
 }

@@ -100,15 +100,17 @@ func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers in
 			continue // a single value: keep it as a plain input
 		}
 		axes = append(axes, sweepAxis{flag: name, field: s.field, kind: s.kind, spec: spec, values: vs})
-		*s.ptr(&plain) = "" // parsed by the axis; the base takes any valid value
+		*s.ptr(&plain) = "" // parsed by the axis
 	}
-	for _, a := range axes {
-		// Give the base a valid value of each axis so that params() passes.
-		*flagsByName[a.flag].ptr(&plain) = fmt.Sprintf("%.17g", toDisplay(a, a.values[0]))
-	}
-	base, err := plain.params()
+	base, err := plain.parse()
 	if err != nil {
 		return nil, err
+	}
+	for _, a := range axes {
+		setField(&base, a.field, a.values[0]) // a valid value for the checks below
+	}
+	if err := base.Validate(); err != nil {
+		return nil, fieldUsage(err)
 	}
 	opt.base = base
 	opt.grid = newSweepGrid(axes)
@@ -131,15 +133,6 @@ func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers in
 		}
 	}
 	return opt, nil
-}
-
-// toDisplay converts an axis value back to the unit its flag reads.
-func toDisplay(a sweepAxis, v float64) float64 {
-	switch a.flag {
-	case "radius":
-		return v / float64(model.Parsec)
-	}
-	return v
 }
 
 // metallicities returns the metallicities of the sweep.

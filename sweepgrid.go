@@ -128,20 +128,7 @@ func (g *sweepGrid) apply(p *model.Params, idx []int) {
 
 // setField sets one swept input of p from its CGS value.
 func setField(p *model.Params, field string, v float64) {
-	switch field {
-	case model.FieldChi:
-		p.Chi = v
-	case model.FieldMach:
-		p.Mach = v
-	case model.FieldPressure:
-		p.Pressure = model.Pressure(v)
-	case model.FieldTCloud:
-		p.TCloud = model.Temperature(v)
-	case model.FieldRCloud:
-		p.RCloud = model.Length(v)
-	case model.FieldMetallicity:
-		p.Metallicity = v
-	default:
+	if !p.SetField(field, v) {
 		panic("cloudwind: unknown swept field " + field)
 	}
 }

@@ -196,24 +196,14 @@ func setInputKey(p *model.Params, key string, v Value) error {
 	if err != nil {
 		return err
 	}
-	switch key {
-	case model.FieldChi:
-		p.Chi = x
-	case model.FieldMach:
-		p.Mach = x
-	case model.FieldPressure:
-		p.Pressure = model.Pressure(x)
-	case model.FieldTCloud:
-		p.TCloud = model.Temperature(x)
-	case model.FieldRCloud:
-		r := model.Length(x) * model.Parsec
-		if math.IsInf(float64(r), 0) {
+	if key == model.FieldRCloud { // given in pc
+		r := x * float64(model.Parsec)
+		if math.IsInf(r, 0) {
 			return errAt(v.Line, "radius = %g pc is out of range", x)
 		}
-		p.RCloud = r
-	case model.FieldMetallicity:
-		p.Metallicity = x
+		x = r
 	}
+	p.SetField(key, x)
 	return nil
 }
 
@@ -260,20 +250,7 @@ func setConventionKey(p *model.Params, key string, v Value) error {
 		}
 		return errAt(v.Line, "%s = 0 is not accepted; leave the key out to use %s", key, def)
 	}
-	switch key {
-	case model.FieldGamma:
-		p.Gamma = x
-	case model.FieldMu:
-		p.Mu = x
-	case model.FieldMuCold:
-		p.MuCold = x
-	case model.FieldMuHot:
-		p.MuHot = x
-	case model.FieldHydrogenFraction:
-		p.HydrogenFraction = x
-	case model.FieldTFloor:
-		p.TFloor = model.Temperature(x)
-	}
+	p.SetField(key, x)
 	return nil
 }
 

@@ -478,3 +478,31 @@ func TestReevaluate(t *testing.T) {
 		t.Errorf("Reevaluate(-1, 1 pc) = %v and changed the params; want an error and no change", err)
 	}
 }
+
+// TestParamsField checks the name → field mapping against the fields
+// themselves (a format rule of Params, no physical source).
+func TestParamsField(t *testing.T) {
+	var p Params
+	names := []string{FieldChi, FieldMach, FieldPressure, FieldTCloud, FieldRCloud, FieldMetallicity,
+		FieldGamma, FieldMu, FieldMuCold, FieldMuHot, FieldHydrogenFraction, FieldTFloor}
+	for i, n := range names {
+		if !p.SetField(n, float64(i+1)) {
+			t.Fatalf("SetField(%q) refused", n)
+		}
+	}
+	want := Params{Chi: 1, Mach: 2, Pressure: 3, TCloud: 4, RCloud: 5, Metallicity: 6, Gamma: 7, Mu: 8, MuCold: 9, MuHot: 10, HydrogenFraction: 11, TFloor: 12}
+	if p != want {
+		t.Errorf("after SetField: %+v, want %+v", p, want)
+	}
+	for i, n := range names {
+		if v, ok := p.Field(n); !ok || v != float64(i+1) {
+			t.Errorf("Field(%q) = %g, %v; want %d", n, v, ok, i+1)
+		}
+	}
+	if p.SetField(FieldHeatCapacity, 1) || p.SetField("nope", 1) {
+		t.Error("SetField accepted a name that is not a numeric input")
+	}
+	if _, ok := p.Field("nope"); ok {
+		t.Error(`Field("nope") reported a value`)
+	}
+}

@@ -241,10 +241,15 @@ func (p Params) Validate() error {
 	return nil
 }
 
-// num writes v for people, as %g does but without exponent padding:
-// 1e8, not 1e+08.
-func num(v float64) string {
-	s := strconv.FormatFloat(v, 'g', 6, 64)
+// num writes v for people with six significant figures, as %g does but
+// without exponent padding: 1e8, not 1e+08.
+func num(v float64) string { return numSig(v, 6) }
+
+// num3 is num with three significant figures.
+func num3(v float64) string { return numSig(v, 3) }
+
+func numSig(v float64, sig int) string {
+	s := strconv.FormatFloat(v, 'g', sig, 64)
 	if i := strings.IndexByte(s, 'e'); i >= 0 {
 		mant, exp := s[:i], s[i+1:]
 		sign := ""
@@ -258,4 +263,56 @@ func num(v float64) string {
 		s = mant + "e" + sign + exp
 	}
 	return s
+}
+
+// numericFields maps the Field… names of the numeric inputs to their
+// Params fields: the one place that knows which name is which field.
+var numericFields = [...]struct {
+	name string
+	ptr  func(p *Params) *float64
+}{
+	{FieldChi, func(p *Params) *float64 { return &p.Chi }},
+	{FieldMach, func(p *Params) *float64 { return &p.Mach }},
+	{FieldPressure, func(p *Params) *float64 { return (*float64)(&p.Pressure) }},
+	{FieldTCloud, func(p *Params) *float64 { return (*float64)(&p.TCloud) }},
+	{FieldRCloud, func(p *Params) *float64 { return (*float64)(&p.RCloud) }},
+	{FieldMetallicity, func(p *Params) *float64 { return &p.Metallicity }},
+	{FieldGamma, func(p *Params) *float64 { return &p.Gamma }},
+	{FieldMu, func(p *Params) *float64 { return &p.Mu }},
+	{FieldMuCold, func(p *Params) *float64 { return &p.MuCold }},
+	{FieldMuHot, func(p *Params) *float64 { return &p.MuHot }},
+	{FieldHydrogenFraction, func(p *Params) *float64 { return &p.HydrogenFraction }},
+	{FieldTFloor, func(p *Params) *float64 { return (*float64)(&p.TFloor) }},
+}
+
+// field returns a pointer to the numeric input named by a Field… name.
+func (p *Params) field(name string) (*float64, bool) {
+	for _, f := range numericFields {
+		if f.name == name {
+			return f.ptr(p), true
+		}
+	}
+	return nil, false
+}
+
+// SetField sets the numeric input named by a Field… name (FieldChi,
+// FieldRCloud, …) to v in CGS (the radius in cm, pressure as P/k_B in
+// K cm⁻³). It reports false, changing nothing, for any other name. It does
+// not validate: call Validate.
+func (p *Params) SetField(name string, v float64) bool {
+	ptr, ok := p.field(name)
+	if ok {
+		*ptr = v
+	}
+	return ok
+}
+
+// Field returns the numeric input named by a Field… name, in CGS, and
+// false for any other name.
+func (p *Params) Field(name string) (float64, bool) {
+	ptr, ok := p.field(name)
+	if !ok {
+		return 0, false
+	}
+	return *ptr, true
 }

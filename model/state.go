@@ -201,9 +201,9 @@ func (s *State) rangeCautions(cf CoolingFunction) {
 		{FieldChi, "T_hot", s.THot},
 	} {
 		if c.t < lo {
-			s.Cautions = append(s.Cautions, Caution{c.field, fmt.Sprintf("%s = %.3g K is below the cooling table (from %.3g K): Λ = 0 there", c.name, float64(c.t), float64(lo))})
+			s.Cautions = append(s.Cautions, Caution{c.field, fmt.Sprintf("%s = %s K is below the cooling table (from %s K): Λ = 0 there", c.name, num3(float64(c.t)), num3(float64(lo)))})
 		} else if c.t > hi {
-			s.Cautions = append(s.Cautions, Caution{c.field, fmt.Sprintf("%s = %.3g K is above the cooling table (to %.3g K): Λ is extrapolated there", c.name, float64(c.t), float64(hi))})
+			s.Cautions = append(s.Cautions, Caution{c.field, fmt.Sprintf("%s = %s K is above the cooling table (to %s K): Λ is extrapolated there", c.name, num3(float64(c.t)), num3(float64(hi)))})
 		}
 	}
 }

@@ -98,6 +98,7 @@ type App struct {
 	scenario string
 
 	in          inputsPane
+	derived     []model.Quantity // the derived pane's rows, fixed at start
 	focus       focus
 	derivedSel  int
 	critSel     int
@@ -129,7 +130,7 @@ const maxHistory = 200
 // New returns the explorer for cfg. It evaluates the initial state; an
 // invalid one is an error (main validates before).
 func New(cfg Config) (*App, error) {
-	a := &App{cfg: cfg, keys: DefaultKeyMap(), help: help.New(), in: newInputsPane(), scenario: cfg.Scenario}
+	a := &App{cfg: cfg, keys: DefaultKeyMap(), help: help.New(), in: newInputsPane(), derived: derivedRows(), scenario: cfg.Scenario}
 	a.styles = NewStyles(cfg.Palette, cfg.Color, cfg.ASCII)
 	cf, err := cfg.Cooling.Function(cfg.Params.Metallicity)
 	if err != nil {
@@ -304,7 +305,7 @@ func (a *App) moveSelection(msg tea.KeyMsg) {
 	case focusInputs:
 		a.in.move(d)
 	case focusDerived:
-		n := len(derivedRows())
+		n := len(a.derived)
 		a.derivedSel = (a.derivedSel + d + n) % n
 	case focusCriteria:
 		n := len(a.res.Criteria)

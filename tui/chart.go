@@ -113,23 +113,10 @@ func (lc *lineRender) layout() bool {
 		lc.sx, lc.sy = 2, 4
 	}
 	lc.ys = dotScale{ylo, yhi, f.ph * lc.sy}
+	lc.x0 = 1
 	if yok {
-		ticks := pickTicks(tickSets(ylo, yhi, c.Y.Log, f.ph/2+1), func(ts []chartTick) bool {
-			rows := make([]int, len(ts))
-			for i, t := range ts {
-				rows[i] = lc.row(t.v)
-			}
-			return rowsApart(rows)
-		})
-		for _, t := range ticks {
-			lc.yt = append(lc.yt, placedTick{pos: lc.row(t.v), label: t.label})
-		}
+		lc.yt, lc.x0 = placeYTicks(ylo, yhi, c.Y.Log, f.ph, lc.row)
 	}
-	lm := 0
-	for _, t := range lc.yt {
-		lm = max(lm, len(t.label))
-	}
-	lc.x0 = lm + 1
 	lc.pw = s.w - lc.x0 - 1 // one spare column on the right for the last tick label
 	if lc.pw < minPlotWidth {
 		return false

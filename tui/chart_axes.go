@@ -263,6 +263,24 @@ func pickXTicks(sets iter.Seq[[]chartTick], col func(float64) int, w int) []plac
 
 // rowsApart reports whether consecutive rows differ by at least 2, so
 // that y-axis labels keep a blank row between them.
+// placeYTicks chooses the y-axis ticks of a plot ph rows high over
+// [lo, hi] that fit without touching, and places them with row; margin is
+// the width of the longest label plus one, where the plot starts.
+func placeYTicks(lo, hi float64, log bool, ph int, row func(float64) int) (ticks []placedTick, margin int) {
+	chosen := pickTicks(tickSets(lo, hi, log, ph/2+1), func(ts []chartTick) bool {
+		rows := make([]int, len(ts))
+		for i, t := range ts {
+			rows[i] = row(t.v)
+		}
+		return rowsApart(rows)
+	})
+	for _, t := range chosen {
+		ticks = append(ticks, placedTick{pos: row(t.v), label: t.label})
+		margin = max(margin, len(t.label))
+	}
+	return ticks, margin + 1
+}
+
 func rowsApart(rows []int) bool {
 	for i := 1; i < len(rows); i++ {
 		if d := rows[i] - rows[i-1]; d < 2 && d > -2 {

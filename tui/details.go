@@ -38,7 +38,7 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 			a.coolingDetails(wrap)
 		}
 	case focusDerived:
-		q := derivedRows()[a.derivedSel]
+		q := a.derived[a.derivedSel]
 		title = q.Symbol + " — " + q.Name
 		wrap("value:", Format(q.Dim, q.Value(&a.res.State)))
 		wrap("formula:", q.Formula)

@@ -19,13 +19,20 @@ type input struct {
 	advanced bool            // shown behind the Advanced key
 	log      bool            // steps multiply (fine and coarse in dex) instead of add
 	fine     float64         // one step: dex when log, else an absolute amount in display units
-	get      func(p *model.Params) float64
-	set      func(p *model.Params, v float64)
-	options  []string // an enumeration: cycled by the step keys
+	options  []string        // an enumeration: cycled by the step keys
 	getEnum  func(p *model.Params) int
 	setEnum  func(p *model.Params, i int)
 	about    string // one line for the details pane
 }
+
+// get returns the numeric input's value in CGS.
+func (in *input) get(p *model.Params) float64 {
+	v, _ := p.Field(in.field)
+	return v
+}
+
+// set sets the numeric input's value in CGS.
+func (in *input) set(p *model.Params, v float64) { p.SetField(in.field, v) }
 
 // isEnum reports whether the input cycles through options.
 func (in *input) isEnum() bool { return in.options != nil }
@@ -42,34 +49,24 @@ func inputs() []input {
 	}
 	return []input{
 		{label: "χ", field: model.FieldChi, dim: model.Dimensionless, log: true, fine: 0.05,
-			get: func(p *model.Params) float64 { return p.Chi }, set: func(p *model.Params, v float64) { p.Chi = v },
 			about: "density contrast ρ_cl/ρ_hot; T_hot = χ T_cl μ_hot/μ_cl"},
 		{label: "Mach", field: model.FieldMach, dim: model.Dimensionless, fine: 0.05,
-			get: func(p *model.Params) float64 { return p.Mach }, set: func(p *model.Params, v float64) { p.Mach = v },
 			about: "wind Mach number against the adiabatic sound speed of the hot gas"},
 		{label: "P/k_B", field: model.FieldPressure, dim: model.DimPressure, log: true, fine: 0.05,
-			get: func(p *model.Params) float64 { return float64(p.Pressure) }, set: func(p *model.Params, v float64) { p.Pressure = model.Pressure(v) },
 			about: "thermal pressure over Boltzmann's constant, the same in cloud and wind"},
 		{label: "Z", field: model.FieldMetallicity, dim: model.DimMetallicity, log: true, fine: 0.05,
-			get: func(p *model.Params) float64 { return p.Metallicity }, set: func(p *model.Params, v float64) { p.Metallicity = v },
 			about: "metallicity in solar units; scales the metal part of the cooling function"},
 		{label: "T_cl", field: model.FieldTCloud, dim: model.DimTemperature, log: true, fine: 0.02,
-			get: func(p *model.Params) float64 { return float64(p.TCloud) }, set: func(p *model.Params, v float64) { p.TCloud = model.Temperature(v) },
 			about: "cloud temperature (the cooling floor follows it unless T_floor is set)"},
 		{label: "r_cl", field: model.FieldRCloud, dim: model.DimLength, log: true, fine: 0.05,
-			get: func(p *model.Params) float64 { return float64(p.RCloud) }, set: func(p *model.Params, v float64) { p.RCloud = model.Length(v) },
 			about: "cloud radius"},
 		{label: "γ", field: model.FieldGamma, dim: model.Dimensionless, advanced: true, fine: 0.01,
-			get: func(p *model.Params) float64 { return p.Gamma }, set: func(p *model.Params, v float64) { p.Gamma = v },
 			about: "adiabatic index (default 5/3)"},
 		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, fine: 0.01,
-			get: func(p *model.Params) float64 { return p.MuCold }, set: func(p *model.Params, v float64) { p.MuCold = v },
 			about: "mean molecular weight of the cloud (default 0.6, as most simulations use for both phases)"},
 		{label: "μ_hot", field: model.FieldMuHot, dim: model.Dimensionless, advanced: true, fine: 0.01,
-			get: func(p *model.Params) float64 { return p.MuHot }, set: func(p *model.Params, v float64) { p.MuHot = v },
 			about: "mean molecular weight of the wind (default 0.6)"},
 		{label: "X", field: model.FieldHydrogenFraction, dim: model.Dimensionless, advanced: true, fine: 0.005,
-			get: func(p *model.Params) float64 { return p.HydrogenFraction }, set: func(p *model.Params, v float64) { p.HydrogenFraction = v },
 			about: "hydrogen mass fraction, for n_H = X ρ/m_H (default: that of the mixture)"},
 		{label: "mixture", field: "mixture", advanced: true, options: mixNames,
 			getEnum: func(p *model.Params) int {
@@ -83,7 +80,6 @@ func inputs() []input {
 			setEnum: func(p *model.Params, i int) { p.Mixture, p.HydrogenFraction = mixtures[i], mixtures[i].X },
 			about:   "solar mixture of X, Y, Z (Asplund et al. 2021 Table 4 values)"},
 		{label: "T_floor", field: model.FieldTFloor, dim: model.DimTemperature, advanced: true, log: true, fine: 0.02,
-			get: func(p *model.Params) float64 { return float64(p.TFloor) }, set: func(p *model.Params, v float64) { p.TFloor = model.Temperature(v) },
 			about: "cooling floor: Λ = 0 below it (default: the cloud temperature)"},
 		{label: "f", field: model.FieldHeatCapacity, advanced: true, options: []string{"3/2 isochoric", "5/2 isobaric"},
 			getEnum: func(p *model.Params) int { return int(p.HeatCapacity) },

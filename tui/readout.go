@@ -60,7 +60,7 @@ func tableStatus(cf model.CoolingFunction, key string, s *model.State) string {
 // and in compare mode the ratio B/A.
 func (a *App) derivedLines(w, h int) []string {
 	st := &a.styles
-	rows := derivedRows()
+	rows := a.derived
 	lines := make([]string, 0, len(rows))
 	symW := 18
 	if w < 36 {

@@ -112,23 +112,10 @@ func (rm *mapRender) layout() bool {
 		return false
 	}
 	rm.f = f
+	rm.x0 = 1
 	if yok {
-		ticks := pickTicks(tickSets(rm.ylo, rm.yhi, m.Y.Log, f.ph/2+1), func(ts []chartTick) bool {
-			rows := make([]int, len(ts))
-			for i, t := range ts {
-				rows[i] = rm.row(t.v)
-			}
-			return rowsApart(rows)
-		})
-		for _, t := range ticks {
-			rm.yt = append(rm.yt, placedTick{pos: rm.row(t.v), label: t.label})
-		}
+		rm.yt, rm.x0 = placeYTicks(rm.ylo, rm.yhi, m.Y.Log, f.ph, rm.row)
 	}
-	lm := 0
-	for _, t := range rm.yt {
-		lm = max(lm, len(t.label))
-	}
-	rm.x0 = lm + 1
 	rm.pw = s.w - rm.x0 - 1
 	if rm.pw < minPlotWidth {
 		return false
