@@ -55,7 +55,7 @@ func runCooling(e *env) error {
 	z, err := tui.ParseValue(model.DimMetallicity, metal)
 	if err != nil || z < 0 {
 		if err == nil {
-			err = fmt.Errorf("must be at least 0 (got %g)", z)
+			err = fmt.Errorf("must be at least 0 (got %s)", model.FormatNumber(z, 6))
 		}
 		return usagef("--metallicity: %v", err)
 	}
@@ -127,7 +127,7 @@ func errOrPositive(err error, v float64) error {
 	if err != nil {
 		return err
 	}
-	return fmt.Errorf("must be greater than 0 (got %g)", v)
+	return fmt.Errorf("must be greater than 0 (got %s)", model.FormatNumber(v, 6))
 }
 
 // statusOf classifies t against a curve's table, when it has one.

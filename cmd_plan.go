@@ -123,7 +123,7 @@ func parseBox(s string) (along, across float64, err error) {
 		}
 	}
 	if len(parts) == 3 && v[1] != v[2] {
-		return 0, 0, fmt.Errorf("the planner takes a square cross-section: W and H must be equal (got %g and %g)", v[1], v[2])
+		return 0, 0, fmt.Errorf("the planner takes a square cross-section: W and H must be equal (got %s and %s)", model.FormatNumber(v[1], 6), model.FormatNumber(v[2], 6))
 	}
 	return v[0], v[1], nil
 }

@@ -12,7 +12,7 @@ import (
 // coolingHelp is the usage text of --cooling.
 func coolingHelp() string {
 	var b strings.Builder
-	b.WriteString("cooling function Λ(T): a name, const:LAMBDA (erg cm3 s-1 per n_H², 10^x allowed),\npowerlaw:L0,T0,SLOPE for Λ = L0 (T/T0)^SLOPE, or a table FILE ('-' for stdin) with --table settings.\nNames:")
+	b.WriteString("cooling function Λ(T), per n_H² in erg cm3 s-1:\none of the names below; a table FILE ('-' for stdin), read with --table settings;\nconst:LAMBDA (10^x allowed); or powerlaw:L0,T0,SLOPE for Λ = L0 (T/T0)^SLOPE.\nNames:")
 	for _, c := range tui.NamedCooling() {
 		fmt.Fprintf(&b, "\n  %-19s %s", c.Name, c.Summary)
 	}

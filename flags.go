@@ -84,9 +84,16 @@ func (f *flagSet) printHelp(w io.Writer) {
 		} else {
 			fmt.Fprintf(&b, "%-28s", line)
 		}
-		b.WriteString(strings.ReplaceAll(usage, "\n", "\n"+strings.Repeat(" ", 28)))
+		// The default goes at the end of the first line of the usage, so
+		// that a multi-line usage does not seem to give it to its last line.
+		first, rest, multi := strings.Cut(usage, "\n")
+		b.WriteString(first)
 		if fl.DefValue != "" && fl.DefValue != "false" {
 			fmt.Fprintf(&b, " (default %s)", fl.DefValue)
+		}
+		if multi {
+			b.WriteString("\n" + strings.Repeat(" ", 28))
+			b.WriteString(strings.ReplaceAll(rest, "\n", "\n"+strings.Repeat(" ", 28)))
 		}
 		b.WriteByte('\n')
 	})

@@ -208,7 +208,7 @@ func (sw *sweepWorker) evaluate(i int) error {
 	if sw.cf == nil || p.Metallicity != sw.coolZ {
 		cf, err := sw.opt.cooling.Function(p.Metallicity)
 		if err != nil {
-			return fmt.Errorf("metallicity %g: %w", p.Metallicity, err)
+			return fmt.Errorf("metallicity %s: %w", model.FormatNumber(p.Metallicity, 6), err)
 		}
 		sw.cf, sw.coolZ = cf, p.Metallicity
 	}

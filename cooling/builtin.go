@@ -110,7 +110,7 @@ func newBuiltin(fsys fs.FS, name string) (*Builtin, error) {
 // Meta.Warnings says so. It returns an error for z < 0, NaN or ±Inf.
 func (b *Builtin) At(z float64) (*PowerLaw, error) {
 	if math.IsNaN(z) || math.IsInf(z, 0) || z < 0 {
-		return nil, fmt.Errorf("metallicity Z = %g Z☉: want a finite Z ≥ 0", z)
+		return nil, fmt.Errorf("metallicity Z = %s Z☉: want a finite Z ≥ 0", num(z))
 	}
 	ys := make([]float64, len(b.log10T))
 	for i := range ys {

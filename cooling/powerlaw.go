@@ -287,7 +287,7 @@ func (p *PowerLaw) String() string { return p.meta.Name }
 func Sample(f func(model.Temperature) model.CoolingRate, tMin, tMax model.Temperature, dlog float64, meta Meta) (*PowerLaw, error) {
 	a, b := math.Log10(float64(tMin)), math.Log10(float64(tMax))
 	if !(b > a) || !(dlog > 0) {
-		return nil, fmt.Errorf("cooling: bad sampling range [%g, %g] K step %g dex", float64(tMin), float64(tMax), dlog)
+		return nil, fmt.Errorf("cooling: bad sampling range [%s, %s] K step %s dex", num(float64(tMin)), num(float64(tMax)), num(dlog))
 	}
 	n := int(math.Round((b-a)/dlog)) + 1
 	if n < 2 {
@@ -298,9 +298,16 @@ func Sample(f func(model.Temperature) model.CoolingRate, tMin, tMax model.Temper
 		xs[i] = a + (b-a)*float64(i)/float64(n-1)
 		v := float64(f(model.Temperature(math.Pow(10, xs[i]))))
 		if !(v > 0) || math.IsInf(v, 0) {
-			return nil, fmt.Errorf("cooling: Λ(10^%.3f K) = %g is not a positive finite number", xs[i], v)
+			return nil, fmt.Errorf("cooling: Λ(10^%.3f K) = %s is not a positive finite number", xs[i], num(v))
 		}
 		ys[i] = math.Log10(v)
 	}
 	return NewPowerLaw(xs, ys, meta)
 }
+
+// num writes v for messages with six significant figures, without
+// exponent padding (1e6, not 1e+06).
+func num(v float64) string { return model.FormatNumber(v, 6) }
+
+// numSig is num with sig significant figures.
+func numSig(v float64, sig int) string { return model.FormatNumber(v, sig) }

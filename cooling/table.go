@@ -238,17 +238,17 @@ func (t *Table) At(z float64) (*PowerLaw, error) {
 	switch {
 	case t.hhe != nil:
 		if !(z >= 0) || math.IsInf(z, 1) {
-			return nil, fmt.Errorf("z = %g Z☉, want ≥ 0: %w", z, ErrMetallicityRange)
+			return nil, fmt.Errorf("z = %s Z☉, want ≥ 0: %w", num(z), ErrMetallicityRange)
 		}
 		if z > metalsWarnAboveZ {
-			meta.Warnings = append(meta.Warnings, fmt.Sprintf("Z = %g Z☉ is above %g Z☉: the metal column is extrapolated linearly", z, float64(metalsWarnAboveZ)))
+			meta.Warnings = append(meta.Warnings, fmt.Sprintf("Z = %s Z☉ is above %s Z☉: the metal column is extrapolated linearly", num(z), num(float64(metalsWarnAboveZ))))
 		}
 		for i := range ys {
 			ys[i] = math.Log10(t.hhe[i] + z*t.metals[i])
 		}
 	case t.z == nil:
 		if !math.IsNaN(z) {
-			meta.Warnings = append(meta.Warnings, fmt.Sprintf("the table has no metallicity: Z = %g Z☉ not applied", z))
+			meta.Warnings = append(meta.Warnings, fmt.Sprintf("the table has no metallicity: Z = %s Z☉ not applied", num(z)))
 		}
 		meta.Metallicity = math.NaN()
 		for i := range ys {
@@ -257,7 +257,7 @@ func (t *Table) At(z float64) (*PowerLaw, error) {
 	default:
 		lo, hi := t.z[0], t.z[len(t.z)-1]
 		if !(z >= lo && z <= hi) {
-			return nil, fmt.Errorf("z = %g Z☉ outside [%g, %g]: %w", z, lo, hi, ErrMetallicityRange)
+			return nil, fmt.Errorf("z = %s Z☉ outside [%s, %s]: %w", num(z), num(lo), num(hi), ErrMetallicityRange)
 		}
 		j := 0
 		for j < len(t.z)-2 && z > t.z[j+1] {
@@ -276,7 +276,7 @@ func (t *Table) At(z float64) (*PowerLaw, error) {
 	}
 	p, err := NewPowerLaw(t.log10T, ys, meta)
 	if err != nil { // the parser has established the invariants
-		return nil, fmt.Errorf("table %s at Z = %g: %w", meta.Name, z, err)
+		return nil, fmt.Errorf("table %s at Z = %s: %w", meta.Name, num(z), err)
 	}
 	return p, nil
 }

@@ -34,13 +34,13 @@ func buildTable(raw *rawTable) (*Table, error) {
 		if logT {
 			x[i] = v
 		} else if x[i] = math.Log10(v); !(v > 0) {
-			return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("T = %g K: %w", v, ErrNonPositive)}
+			return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("T = %s K: %w", num(v), ErrNonPositive)}
 		}
 		if !(math.Pow(10, x[i]) > 0) {
 			return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("T = 10^%g K underflows: %w", v, ErrNonPositive)}
 		}
 		if i > 0 && !(x[i] > x[i-1]) {
-			return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("T = %g after %g: %w", v, raw.t[i-1], ErrNotIncreasing)}
+			return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("T = %s after %s: %w", num(v), num(raw.t[i-1]), ErrNotIncreasing)}
 		}
 	}
 	// Clipping drops every row below the clip temperature.
@@ -55,12 +55,12 @@ func buildTable(raw *rawTable) (*Table, error) {
 			first++
 		}
 		if first > 0 {
-			warn = append(warn, fmt.Sprintf("%s below T = %g K dropped (clip below), %d of them with net heating", plural(first, "row"), s.clip, heating))
+			warn = append(warn, fmt.Sprintf("%s below T = %s K dropped (clip below), %d of them with net heating", plural(first, "row"), num(s.clip), heating))
 		}
 	}
 	n := len(x) - first
 	if n < 2 {
-		return nil, &ParseError{Err: fmt.Errorf("%d data rows at or above T = %g K: %w", n, s.clip, ErrTooFewRows)}
+		return nil, &ParseError{Err: fmt.Errorf("%d data rows at or above T = %s K: %w", n, num(s.clip), ErrTooFewRows)}
 	}
 	t := &Table{log10T: x[first:], names: raw.names}
 	conv, w, err := raw.conversion(first, x, logT)
@@ -78,14 +78,14 @@ func buildTable(raw *rawTable) (*Table, error) {
 					return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = 10^%g underflows: %w", col, vals[i], ErrNonPositive)}
 				}
 			} else if v < 0 || (v == 0 && !zeroOK) {
-				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %g at T = %.4g K: %w", col, v, math.Pow(10, x[i]), ErrNetHeating)}
+				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %s at T = %s K: %w", col, num(v), numSig(math.Pow(10, x[i]), 4), ErrNetHeating)}
 			}
 			switch out[k] = v * conv[k]; {
 			case math.IsInf(out[k], 0):
-				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %g after conversion: %w", col, out[k], ErrNotFinite)}
+				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %s after conversion: %w", col, num(out[k]), ErrNotFinite)}
 			case out[k] < minNormal && !(zeroOK && out[k] == 0):
 				// Subnormal values could round to 0 when interpolated in Z.
-				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %g underflows: %w", col, out[k], ErrNonPositive)}
+				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %s underflows: %w", col, num(out[k]), ErrNonPositive)}
 			}
 		}
 		return out, nil
@@ -158,7 +158,7 @@ func decideLogT(raw *rawTable, given *bool) (bool, error) {
 	case given == nil:
 		return big < 0, nil
 	case *given && big >= 0:
-		return false, &ParseError{Line: raw.line[big], Err: fmt.Errorf("T declared log10 but T = %g: %w", raw.t[big], ErrLogScale)}
+		return false, &ParseError{Line: raw.line[big], Err: fmt.Errorf("T declared log10 but T = %s: %w", num(raw.t[big]), ErrLogScale)}
 	case !*given && big < 0:
 		return false, &ParseError{Err: fmt.Errorf("T declared linear but every T is below %d K (log10?): %w", autoLogTBelow, ErrLogScale)}
 	}
@@ -185,7 +185,7 @@ func decideLogLambda(raw *rawTable, given *bool) (bool, error) {
 	case given == nil:
 		return row < 0, nil
 	case *given && row >= 0:
-		return false, &ParseError{Line: raw.line[row], Err: fmt.Errorf("Λ declared log10 but value %g ≥ 0: %w", cols[col][row], ErrLogScale)}
+		return false, &ParseError{Line: raw.line[row], Err: fmt.Errorf("Λ declared log10 but value %s ≥ 0: %w", num(cols[col][row]), ErrLogScale)}
 	case !*given && row < 0:
 		return false, &ParseError{Err: fmt.Errorf("Λ declared linear but every value is negative (log10?): %w", ErrLogScale)}
 	}
@@ -221,7 +221,7 @@ func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, [
 			v /= raw.nh[i]
 		}
 		if !(v > 0) || math.IsInf(v, 0) {
-			return 0, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: %s = %g: %w", col, what, v, ErrNonPositive)}
+			return 0, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: %s = %s: %w", col, what, num(v), ErrNonPositive)}
 		}
 		return v, nil
 	}
@@ -238,7 +238,7 @@ func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, [
 		case s.neOverNH != nil:
 			ne = s.neOverNH(model.Temperature(math.Pow(10, x[i])), s.y)
 			if !(ne > 0) || math.IsInf(ne, 0) {
-				return nil, nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("n_e/n_H = %g from NeOverNH at T = %.4g K: %w", ne, math.Pow(10, x[i]), ErrNonPositive)}
+				return nil, nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("n_e/n_H = %s from NeOverNH at T = %s K: %w", num(ne), numSig(math.Pow(10, x[i]), 4), ErrNonPositive)}
 			}
 		default:
 			ne = 1 + 2*s.y // fully ionised H+He (cooling reference §1)
@@ -259,13 +259,13 @@ func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, [
 	}
 	switch {
 	case s.neCol == 0 && s.neOverNH == nil:
-		warn = append(warn, fmt.Sprintf("n_e/n_H = 1+2y = %.4g assumed (fully ionised H+He)", 1+2*s.y))
+		warn = append(warn, fmt.Sprintf("n_e/n_H = 1+2y = %s assumed (fully ionised H+He)", numSig(1+2*s.y, 4)))
 	}
 	if lowT {
-		warn = append(warn, fmt.Sprintf("n_e/n_H below %g K comes from a fallback, not the table, and is unreliable there", fallbackNeBelow))
+		warn = append(warn, fmt.Sprintf("n_e/n_H below %s K comes from a fallback, not the table, and is unreliable there", num(fallbackNeBelow)))
 	}
 	if s.norm == PerNeNt && s.ntCol == 0 {
-		warn = append(warn, fmt.Sprintf("n_t/n_H = 1+y = %.4g assumed (metals neglected)", 1+s.y))
+		warn = append(warn, fmt.Sprintf("n_t/n_H = 1+y = %s assumed (metals neglected)", numSig(1+s.y, 4)))
 	}
 	return f, warn, nil
 }
@@ -283,8 +283,8 @@ func (raw *rawTable) plausible(log10T []float64, first int, lam, metals []float6
 			v += metals[k]
 		}
 		if !(v > plausibleMin && v < plausibleMax) {
-			return &ParseError{Line: raw.line[first+k], Err: fmt.Errorf("column %d: Λ = %.3g erg cm³ s⁻¹ per n_H² at T = %.4g K, outside (%g, %g): %w",
-				col, v, math.Pow(10, x), plausibleMin, plausibleMax, ErrImplausible)}
+			return &ParseError{Line: raw.line[first+k], Err: fmt.Errorf("column %d: Λ = %s erg cm³ s⁻¹ per n_H² at T = %s K, outside (%s, %s): %w",
+				col, numSig(v, 3), numSig(math.Pow(10, x), 4), num(plausibleMin), num(plausibleMax), ErrImplausible)}
 		}
 	}
 	return nil

@@ -341,10 +341,10 @@ func (s *settings) check() error {
 		}
 	}
 	if s.haveY && (!(s.y >= 0) || math.IsInf(s.y, 1)) {
-		return at("y", fmt.Errorf("y = %g, want finite and ≥ 0: %w", s.y, ErrSetting))
+		return at("y", fmt.Errorf("y = %s, want finite and ≥ 0: %w", num(s.y), ErrSetting))
 	}
 	if !(s.clip >= 0) || math.IsInf(s.clip, 1) {
-		return at("clip-below", fmt.Errorf("clip below %g K, want finite and ≥ 0: %w", s.clip, ErrSetting))
+		return at("clip-below", fmt.Errorf("clip below %s K, want finite and ≥ 0: %w", num(s.clip), ErrSetting))
 	}
 	return nil
 }

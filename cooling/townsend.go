@@ -206,7 +206,7 @@ func expm1Over(pw, d float64) float64 {
 func prefactor(proc Process, g Gas, t0 float64) (c, q float64, err error) {
 	nH, x := float64(g.NH), g.TotalPerH
 	if !(nH > 0) || math.IsInf(nH, 1) || !(x > 0) || math.IsInf(x, 1) {
-		return 0, 0, fmt.Errorf("n_H = %g cm⁻³, n_tot/n_H = %g: %w", nH, x, ErrBadGas)
+		return 0, 0, fmt.Errorf("n_H = %s cm⁻³, n_tot/n_H = %s: %w", num(nH), num(x), ErrBadGas)
 	}
 	const k = model.Boltzmann
 	switch proc {
@@ -221,7 +221,7 @@ func prefactor(proc Process, g Gas, t0 float64) (c, q float64, err error) {
 // checkTemperature validates a temperature argument.
 func checkTemperature(name string, t model.Temperature) error {
 	if v := float64(t); !(v > 0) || math.IsInf(v, 1) {
-		return fmt.Errorf("%s = %g K: %w", name, v, ErrBadTemperature)
+		return fmt.Errorf("%s = %s K: %w", name, num(v), ErrBadTemperature)
 	}
 	return nil
 }
@@ -230,7 +230,7 @@ func checkTemperature(name string, t model.Temperature) error {
 func (p *PowerLaw) effectiveFloor(floor model.Temperature) (tf, lf float64, err error) {
 	f := float64(floor)
 	if !(f >= 0) || math.IsInf(f, 1) {
-		return 0, 0, fmt.Errorf("floor = %g K: %w", f, ErrBadFloor)
+		return 0, 0, fmt.Errorf("floor = %s K: %w", num(f), ErrBadFloor)
 	}
 	if lnf := math.Log(f); lnf > p.lnT[0] {
 		return f, lnf, nil
@@ -290,12 +290,12 @@ func (p *PowerLaw) TimeToCool(proc Process, g Gas, t0, t1, floor model.Temperatu
 		return CoolingTime{}, err
 	}
 	if t1 > t0 {
-		return CoolingTime{}, fmt.Errorf("t1 = %g K > t0 = %g K: %w", float64(t1), float64(t0), ErrNotCooling)
+		return CoolingTime{}, fmt.Errorf("t1 = %s K > t0 = %s K: %w", num(float64(t1)), num(float64(t0)), ErrNotCooling)
 	}
 	l0, l1 := math.Log(float64(t0)), math.Log(float64(t1))
 	if l1 < lf {
 		if l1 < lf-nodeTolerance {
-			return CoolingTime{}, fmt.Errorf("t1 = %g K, effective floor %g K: %w", float64(t1), tf, ErrBelowFloor)
+			return CoolingTime{}, fmt.Errorf("t1 = %s K, effective floor %s K: %w", num(float64(t1)), num(tf), ErrBelowFloor)
 		}
 		l1 = lf
 		l0 = math.Max(l0, lf)
@@ -343,7 +343,7 @@ func (p *PowerLaw) TemperatureAfter(proc Process, g Gas, t0 model.Temperature, d
 	}
 	tau := float64(dt)
 	if !(tau >= 0) {
-		return 0, fmt.Errorf("dt = %g s: %w", tau, ErrBadTime)
+		return 0, fmt.Errorf("dt = %s s: %w", num(tau), ErrBadTime)
 	}
 	lb := math.Log(float64(t0))
 	switch {

@@ -46,7 +46,7 @@ func (c ConstantCooling) Nodes() (log10T, log10Lambda []float64) { return nil, n
 
 // String describes the function.
 func (c ConstantCooling) String() string {
-	return fmt.Sprintf("constant Λ = %.4g erg cm³ s⁻¹", float64(c.Value))
+	return fmt.Sprintf("constant Λ = %s erg cm³ s⁻¹", FormatNumber(float64(c.Value), 4))
 }
 
 // PowerLawCooling is Λ(T) = L0 (T/T0)^Slope at every temperature.
@@ -66,7 +66,7 @@ func (c PowerLawCooling) Nodes() (log10T, log10Lambda []float64) { return nil, n
 
 // String describes the function.
 func (c PowerLawCooling) String() string {
-	return fmt.Sprintf("power law Λ = %.4g (T/%.4g K)^%.4g erg cm³ s⁻¹", float64(c.L0), float64(c.T0), c.Slope)
+	return fmt.Sprintf("power law Λ = %s (T/%s K)^%s erg cm³ s⁻¹", FormatNumber(float64(c.L0), 4), FormatNumber(float64(c.T0), 4), FormatNumber(c.Slope, 4))
 }
 
 // isobarPoint is a temperature on the mixing isobar with Λ there.

@@ -174,12 +174,12 @@ func (c *Criterion) Formula() string {
 	if c.Cool == CoolNone {
 		return "no cooling: destroyed within ~3–10 t_cc"
 	}
-	rhs := fmt.Sprintf("%g", c.Alpha)
+	rhs := fmt.Sprintf("%s", num(c.Alpha))
 	if c.Beta != 0 {
 		if c.Alpha == 1 {
-			rhs = fmt.Sprintf("(χ/100)^%g", c.Beta)
+			rhs = fmt.Sprintf("(χ/100)^%s", num(c.Beta))
 		} else {
-			rhs = fmt.Sprintf("%g (χ/100)^%g", c.Alpha, c.Beta)
+			rhs = fmt.Sprintf("%s (χ/100)^%s", num(c.Alpha), num(c.Beta))
 		}
 	}
 	return fmt.Sprintf("%s / %s < %s", c.Cool.Symbol(), c.Dyn, rhs)
@@ -209,17 +209,17 @@ func (c *Criterion) Validate() error {
 		return nil
 	}
 	if math.IsNaN(c.Alpha) || math.IsInf(c.Alpha, 0) || c.Alpha <= 0 {
-		return bad("alpha", c.Alpha, fmt.Sprintf("must be a finite number greater than 0 (got %g)", c.Alpha))
+		return bad("alpha", c.Alpha, fmt.Sprintf("must be a finite number greater than 0 (got %s)", num(c.Alpha)))
 	}
 	if math.IsNaN(c.Beta) || math.IsInf(c.Beta, 0) || math.Abs(c.Beta) > 10 {
-		return bad("beta", c.Beta, fmt.Sprintf("must be a finite number between -10 and 10 (got %g)", c.Beta))
+		return bad("beta", c.Beta, fmt.Sprintf("must be a finite number between -10 and 10 (got %s)", num(c.Beta)))
 	}
 	for _, iv := range []struct {
 		name string
 		i    Interval
 	}{{"range.chi", c.Range.Chi}, {"range.mach", c.Range.Mach}, {"range.t_cloud", c.Range.TCloud}} {
 		if math.IsNaN(iv.i.Min) || math.IsNaN(iv.i.Max) || iv.i.Min > iv.i.Max {
-			return bad(iv.name, iv.i.Min, fmt.Sprintf("must be [min, max] with min ≤ max (got [%g, %g])", iv.i.Min, iv.i.Max))
+			return bad(iv.name, iv.i.Min, fmt.Sprintf("must be [min, max] with min ≤ max (got [%s, %s])", num(iv.i.Min), num(iv.i.Max)))
 		}
 	}
 	return nil

@@ -170,7 +170,7 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 	}
 	for _, v := range [...]float64{float64(s.VWind), float64(s.CsCold), float64(s.CsHot), float64(s.TSoundCold)} {
 		if !(v > 0) || math.IsInf(v, 1) {
-			return nil, fmt.Errorf("evolve: the state has v_w, c_s or t_sc = %g: derive it with Derive", v)
+			return nil, fmt.Errorf("evolve: the state has v_w, c_s or t_sc = %s: derive it with Derive", num(v))
 		}
 	}
 	if err := c.Validate(); err != nil {
@@ -181,7 +181,7 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 	tc := s.CoolingTime(set.MixCooling)
 	vmix0 := float64(MixingVelocity(set.AlphaV, s.CsCold, tc, s.TSoundCold)) // [TOG21] form; 0 when t_cool = +Inf
 	if !(vmix0 >= 0) || math.IsInf(vmix0, 1) {
-		return nil, fmt.Errorf("evolve: %s = %g s gives v_mix = %g", set.MixCooling.Symbol(), float64(tc), vmix0)
+		return nil, fmt.Errorf("evolve: %s = %s s gives v_mix = %s", set.MixCooling.Symbol(), num(float64(tc)), num(vmix0))
 	}
 	if set.Disable&TermGrowth == 0 {
 		o.g0 = 3 * set.AreaFactor * vmix0 / (o.sqrtChi * float64(s.VWind)) // t_cc,0/t_grow,0, §6.2 (derived)
@@ -198,7 +198,7 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 	if c.Cool != CoolNone { // the adiabatic baseline keeps S = 0
 		out := s.Evaluate(c)
 		if !(out.Ratio >= 0) || !(out.Threshold > 0) || math.IsInf(out.Threshold, 1) {
-			return nil, fmt.Errorf("evolve: criterion %q gives ratio %g and threshold %g", c.ID, out.Ratio, out.Threshold)
+			return nil, fmt.Errorf("evolve: criterion %q gives ratio %s and threshold %s", c.ID, num(out.Ratio), num(out.Threshold))
 		}
 		o.ratio0, o.thr = out.Ratio, out.Threshold
 	}
@@ -258,7 +258,7 @@ func Evolve(s *State, c *Criterion, set EvolveSettings) (Trajectory, error) {
 	}
 	for d.t < set.TEnd {
 		if err = d.advance(set.TEnd); err != nil {
-			err = fmt.Errorf("evolve: at t = %.6g t_cc,0: %w", d.t, err)
+			err = fmt.Errorf("evolve: at t = %s t_cc,0: %w", num(d.t), err)
 			break
 		}
 		if tr.events(o, d) {

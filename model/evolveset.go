@@ -178,11 +178,11 @@ func (s EvolveSettings) Validate() error {
 	} {
 		switch {
 		case math.IsNaN(c.v) || math.IsInf(c.v, 0):
-			return &FieldError{c.key, c.v, fmt.Sprintf("must be a finite number (got %g)", c.v), ErrNotFinite}
+			return &FieldError{c.key, c.v, fmt.Sprintf("must be a finite number (got %s)", num(c.v)), ErrNotFinite}
 		case c.open && c.v <= c.lo:
-			return &FieldError{c.key, c.v, fmt.Sprintf("must be greater than %g (got %g)", c.lo, c.v), ErrOutOfBounds}
+			return &FieldError{c.key, c.v, fmt.Sprintf("must be greater than %s (got %s)", num(c.lo), num(c.v)), ErrOutOfBounds}
 		case c.v < c.lo || c.v > c.hi:
-			return &FieldError{c.key, c.v, fmt.Sprintf("must lie in [%g, %g] (got %g)", c.lo, c.hi, c.v), ErrOutOfBounds}
+			return &FieldError{c.key, c.v, fmt.Sprintf("must lie in [%s, %s] (got %s)", num(c.lo), num(c.hi), num(c.v)), ErrOutOfBounds}
 		}
 	}
 	unknown := func(key string, v int) error {

@@ -191,3 +191,8 @@ func ExampleEvolveSettings_Constants() {
 	// v0/v_w             0
 	// value from memory — check the paper; the form v_mix ∝ c_s,cl (t_cool/t_sc,cl)^-1/4 is confirmed (Tan, Oh & Gronke 2021, abstract)
 }
+
+func ExampleFormatNumber() {
+	fmt.Println(model.FormatNumber(1e8, 6), model.FormatNumber(2.5e-5, 6), model.FormatNumber(123456.7, 3), model.FormatNumber(-0.1, 6))
+	// Output: 1e8 2.5e-5 1.23e5 -0.1
+}

@@ -243,12 +243,15 @@ func (p Params) Validate() error {
 
 // num writes v for people with six significant figures, as %g does but
 // without exponent padding: 1e8, not 1e+08.
-func num(v float64) string { return numSig(v, 6) }
+func num(v float64) string { return FormatNumber(v, 6) }
 
 // num3 is num with three significant figures.
-func num3(v float64) string { return numSig(v, 3) }
+func num3(v float64) string { return FormatNumber(v, 3) }
 
-func numSig(v float64, sig int) string {
+// FormatNumber writes v with sig significant figures as %g does, but
+// without exponent padding or a plus sign: 1e8 and 2.5e-5, not 1e+08 and
+// 2.5e-05. It is meant for messages; displays have their own formatter.
+func FormatNumber(v float64, sig int) string {
 	s := strconv.FormatFloat(v, 'g', sig, 64)
 	if i := strings.IndexByte(s, 'e'); i >= 0 {
 		mant, exp := s[:i], s[i+1:]

@@ -149,16 +149,16 @@ func (p PlanSettings) Validate() error {
 		switch {
 		case c.v == 0: // the default
 		case math.IsNaN(c.v) || math.IsInf(c.v, 0):
-			return &FieldError{c.field, c.v, fmt.Sprintf("must be a finite number (got %g)", c.v), ErrNotFinite}
+			return &FieldError{c.field, c.v, fmt.Sprintf("must be a finite number (got %s)", num(c.v)), ErrNotFinite}
 		case c.v < c.lo || c.v > c.hi:
-			return &FieldError{c.field, c.v, fmt.Sprintf("must be 0 (the default) or from %g to %g (got %g)", c.lo, c.hi, c.v), ErrOutOfBounds}
+			return &FieldError{c.field, c.v, fmt.Sprintf("must be 0 (the default) or from %s to %s (got %s)", num(c.lo), num(c.hi), num(c.v)), ErrOutOfBounds}
 		}
 	}
 	if p.Question < QuestionGrowth || p.Question > QuestionDestruction {
 		return &FieldError{FieldQuestion, float64(p.Question), fmt.Sprintf("unknown question %d", int(p.Question)), ErrUnknown}
 	}
 	if d := p.DisplacementRcl; p.DisplacementKnown && !(d >= 0 && d <= 1e7) {
-		return &FieldError{FieldDisplacement, d, fmt.Sprintf("must be a finite displacement from 0 to 1e+07 r_cl (got %g)", d), ErrOutOfBounds}
+		return &FieldError{FieldDisplacement, d, fmt.Sprintf("must be a finite displacement from 0 to 1e7 r_cl (got %s)", num(d)), ErrOutOfBounds}
 	}
 	return nil
 }
@@ -396,7 +396,7 @@ func (pl *Plan) box(s *State, q PlanSettings, disp DisplacementFunc) {
 	}
 	pl.DisplacementRcl = x
 	auto := q.UpstreamRcl + x + q.TailRcl
-	pl.BoxRule = fmt.Sprintf("%.3g upstream + %.3g displacement (%s) + %.3g tail", q.UpstreamRcl, x, how, q.TailRcl)
+	pl.BoxRule = fmt.Sprintf("%s upstream + %s displacement (%s) + %s tail", num3(q.UpstreamRcl), num3(x), how, num3(q.TailRcl))
 	pl.BoxAlongRcl = auto
 	if q.BoxAlongRcl > 0 {
 		pl.BoxAlongRcl, pl.BoxRule = q.BoxAlongRcl, "set by the user; automatic would be "+pl.BoxRule
@@ -481,7 +481,7 @@ func (pl *Plan) warnings(s *State, q PlanSettings) {
 	yirak := "radiative runs did not self-converge even at 100 cells/r_cl: plan a resolution study"
 	lvl = LevelInfo
 	if R < 100 {
-		yirak = fmt.Sprintf("R = %.3g < ~100 cells/r_cl, where an adiabatic clump converges; %s", R, yirak)
+		yirak = fmt.Sprintf("R = %s < ~100 cells/r_cl, where an adiabatic clump converges; %s", num3(R), yirak)
 		if q.Question == QuestionDestruction {
 			lvl = LevelCaution
 		}
