@@ -9,6 +9,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"cloudwind/internal/suggest"
 	"cloudwind/model"
 	"cloudwind/tui"
 )
@@ -122,7 +123,7 @@ func selectCriteria(cs []model.Criterion, id string) ([]model.Criterion, error) 
 		ids = append(ids, c.ID)
 	}
 	msg := fmt.Sprintf("--criterion: unknown id %q", sanitizeArg(id))
-	if s := suggest(id, ids); s != "" {
+	if s := suggest.Closest(id, ids); s != "" {
 		msg += fmt.Sprintf(" (did you mean %q?)", s)
 	} else {
 		msg += " (want one of " + strings.Join(ids, ", ") + ", or all)"

@@ -25,7 +25,8 @@ const evalExamples = `  cloudwind eval
   cloudwind eval --chi 300 --mach 1.5 --pressure 3e3 --radius "10 pc"
   cloudwind eval --radius 0.2kpc --heat-capacity isobaric --density-product n2
   cloudwind eval --cooling powerlaw:4e-22,1e5,-0.7 --format json
-  cloudwind eval --criteria my-criteria.toml`
+  cloudwind eval --criteria my-criteria.toml
+  cloudwind eval --scenario my-run.toml --mach 2   # a saved scenario, with one input changed`
 
 func runEval(e *env) error {
 	f := newFlagSet("eval", evalSynopsis, evalExamples)
@@ -71,7 +72,14 @@ func writeEvalText(w io.Writer, sc *scenario) error {
 	r := &sc.res
 	q := r.Params
 	var b strings.Builder
-	fmt.Fprintf(&b, "Scenario\n")
+	switch {
+	case sc.file != "" && sc.name != "":
+		fmt.Fprintf(&b, "Scenario %q (%s)\n", sanitizeArg(sc.name), sanitizeArg(sc.file))
+	case sc.file != "":
+		fmt.Fprintf(&b, "Scenario (%s)\n", sanitizeArg(sc.file))
+	default:
+		fmt.Fprintf(&b, "Scenario\n")
+	}
 	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
 	row := func(cells ...string) { fmt.Fprintln(tw, "  "+strings.Join(cells, "\t")) }
 	row("χ (density contrast)", tui.Number(model.Dimensionless, q.Chi))

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"io"
 	"os"
-	"path/filepath"
 
 	"cloudwind/config"
 
@@ -29,7 +28,6 @@ func runExplore(e *env) error {
 	f := newFlagSet("explore", exploreSynopsis, exploreExamples)
 	var sf scenarioFlags
 	sf.register(f)
-	scenarioPath := f.fs.String("scenario", "", "start from this scenario file (TOML; see README)")
 	demo := f.fs.Int("demo", 1, "start from demo scenario N (fictional settings) when no inputs are given")
 	palette := f.fs.String("palette", "dark", "colours: dark or light (for projectors with a white screen)")
 	ascii := f.fs.Bool("ascii", false, "draw charts and borders with plain ASCII, no braille")
@@ -61,25 +59,15 @@ func runExplore(e *env) error {
 		flagsGiven = flagsGiven || f.set(n)
 	}
 	switch {
-	case *scenarioPath != "":
-		r, name, closeFn, err := openInput(e, *scenarioPath)
-		if err != nil {
-			return fmt.Errorf("--scenario: %w", err)
-		}
-		sc, err = config.ParseScenario(r, name)
-		closeFn()
-		if err != nil {
-			return fmt.Errorf("--scenario: %w", err)
-		}
-		if sc.Cooling != "" && !filepath.IsAbs(sc.Cooling) && !isNamedOrAnalytic(sc.Cooling) {
-			sc.Cooling = filepath.Join(filepath.Dir(*scenarioPath), sc.Cooling)
-		}
-	case flagsGiven:
-		p, err := sf.params()
+	case sf.scenario != "" || flagsGiven:
+		p, err := sf.params(e)
 		if err != nil {
 			return err
 		}
 		sc = config.Scenario{Params: p, Cooling: sf.cooling, Table: sf.table}
+		if sf.base != nil {
+			sc.Name, sc.Description = sf.base.Name, sf.base.Description
+		}
 	default:
 		if *demo < 1 || *demo > len(demos) {
 			return usagef("--demo: want 1 to %d (got %d)", len(demos), *demo)

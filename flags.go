@@ -6,11 +6,13 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"path/filepath"
 	"sort"
 	"strconv"
 	"strings"
 
 	"cloudwind/config"
+	"cloudwind/internal/suggest"
 	"cloudwind/model"
 	"cloudwind/tui"
 )
@@ -59,7 +61,7 @@ func (f *flagSet) explain(err error) error {
 		var names []string
 		f.fs.VisitAll(func(fl *flag.Flag) { names = append(names, fl.Name) })
 		hint := fmt.Sprintf("run 'cloudwind %s --help' for the flags", f.cmd)
-		if s := suggest(name, names); s != "" {
+		if s := suggest.Closest(name, names); s != "" {
 			hint = fmt.Sprintf("did you mean --%s?", s)
 		}
 		return usagef("unknown flag --%s (%s)", sanitizeArg(name), hint)
@@ -122,6 +124,10 @@ type scenarioFlags struct {
 	mixture, heatCapacity, densityProduct            string
 	cooling, criteria                                string
 	table                                            tableSettings
+
+	scenario string           // --scenario: a scenario file that gives the base inputs
+	fs       *flagSet         // the flag set registered on, to tell given flags from defaults
+	base     *config.Scenario // the loaded --scenario file, after load
 }
 
 // scenarioFlag describes one numeric scenario flag.
@@ -168,6 +174,44 @@ func (s *scenarioFlags) register(f *flagSet) {
 	f.fs.StringVar(&s.densityProduct, "density-product", "nh2", "𝒩 in t_cool: nh2 (n_H², physical) or n2 (n², total particles)")
 	registerCoolingFlags(f, &s.cooling, &s.table, "cooling", "table")
 	f.fs.StringVar(&s.criteria, "criteria", "", "TOML file that corrects or adds criteria ('-' for stdin)")
+	f.fs.StringVar(&s.scenario, "scenario", "", "start from this scenario file (TOML, as the explorer saves it; see README);\nthe other flags given override its values")
+	s.fs = f
+}
+
+// given reports whether the named flag was on the command line.
+func (s *scenarioFlags) given(name string) bool { return s.fs != nil && s.fs.set(name) }
+
+// load reads the --scenario file, if one is named, into s.base, and takes
+// its cooling function and table settings unless --cooling or --table were
+// given. A table path in the file is relative to the file's directory. It
+// is called once, before parse and source.
+func (s *scenarioFlags) load(e *env) error {
+	if s.scenario == "" || s.base != nil {
+		return nil
+	}
+	if s.scenario == "-" && (s.cooling == "-" || s.criteria == "-") {
+		return usagef("only one of --scenario, --cooling and --criteria can read standard input")
+	}
+	r, name, closeFn, err := openInput(e, s.scenario)
+	if err != nil {
+		return fmt.Errorf("--scenario: %w", err)
+	}
+	sc, err := config.ParseScenario(r, name)
+	closeFn()
+	if err != nil {
+		return fmt.Errorf("--scenario: %w", err)
+	}
+	if sc.Cooling != "" && s.scenario != "-" && !filepath.IsAbs(sc.Cooling) && !isNamedOrAnalytic(sc.Cooling) {
+		sc.Cooling = filepath.Join(filepath.Dir(s.scenario), sc.Cooling)
+	}
+	if !s.given("cooling") && sc.Cooling != "" {
+		s.cooling = sc.Cooling
+		if !s.given("table") {
+			s.table = tableSettings(sc.Table)
+		}
+	}
+	s.base = &sc
+	return nil
 }
 
 // flagForField maps a model.Field… name to the flag that sets it.
@@ -189,8 +233,12 @@ func (s *scenarioFlags) source(e *env) (*coolingSource, error) {
 	return resolveCooling(e, "--cooling", s.cooling, s.table)
 }
 
-// params parses the scenario flags into model.Params and validates them.
-func (s *scenarioFlags) params() (model.Params, error) {
+// params loads the --scenario file, parses the scenario flags over it into
+// model.Params and validates them.
+func (s *scenarioFlags) params(e *env) (model.Params, error) {
+	if err := s.load(e); err != nil {
+		return model.Params{}, err
+	}
 	p, err := s.parse()
 	if err != nil {
 		return p, err
@@ -202,13 +250,23 @@ func (s *scenarioFlags) params() (model.Params, error) {
 }
 
 // parse reads the scenario flags into model.Params without validating
-// them; an empty numeric flag leaves its field zero (the default).
+// them; an empty numeric flag leaves its field zero (the default). Over a
+// loaded --scenario file only the flags given on the command line apply.
 func (s *scenarioFlags) parse() (model.Params, error) {
 	var p model.Params
 	if s.cooling == "-" && s.criteria == "-" {
 		return p, usagef("--cooling and --criteria cannot both read standard input")
 	}
+	// apply reports whether a flag is to be read: always without a
+	// scenario file, and over one only when given.
+	apply := func(name string) bool { return s.base == nil || s.given(name) }
+	if s.base != nil {
+		p = s.base.Params
+	}
 	for _, sf := range numericScenarioFlags() {
+		if !apply(sf.name) {
+			continue
+		}
 		raw := strings.TrimSpace(*sf.ptr(s))
 		if raw == "" {
 			continue // optional: model default
@@ -223,26 +281,32 @@ func (s *scenarioFlags) parse() (model.Params, error) {
 		}
 		p.SetField(sf.field, v)
 	}
-	m, ok := model.MixtureByName(s.mixture)
-	if !ok {
-		return p, usagef("--mixture: unknown mixture %q (want one of %s)", sanitizeArg(s.mixture), mixtureNames())
+	if apply("mixture") {
+		m, ok := model.MixtureByName(s.mixture)
+		if !ok {
+			return p, usagef("--mixture: unknown mixture %q (want one of %s)", sanitizeArg(s.mixture), mixtureNames())
+		}
+		p.Mixture = m
 	}
-	p.Mixture = m
-	switch s.heatCapacity {
-	case "isochoric":
-		p.HeatCapacity = model.Isochoric
-	case "isobaric":
-		p.HeatCapacity = model.Isobaric
-	default:
-		return p, usagef("--heat-capacity: want isochoric or isobaric (got %q)", sanitizeArg(s.heatCapacity))
+	if apply("heat-capacity") {
+		switch s.heatCapacity {
+		case "isochoric":
+			p.HeatCapacity = model.Isochoric
+		case "isobaric":
+			p.HeatCapacity = model.Isobaric
+		default:
+			return p, usagef("--heat-capacity: want isochoric or isobaric (got %q)", sanitizeArg(s.heatCapacity))
+		}
 	}
-	switch s.densityProduct {
-	case "nh2":
-		p.DensityProduct = model.NH2
-	case "n2":
-		p.DensityProduct = model.N2
-	default:
-		return p, usagef("--density-product: want nh2 or n2 (got %q)", sanitizeArg(s.densityProduct))
+	if apply("density-product") {
+		switch s.densityProduct {
+		case "nh2":
+			p.DensityProduct = model.NH2
+		case "n2":
+			p.DensityProduct = model.N2
+		default:
+			return p, usagef("--density-product: want nh2 or n2 (got %q)", sanitizeArg(s.densityProduct))
+		}
 	}
 	return p, nil
 }
@@ -250,6 +314,8 @@ func (s *scenarioFlags) parse() (model.Params, error) {
 // scenario is a parsed and evaluated scenario of the single-point
 // commands (eval, evolve, plan).
 type scenario struct {
+	name     string // the --scenario file's name for it, or ""
+	file     string // the --scenario file, or ""
 	params   model.Params
 	cooling  *coolingSource
 	cf       model.CoolingFunction // the cooling function at params.Metallicity
@@ -262,8 +328,11 @@ type scenario struct {
 func (s *scenarioFlags) evaluate(e *env) (*scenario, error) {
 	var sc scenario
 	var err error
-	if sc.params, err = s.params(); err != nil {
+	if sc.params, err = s.params(e); err != nil {
 		return nil, err
+	}
+	if s.base != nil {
+		sc.name, sc.file = s.base.Name, s.scenario
 	}
 	if sc.cooling, err = s.source(e); err != nil {
 		return nil, err
@@ -333,9 +402,6 @@ func loadCriteria(e *env, path string) ([]model.Criterion, error) {
 	}
 	return cs, nil
 }
-
-// suggest returns the candidate closest to s, if it is a likely typo.
-func suggest(s string, candidates []string) string { return tui.Suggest(s, candidates) }
 
 // sanitizeArg makes user text safe to echo to a terminal.
 func sanitizeArg(s string) string {

@@ -18,6 +18,8 @@ import (
 	"os"
 	"runtime/debug"
 	"strings"
+
+	"cloudwind/internal/suggest"
 )
 
 // version is the program version; release builds may set it with
@@ -98,7 +100,7 @@ func run(e *env) int {
 		return report(e, "explore", runExplore(e))
 	}
 	msg := fmt.Sprintf("unknown command %q", sanitizeArg(name))
-	if s := suggest(name, commandNames()); s != "" {
+	if s := suggest.Closest(name, commandNames()); s != "" {
 		msg += fmt.Sprintf(" (did you mean %q?)", s)
 	}
 	fmt.Fprintf(e.stderr, "cloudwind: %s; run 'cloudwind help' for the list\n", msg)

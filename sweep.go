@@ -87,6 +87,9 @@ func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers in
 	for _, s := range numericScenarioFlags() {
 		flagsByName[s.name] = s
 	}
+	if err := sf.load(e); err != nil {
+		return nil, err
+	}
 	var axes []sweepAxis
 	plain := *sf
 	for _, name := range sweepAxisOrder {

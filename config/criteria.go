@@ -11,6 +11,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	suggestpkg "cloudwind/internal/suggest"
 	"cloudwind/model"
 )
 
@@ -395,50 +396,10 @@ func unknownKey(key string, line int, table string, known []string) error {
 }
 
 // suggest returns ` (did you mean "K"?)` for the known K closest to word,
-// or "" when none is close.
+// or "" when none is close (suggest.Closest).
 func suggest(word string, known []string) string {
-	if len(word) > 64 {
-		return ""
+	if k := suggestpkg.Closest(word, known); k != "" {
+		return fmt.Sprintf(" (did you mean %q?)", k)
 	}
-	lw := strings.ToLower(word)
-	best, bestD := "", math.MaxInt
-	for _, k := range known {
-		if d := editDistance(lw, k); d < bestD {
-			best, bestD = k, d
-		}
-	}
-	limit := 1
-	if utf8.RuneCountInString(word) >= 6 {
-		limit = 2
-	}
-	if best == "" || bestD > limit {
-		return ""
-	}
-	return fmt.Sprintf(" (did you mean %q?)", best)
-}
-
-// editDistance returns the optimal-string-alignment distance of a and b:
-// insertions, deletions, substitutions and swaps of neighbours cost 1.
-func editDistance(a, b string) int {
-	s, t := []rune(a), []rune(b)
-	rows := [3][]int{make([]int, len(t)+1), make([]int, len(t)+1), make([]int, len(t)+1)}
-	for j := range rows[1] {
-		rows[1][j] = j
-	}
-	for i := 1; i <= len(s); i++ {
-		prev2, prev, cur := rows[0], rows[1], rows[2]
-		cur[0] = i
-		for j := 1; j <= len(t); j++ {
-			cost := 1
-			if s[i-1] == t[j-1] {
-				cost = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
-			if i > 1 && j > 1 && s[i-1] == t[j-2] && s[i-2] == t[j-1] {
-				cur[j] = min(cur[j], prev2[j-2]+1)
-			}
-		}
-		rows[0], rows[1], rows[2] = prev, cur, prev2
-	}
-	return rows[1][len(t)]
+	return ""
 }

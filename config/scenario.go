@@ -223,7 +223,7 @@ func setConventionKey(p *model.Params, key string, v Value) error {
 			for _, m := range model.Mixtures() {
 				names = append(names, m.Name)
 			}
-			return errAt(v.Line, "unknown mixture %q (want one of %s)%s", clip(s), strings.Join(names, ", "), suggestName(s, names))
+			return errAt(v.Line, "unknown mixture %q (want one of %s)%s", clip(s), strings.Join(names, ", "), suggest(s, names))
 		}
 		p.Mixture = m
 		return nil
@@ -252,21 +252,6 @@ func setConventionKey(p *model.Params, key string, v Value) error {
 	}
 	p.SetField(key, x)
 	return nil
-}
-
-// suggestName is suggest for known names that are not all lower case.
-func suggestName(word string, names []string) string {
-	lower := make([]string, len(names))
-	for i, n := range names {
-		lower[i] = strings.ToLower(n)
-	}
-	s := suggest(word, lower)
-	for i, l := range lower {
-		if s == fmt.Sprintf(" (did you mean %q?)", l) {
-			return fmt.Sprintf(" (did you mean %q?)", names[i])
-		}
-	}
-	return s
 }
 
 // choiceValue returns the option whose String form the string value v is.

@@ -11,6 +11,7 @@ import (
 	"sync"
 
 	"cloudwind/cooling"
+	"cloudwind/internal/suggest"
 	"cloudwind/model"
 )
 
@@ -160,7 +161,7 @@ func loadTable(flag, path string, settings []string, open Opener) (*CoolingSourc
 				names = append(names, c.Name)
 			}
 			hint := "see the list of names in the help"
-			if s := Suggest(path, append(names, "const:", "powerlaw:")); s != "" {
+			if s := suggest.Closest(path, append(names, "const:", "powerlaw:")); s != "" {
 				hint = fmt.Sprintf("did you mean %q?", s)
 			}
 			return nil, specErrorf("%s: %q is neither a cooling function name nor a file (%s)", flag, Sanitize(path), hint)
