@@ -91,16 +91,6 @@ func runExplore(e *env) error {
 	return tui.Run(cfg)
 }
 
-// isNamedOrAnalytic reports whether a cooling spec is not a file.
-func isNamedOrAnalytic(spec string) bool {
-	for _, c := range tui.NamedCooling() {
-		if c.Name == spec {
-			return true
-		}
-	}
-	return len(spec) > 6 && (spec[:6] == "const:" || len(spec) > 9 && spec[:9] == "powerlaw:")
-}
-
 // isTerminalReader reports whether r is a terminal.
 func isTerminalReader(r io.Reader) bool {
 	f, ok := r.(*os.File)

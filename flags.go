@@ -201,8 +201,8 @@ func (s *scenarioFlags) load(e *env) error {
 	if err != nil {
 		return fmt.Errorf("--scenario: %w", err)
 	}
-	if sc.Cooling != "" && s.scenario != "-" && !filepath.IsAbs(sc.Cooling) && !isNamedOrAnalytic(sc.Cooling) {
-		sc.Cooling = filepath.Join(filepath.Dir(s.scenario), sc.Cooling)
+	if s.scenario != "-" {
+		sc.Cooling = tui.ScenarioCooling(sc.Cooling, filepath.Dir(s.scenario))
 	}
 	if !s.given("cooling") && sc.Cooling != "" {
 		s.cooling = sc.Cooling

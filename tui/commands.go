@@ -141,11 +141,20 @@ func resolveScenario(sc config.Scenario, open Opener, dir string) scenarioMsg {
 	if spec == "" {
 		spec = DefaultCooling
 	}
-	if !isNamedOrAnalytic(spec) && !filepath.IsAbs(spec) && dir != "" {
-		spec = filepath.Join(dir, spec)
-	}
+	spec = ScenarioCooling(spec, dir)
 	src, err := ResolveCooling("scenario cooling", spec, sc.Table, open)
 	return scenarioMsg{sc: sc, src: src, err: err}
+}
+
+// ScenarioCooling returns the cooling spec of a scenario file that lies in
+// dir: a relative table path is taken relative to dir; names, formulas,
+// absolute paths and "" are returned unchanged, and so is every spec when
+// dir is "" (a file read from standard input).
+func ScenarioCooling(spec, dir string) string {
+	if spec == "" || dir == "" || isNamedOrAnalytic(spec) || filepath.IsAbs(spec) {
+		return spec
+	}
+	return filepath.Join(dir, spec)
 }
 
 // applyScenario switches to a loaded scenario; a bad one leaves the
