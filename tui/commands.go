@@ -2,6 +2,7 @@ package tui
 
 import (
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"path/filepath"
@@ -192,10 +193,40 @@ func (a *App) currentScenario() config.Scenario {
 	return config.Scenario{Name: name, Params: a.cur.params, Cooling: a.cur.cooling.Spec, Table: a.cur.cooling.Table}
 }
 
-// saveScenario writes sc to path atomically in a command.
+// savedCooling returns the cooling spec as a scenario file at path must
+// name it, the inverse of ScenarioCooling: a table path relative to the
+// file's directory (absolute where no relative path exists). A table read
+// from standard input cannot be named, and is an error.
+func savedCooling(spec, path string) (string, error) {
+	if spec == "" || isNamedOrAnalytic(spec) {
+		return spec, nil
+	}
+	if spec == "-" {
+		return "", errors.New("the cooling table was read from standard input, which a scenario file cannot name: give the cooling input (a: more inputs) a file first")
+	}
+	abs, err := filepath.Abs(spec)
+	if err != nil {
+		return "", fmt.Errorf("cooling table %s: %w", Sanitize(spec), err)
+	}
+	dir, err := filepath.Abs(filepath.Dir(path))
+	if err != nil {
+		return abs, nil
+	}
+	if rel, err := filepath.Rel(dir, abs); err == nil {
+		return rel, nil
+	}
+	return abs, nil
+}
+
+// saveScenario writes sc to path atomically in a command; a table path in
+// sc is rewritten relative to path's directory.
 func saveScenario(path string, sc config.Scenario) tea.Cmd {
 	return func() tea.Msg {
-		err := WriteFileAtomic(path, func(w io.Writer) error { return config.WriteScenario(w, sc) })
+		var err error
+		if sc.Cooling, err = savedCooling(sc.Cooling, path); err != nil {
+			return statusMsg{"not saved: " + oneLine(err.Error()), true}
+		}
+		err = WriteFileAtomic(path, func(w io.Writer) error { return config.WriteScenario(w, sc) })
 		if err != nil {
 			return statusMsg{oneLine(err.Error()), true}
 		}
