@@ -147,7 +147,7 @@ func numericScenarioFlags() []scenarioFlag {
 	return []scenarioFlag{
 		{"chi", model.FieldChi, model.Dimensionless, func(s *scenarioFlags) *string { return &s.chi }, g(fid.Chi), "density contrast χ = ρ_cloud/ρ_wind (> 1)"},
 		{"mach", model.FieldMach, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mach }, g(fid.Mach), "wind Mach number against the hot adiabatic sound speed"},
-		{"pressure", model.FieldPressure, model.DimPressure, func(s *scenarioFlags) *string { return &s.pressure }, g(float64(fid.Pressure)), "pressure P/k_B in K cm-3 (or with a unit: \"1e-13 erg cm-3\")"},
+		{"pressure", model.FieldPressure, model.DimPressure, func(s *scenarioFlags) *string { return &s.pressure }, g(float64(fid.Pressure)), "pressure P/k_B in K cm-3 (or with a unit: \"1e-13 erg cm-3\", \"1e-14 Pa\")"},
 		{"t-cloud", model.FieldTCloud, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tCloud }, g(float64(fid.TCloud)), "cloud temperature in K (or \"1 keV\")"},
 		{"radius", model.FieldRCloud, model.DimLength, func(s *scenarioFlags) *string { return &s.radius }, "1 pc", "cloud radius: number with optional unit pc (default), kpc, au, km, m, cm"},
 		{"metallicity", model.FieldMetallicity, model.DimMetallicity, func(s *scenarioFlags) *string { return &s.metallicity }, g(fid.Metallicity), "metallicity Z in solar units"},

@@ -69,6 +69,8 @@ func TestParseValue(t *testing.T) {
 		{model.DimPressure, "2e3", 2e3},
 		{model.DimPressure, "1e3 K cm-3", 1e3},
 		{model.DimPressure, "1.380649e-13 erg cm-3", 1e3},
+		{model.DimPressure, "1.380649e-14 Pa", 1e3}, // 1 Pa = 10 erg cm⁻³ (SI definition); k_B CODATA 2018 exact
+		{model.DimPressure, "1.380649e-14 J m-3", 1e3},
 		{model.DimTime, "2 Myr", 2 * float64(model.Megayear)},
 		{model.Dimensionless, "  100 ", 100},
 		{model.Dimensionless, "-3.5e+2", -350},
@@ -94,6 +96,8 @@ func TestParseValue(t *testing.T) {
 		{model.Dimensionless, "100 pc", "takes no unit"},
 		{model.DimLength, "3\x1b[31m pc", "unknown unit"},
 		{model.DimTemperature, "1e4 C", "use K, keV, eV"},
+		{model.DimTemperature, "1 kev", `did you mean "keV"?`},
+		{model.DimLength, "3 kcp", `did you mean "kpc"?`},
 	}
 	for _, c := range bad {
 		_, err := ParseValue(c.k, c.in)

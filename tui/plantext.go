@@ -23,7 +23,7 @@ func PlanText(pl *model.Plan) string {
 	row("resolution", "R = %s cells per r_cl, Δx = %s  (advised ≥ %s: %s)", FormatSig(q.CellsPerRadius, 3),
 		Format(model.DimLength, float64(pl.Dx)), FormatSig(pl.AdvisedCellsPerRadius, 3), pl.AdvisedSource)
 	row("box", "%s × %s × %s r_cl  (%s)", FormatSig(pl.BoxAlongRcl, 3), FormatSig(pl.BoxAcrossRcl, 3), FormatSig(pl.BoxAcrossRcl, 3), pl.BoxRule)
-	row("cells", "%s, time step Δt = %s, steps %s", FormatSig(pl.Cells, 3), Format(model.DimTime, float64(pl.Dt)), FormatSig(pl.Steps, 5))
+	row("cells", "%s, time step Δt = %s, steps %s", FormatSig(pl.Cells, 3), Format(model.DimTime, float64(pl.Dt)), FormatSig(pl.Steps, 3))
 	row("cost", "%s cell-updates = %s core-hours at %s cell-updates per core-second (set --throughput)", FormatSig(pl.CellUpdates, 3),
 		FormatSig(pl.CoreHours, 3), FormatSig(q.CellUpdatesPerCoreSecond, 3))
 	row("memory", "%s bytes (%s GB) at %s bytes per cell", FormatSig(pl.MemoryBytes, 3), FormatSig(pl.MemoryBytes/1e9, 3), FormatSig(q.BytesPerCell, 3))

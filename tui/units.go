@@ -8,6 +8,7 @@ import (
 	"strings"
 	"unicode"
 
+	"cloudwind/internal/suggest"
 	"cloudwind/model"
 )
 
@@ -41,6 +42,8 @@ var inputUnits = map[Kind][]inputUnit{
 	model.DimPressure: {
 		{names: []string{"K cm-3", "K cm^-3", "K cm⁻³", "K/cm3", "K/cm^3", "K / cm3"}, factor: 1},
 		{names: []string{"erg cm-3", "erg/cm3", "erg cm^-3", "dyn cm-2", "dyn/cm2", "erg / cm3"}, factor: 1 / model.Boltzmann},
+		// 1 Pa = 1 J m⁻³ = 10 erg cm⁻³ (SI definition).
+		{names: []string{"Pa", "J m-3", "J/m3", "J m^-3"}, factor: 10 / model.Boltzmann},
 	},
 	model.DimTime: {
 		{names: []string{"Myr"}, factor: float64(model.Megayear)},
@@ -109,6 +112,13 @@ func ParseValue(k Kind, s string) (float64, error) {
 	}
 	if len(units) == 0 {
 		return 0, fmt.Errorf("%w: %q takes no unit (got %q)", ErrSyntax, clip(s), clip(unit))
+	}
+	var names []string
+	for _, u := range units {
+		names = append(names, u.names...)
+	}
+	if n := suggest.Closest(unit, names); n != "" {
+		return 0, fmt.Errorf("%w: unknown unit %q (did you mean %q? use %s)", ErrSyntax, clip(unit), n, unitList(units))
 	}
 	return 0, fmt.Errorf("%w: unknown unit %q (use %s)", ErrSyntax, clip(unit), unitList(units))
 }
