@@ -75,6 +75,10 @@ func TestParseValue(t *testing.T) {
 		{model.Dimensionless, "  100 ", 100},
 		{model.Dimensionless, "-3.5e+2", -350},
 		{model.DimMetallicity, "0.3 Zsun", 0.3},
+		{model.DimTemperature, "10^4.5", math.Pow(10, 4.5)},
+		{model.DimTemperature, "10^4.5 K", math.Pow(10, 4.5)},
+		{model.DimLength, "10^-1kpc", 100 * pc},
+		{model.Dimensionless, "10^2", 100},
 	}
 	for _, c := range cases {
 		got, err := ParseValue(c.k, c.in)
@@ -97,6 +101,10 @@ func TestParseValue(t *testing.T) {
 		{model.DimLength, "3\x1b[31m pc", "unknown unit"},
 		{model.DimTemperature, "1e4 C", "use K, keV, eV"},
 		{model.DimTemperature, "1 kev", `did you mean "keV"?`},
+		{model.DimTemperature, "10^", "10^ needs a number"},
+		{model.DimTemperature, "10^K", "10^ needs a number"},
+		{model.DimTemperature, "10^400", "out of range"},
+		{model.DimTemperature, "10^-400", "out of range"},
 		{model.DimLength, "3 kcp", `did you mean "kpc"?`},
 	}
 	for _, c := range bad {

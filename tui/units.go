@@ -69,7 +69,7 @@ var inputUnits = map[Kind][]inputUnit{
 var ErrSyntax = errors.New("invalid value")
 
 // ParseValue parses a number with an optional unit, such as "30 pc",
-// "0.5kpc", "2e3" or "1e4 K", into the CGS value of kind k. With no unit the
+// "0.5kpc", "2e3", "1e4 K" or "10^4.5 K", into the CGS value of kind k. With no unit the
 // kind's default display unit is assumed (pc, K, K cm⁻³, Myr, km s⁻¹).
 // NaN, Inf, empty input and unknown units are errors.
 func ParseValue(k Kind, s string) (float64, error) {
@@ -77,19 +77,32 @@ func ParseValue(k Kind, s string) (float64, error) {
 	if s == "" {
 		return 0, fmt.Errorf("%w: empty", ErrSyntax)
 	}
-	// The number is the longest prefix strconv accepts.
-	end := numberPrefix(s)
+	// The number is the longest prefix strconv accepts, or 10^x with x
+	// such a prefix.
+	num, pow10 := s, false
+	if rest, ok := strings.CutPrefix(s, "10^"); ok {
+		num, pow10 = rest, true
+	}
+	end := numberPrefix(num)
 	if end == 0 {
+		if pow10 {
+			return 0, fmt.Errorf("%w: %q: 10^ needs a number after it", ErrSyntax, clip(s))
+		}
 		return 0, fmt.Errorf("%w: %q does not start with a number", ErrSyntax, clip(s))
 	}
-	v, err := strconv.ParseFloat(s[:end], 64)
+	v, err := strconv.ParseFloat(num[:end], 64)
 	if err != nil {
 		if errors.Is(err, strconv.ErrRange) {
-			return 0, fmt.Errorf("%w: %q is out of range", ErrSyntax, clip(s[:end]))
+			return 0, fmt.Errorf("%w: %q is out of range", ErrSyntax, clip(num[:end]))
 		}
-		return 0, fmt.Errorf("%w: %q is not a number", ErrSyntax, clip(s[:end]))
+		return 0, fmt.Errorf("%w: %q is not a number", ErrSyntax, clip(num[:end]))
 	}
-	unit := strings.TrimSpace(s[end:])
+	if pow10 {
+		if v = math.Pow(10, v); !isFiniteValue(v) || v == 0 {
+			return 0, fmt.Errorf("%w: %q is out of range", ErrSyntax, clip(s[:3+end]))
+		}
+	}
+	unit := strings.TrimSpace(num[end:])
 	units := inputUnits[k]
 	scaled := func(f float64) (float64, error) {
 		if x := v * f; isFiniteValue(x) {
