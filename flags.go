@@ -181,16 +181,23 @@ func (s *scenarioFlags) register(f *flagSet) {
 // given reports whether the named flag was on the command line.
 func (s *scenarioFlags) given(name string) bool { return s.fs != nil && s.fs.set(name) }
 
-// load reads the --scenario file, if one is named, into s.base, and takes
-// its cooling function and table settings unless --cooling or --table were
-// given. A table path in the file is relative to the file's directory. It
-// is called once, before parse and source.
+// load refuses more than one reader of standard input, then reads the
+// --scenario file, if one is named, into s.base, and takes its cooling
+// function and table settings unless --cooling or --table were given. A
+// table path in the file is relative to the file's directory. Every
+// command calls it before parse and source.
 func (s *scenarioFlags) load(e *env) error {
+	stdin := 0
+	for _, v := range []string{s.scenario, s.cooling, s.criteria} {
+		if v == "-" {
+			stdin++
+		}
+	}
+	if stdin > 1 {
+		return usagef("only one of --scenario, --cooling and --criteria can read standard input")
+	}
 	if s.scenario == "" || s.base != nil {
 		return nil
-	}
-	if s.scenario == "-" && (s.cooling == "-" || s.criteria == "-") {
-		return usagef("only one of --scenario, --cooling and --criteria can read standard input")
 	}
 	r, name, closeFn, err := openInput(e, s.scenario)
 	if err != nil {
@@ -254,9 +261,6 @@ func (s *scenarioFlags) params(e *env) (model.Params, error) {
 // loaded --scenario file only the flags given on the command line apply.
 func (s *scenarioFlags) parse() (model.Params, error) {
 	var p model.Params
-	if s.cooling == "-" && s.criteria == "-" {
-		return p, usagef("--cooling and --criteria cannot both read standard input")
-	}
 	// apply reports whether a flag is to be read: always without a
 	// scenario file, and over one only when given.
 	apply := func(name string) bool { return s.base == nil || s.given(name) }

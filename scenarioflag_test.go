@@ -140,6 +140,8 @@ func TestScenarioFlagErrors(t *testing.T) {
 		{[]string{"--scenario", filepath.Join(dir, "missing.toml")}, []string{"--scenario", "missing.toml", "no such file"}},
 		{[]string{"--scenario", bad}, []string{"--scenario", "bad.toml:2", "chi"}},
 		{[]string{"--scenario", "-", "--cooling", "-"}, []string{"standard input"}},
+		{[]string{"--cooling", "-", "--criteria", "-"}, []string{"standard input"}},
+		{[]string{"--scenario", "-", "--criteria", "-"}, []string{"standard input"}},
 		{[]string{"--scenario", esc}, []string{"esc.toml:2", "control character"}},
 	} {
 		code, _, errs := runCmd(t, "", append([]string{"eval"}, c.args...)...)

@@ -113,7 +113,7 @@ func TozziNorman01Lambda(t model.Temperature) (model.CoolingRate, error) {
 	T := float64(t)
 	kT := model.Boltzmann * T / kiloElectronVolt // keV
 	if !(kT >= tozziNormanMinKeV) {
-		return 0, fmt.Errorf("kT = %s keV (T = %s K) is below %s keV, the limit of the Tozzi & Norman 2001 fit: %w", numSig(kT, 3), num(T), num(tozziNormanMinKeV), ErrBelowValidity)
+		return 0, fmt.Errorf("kT = %s keV (T = %s K) is below %s keV, the limit of the Tozzi & Norman 2001 fit: %w", model.FormatNumber(kT, 3), num(T), num(tozziNormanMinKeV), ErrBelowValidity)
 	}
 	const c1, c2, c3 = 8.6e-3, 5.8e-2, 6.3e-2 // TN01 via cooling reference §4.3
 	return model.CoolingRate((c1*math.Pow(kT, -1.7) + c2*math.Sqrt(kT) + c3) * 1e-22), nil

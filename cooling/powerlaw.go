@@ -308,6 +308,3 @@ func Sample(f func(model.Temperature) model.CoolingRate, tMin, tMax model.Temper
 // num writes v for messages with six significant figures, without
 // exponent padding (1e6, not 1e+06).
 func num(v float64) string { return model.FormatNumber(v, 6) }
-
-// numSig is num with sig significant figures.
-func numSig(v float64, sig int) string { return model.FormatNumber(v, sig) }

@@ -78,7 +78,7 @@ func buildTable(raw *rawTable) (*Table, error) {
 					return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = 10^%g underflows: %w", col, vals[i], ErrNonPositive)}
 				}
 			} else if v < 0 || (v == 0 && !zeroOK) {
-				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %s at T = %s K: %w", col, num(v), numSig(math.Pow(10, x[i]), 4), ErrNetHeating)}
+				return nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("column %d: Λ = %s at T = %s K: %w", col, num(v), model.FormatNumber(math.Pow(10, x[i]), 4), ErrNetHeating)}
 			}
 			switch out[k] = v * conv[k]; {
 			case math.IsInf(out[k], 0):
@@ -238,7 +238,7 @@ func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, [
 		case s.neOverNH != nil:
 			ne = s.neOverNH(model.Temperature(math.Pow(10, x[i])), s.y)
 			if !(ne > 0) || math.IsInf(ne, 0) {
-				return nil, nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("n_e/n_H = %s from NeOverNH at T = %s K: %w", num(ne), numSig(math.Pow(10, x[i]), 4), ErrNonPositive)}
+				return nil, nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("n_e/n_H = %s from NeOverNH at T = %s K: %w", num(ne), model.FormatNumber(math.Pow(10, x[i]), 4), ErrNonPositive)}
 			}
 		default:
 			ne = 1 + 2*s.y // fully ionised H+He (cooling reference §1)
@@ -259,13 +259,13 @@ func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, [
 	}
 	switch {
 	case s.neCol == 0 && s.neOverNH == nil:
-		warn = append(warn, fmt.Sprintf("n_e/n_H = 1+2y = %s assumed (fully ionised H+He)", numSig(1+2*s.y, 4)))
+		warn = append(warn, fmt.Sprintf("n_e/n_H = 1+2y = %s assumed (fully ionised H+He)", model.FormatNumber(1+2*s.y, 4)))
 	}
 	if lowT {
 		warn = append(warn, fmt.Sprintf("n_e/n_H below %s K comes from a fallback, not the table, and is unreliable there", num(fallbackNeBelow)))
 	}
 	if s.norm == PerNeNt && s.ntCol == 0 {
-		warn = append(warn, fmt.Sprintf("n_t/n_H = 1+y = %s assumed (metals neglected)", numSig(1+s.y, 4)))
+		warn = append(warn, fmt.Sprintf("n_t/n_H = 1+y = %s assumed (metals neglected)", model.FormatNumber(1+s.y, 4)))
 	}
 	return f, warn, nil
 }
@@ -284,7 +284,7 @@ func (raw *rawTable) plausible(log10T []float64, first int, lam, metals []float6
 		}
 		if !(v > plausibleMin && v < plausibleMax) {
 			return &ParseError{Line: raw.line[first+k], Err: fmt.Errorf("column %d: Λ = %s erg cm³ s⁻¹ per n_H² at T = %s K, outside (%s, %s): %w",
-				col, numSig(v, 3), numSig(math.Pow(10, x), 4), num(plausibleMin), num(plausibleMax), ErrImplausible)}
+				col, model.FormatNumber(v, 3), model.FormatNumber(math.Pow(10, x), 4), num(plausibleMin), num(plausibleMax), ErrImplausible)}
 		}
 	}
 	return nil

@@ -214,19 +214,12 @@ func parseAnalytic(flag, spec, kind, arg string) (*CoolingSource, error) {
 	return &CoolingSource{Spec: spec, Desc: c.String() + " (per n_H²)", fixed: c}, nil
 }
 
-// parsePositive parses a finite positive number, also written 10^x.
+// parsePositive parses a finite positive number without a unit, also
+// written 10^x (ParseValue).
 func parsePositive(s string) (float64, error) {
-	s = strings.TrimSpace(s)
-	var v float64
-	var err error
-	if x, ok := strings.CutPrefix(s, "10^"); ok {
-		v, err = strconv.ParseFloat(x, 64)
-		v = math.Pow(10, v)
-	} else {
-		v, err = strconv.ParseFloat(s, 64)
-	}
-	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 {
-		return 0, fmt.Errorf("must be a finite number greater than 0 (got %q)", Sanitize(s))
+	v, err := ParseValue(model.Dimensionless, s)
+	if err != nil || v <= 0 {
+		return 0, fmt.Errorf("must be a finite number greater than 0 (got %q)", clip(strings.TrimSpace(s)))
 	}
 	return v, nil
 }
