@@ -4,8 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"strconv"
-	"strings"
 )
 
 // HeatCapacity selects the factor f in t_cool = f n k_B T / (𝒩 Λ).
@@ -247,26 +245,6 @@ func num(v float64) string { return FormatNumber(v, 6) }
 
 // num3 is num with three significant figures.
 func num3(v float64) string { return FormatNumber(v, 3) }
-
-// FormatNumber writes v with sig significant figures as %g does, but
-// without exponent padding or a plus sign: 1e8 and 2.5e-5, not 1e+08 and
-// 2.5e-05. It is meant for messages; displays have their own formatter.
-func FormatNumber(v float64, sig int) string {
-	s := strconv.FormatFloat(v, 'g', sig, 64)
-	if i := strings.IndexByte(s, 'e'); i >= 0 {
-		mant, exp := s[:i], s[i+1:]
-		sign := ""
-		if exp[0] == '-' {
-			sign = "-"
-		}
-		exp = strings.TrimLeft(exp[1:], "0")
-		if exp == "" {
-			exp = "0"
-		}
-		s = mant + "e" + sign + exp
-	}
-	return s
-}
 
 // numericFields maps the Field… names of the numeric inputs to their
 // Params fields: the one place that knows which name is which field.

@@ -9,7 +9,9 @@ import (
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
 
-	"cloudwind/config"
+	"cloudwind/cooling"
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/scenario"
 	"cloudwind/model"
 )
 
@@ -17,15 +19,15 @@ import (
 // line; nothing in it is global.
 type Config struct {
 	Params   model.Params      // initial inputs (validated by the caller)
-	Cooling  *CoolingSource    // initial cooling function
+	Cooling  *cooling.Source   // initial cooling function
 	Criteria []model.Criterion // the criteria, built-in or from a criteria file
 	Scenario string            // name of the loaded scenario, if any
 	Palette  Palette
-	Color    bool   // false under NO_COLOR
-	ASCII    bool   // no braille, ASCII borders
-	Open     Opener // file access for tables and scenarios (used in commands only)
+	Color    bool           // false under NO_COLOR
+	ASCII    bool           // no braille, ASCII borders
+	Open     cooling.Opener // file access for tables and scenarios (used in commands only)
 	Version  string
-	Demos    []config.Scenario
+	Demos    []scenario.Scenario
 }
 
 // focus says which pane takes the selection keys.
@@ -64,7 +66,7 @@ func (v viewKind) String() string {
 // compare mode pins.
 type snapshot struct {
 	params  model.Params
-	cooling *CoolingSource
+	cooling *cooling.Source
 	cf      model.CoolingFunction
 }
 
@@ -445,7 +447,7 @@ func (a *App) setView(v viewKind) tea.Cmd {
 	return a.requestChart()
 }
 
-func (a *App) setStatus(text string, isErr bool) { a.status = status{Sanitize(text), isErr} }
+func (a *App) setStatus(text string, isErr bool) { a.status = status{quantity.Sanitize(text), isErr} }
 
 // cloneResult copies a Result so that later evaluations do not share its
 // slices.

@@ -11,7 +11,9 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/x/ansi"
 
-	"cloudwind/config"
+	"cloudwind/cooling"
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/scenario"
 	"cloudwind/model"
 )
 
@@ -36,11 +38,11 @@ func testParams() model.Params {
 // cooling function and every command's result fed back through Update.
 func newTestApp(t testing.TB, w, h int) *App {
 	t.Helper()
-	src, err := ResolveCooling("cooling", "builtin", nil, fileOpener)
+	src, err := cooling.Resolve("cooling", "builtin", nil, fileOpener)
 	if err != nil {
 		t.Fatal(err)
 	}
-	demos, err := DemoScenarios()
+	demos, err := scenario.Demos()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -129,8 +131,8 @@ func TestStepChi(t *testing.T) {
 	if a.res.Outcomes[0].RCrit == rBefore {
 		t.Error("r_crit of gronke-oh-2018 did not change with χ")
 	}
-	if !strings.Contains(screen(a), FormatSig(a.cur.params.Chi, 3)) {
-		t.Errorf("the new χ %s is not on screen", FormatSig(a.cur.params.Chi, 3))
+	if !strings.Contains(screen(a), quantity.FormatSig(a.cur.params.Chi, 3)) {
+		t.Errorf("the new χ %s is not on screen", quantity.FormatSig(a.cur.params.Chi, 3))
 	}
 	press(a, "shift+right") // a coarse step: ten fine ones
 	if got, want := a.cur.params.Chi, before*1.1220184543019633*math10(0.5); !near(got, want, 1e-9) {
@@ -268,7 +270,7 @@ func TestScenarioFiles(t *testing.T) {
 		t.Fatalf("save: %s", a.status.text)
 	}
 	f, _ := os.Open(path)
-	sc, err := config.ParseScenario(f, path)
+	sc, err := scenario.Parse(f, path)
 	f.Close()
 	if err != nil || !near(sc.Params.Chi, a.cur.params.Chi, 1e-15) {
 		t.Fatalf("saved scenario: %v, χ %g want %g", err, sc.Params.Chi, a.cur.params.Chi)
@@ -343,7 +345,7 @@ func sizeName(s string, w, h int) string {
 	return s + "_" + itoa(w) + "x" + itoa(h)
 }
 
-func itoa(n int) string { return strings.TrimSpace(FormatSig(float64(n), 6)) }
+func itoa(n int) string { return strings.TrimSpace(quantity.FormatSig(float64(n), 6)) }
 
 // TestReadmeCapture keeps the README's screen capture equal to the golden
 // view it was taken from.

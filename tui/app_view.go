@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"strings"
 
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/report"
 	"cloudwind/model"
 )
 
@@ -116,11 +118,11 @@ func (a *App) header() string {
 	st := &a.styles
 	parts := []string{st.Title.Render("cloudwind")}
 	if a.scenario != "" {
-		parts = append(parts, Sanitize(a.scenario))
+		parts = append(parts, quantity.Sanitize(a.scenario))
 	}
 	q := a.cur.params
-	parts = append(parts, fmt.Sprintf("f=%s 𝒩=%s", FormatSig(q.HeatCapacity.Factor(), 2), densityWord(q.DensityProduct)))
-	parts = append(parts, CoolingName(a.cur.cooling, a.cur.cf))
+	parts = append(parts, fmt.Sprintf("f=%s 𝒩=%s", quantity.FormatSig(q.HeatCapacity.Factor(), 2), densityWord(q.DensityProduct)))
+	parts = append(parts, report.CoolingName(a.cur.cooling, a.cur.cf))
 	if a.pin != nil {
 		parts = append(parts, st.Warning.Render("compare: A pinned"))
 	}
@@ -217,7 +219,7 @@ func (a *App) helpView() []string {
 func (a *App) derivedValue(key string) string {
 	for _, q := range model.Quantities() {
 		if q.Key == key {
-			return Format(q.Dim, q.Value(&a.res.State))
+			return quantity.Format(q.Dim, q.Value(&a.res.State))
 		}
 	}
 	return ""

@@ -7,6 +7,7 @@ import (
 	"github.com/charmbracelet/lipgloss"
 	"github.com/muesli/termenv"
 
+	"cloudwind/cooling"
 	"cloudwind/model"
 )
 
@@ -94,7 +95,7 @@ func BenchmarkStepViewColour(b *testing.B) {
 	prev := lipgloss.ColorProfile()
 	lipgloss.SetColorProfile(termenv.ANSI256)
 	defer lipgloss.SetColorProfile(prev)
-	src, err := ResolveCooling("cooling", "builtin", nil, fileOpener)
+	src, err := cooling.Resolve("cooling", "builtin", nil, fileOpener)
 	if err != nil {
 		b.Fatal(err)
 	}

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strconv"
 
+	"cloudwind/internal/quantity"
+
 	"github.com/NimbleMarkets/ntcharts/canvas/runes"
 )
 
@@ -186,7 +188,7 @@ func linearTickSets(lo, hi float64, maxTicks int) iter.Seq[[]chartTick] {
 					if math.Abs(v) < step*1e-6 {
 						v = 0
 					}
-					set = append(set, chartTick{v, []rune(FormatSig(v, sig))})
+					set = append(set, chartTick{v, []rune(quantity.FormatSig(v, sig))})
 				}
 				if !yield(set) || len(set) <= 1 {
 					return

@@ -1,8 +1,11 @@
 package tui
 
 import (
+	"math"
 	"strings"
 	"unicode/utf8"
+
+	"cloudwind/internal/quantity"
 
 	"github.com/charmbracelet/lipgloss"
 )
@@ -114,7 +117,7 @@ func (s *chartSurface) String() string {
 // from a user's file), with runes wider than one cell replaced by '?' and
 // zero-width runes dropped, so that one rune is one cell.
 func textRunes(s string) []rune {
-	s = Sanitize(s)
+	s = quantity.Sanitize(s)
 	rs := make([]rune, 0, utf8.RuneCountInString(s))
 	for _, r := range s {
 		if r < utf8.RuneSelf {
@@ -186,3 +189,6 @@ func seriesGlyph(st *Styles, i int) rune {
 func seriesStyle(st *Styles, i int) lipgloss.Style {
 	return st.SeriesStyle(max(i, 0))
 }
+
+// isFiniteValue reports whether v is neither NaN nor ±Inf.
+func isFiniteValue(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }

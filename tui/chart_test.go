@@ -8,6 +8,8 @@ import (
 	"strings"
 	"testing"
 
+	"cloudwind/internal/quantity"
+
 	"github.com/NimbleMarkets/ntcharts/canvas"
 	"github.com/NimbleMarkets/ntcharts/canvas/graph"
 	"github.com/charmbracelet/lipgloss"
@@ -184,7 +186,7 @@ func TestChartLegendAndSanitize(t *testing.T) {
 			t.Errorf("%s: an escape sequence from a series name reached the output", mode)
 		}
 		for _, sr := range c.Series {
-			name := Sanitize(sr.Name)
+			name := quantity.Sanitize(sr.Name)
 			if !strings.Contains(out, string(st.Glyph(sr.Index))+" "+name) {
 				t.Errorf("%s: legend lacks %q\n%s", mode, string(st.Glyph(sr.Index))+" "+name, out)
 			}

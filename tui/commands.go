@@ -2,7 +2,6 @@ package tui
 
 import (
 	"encoding/json"
-	"errors"
 	"fmt"
 	"io"
 	"path/filepath"
@@ -10,7 +9,10 @@ import (
 
 	tea "github.com/charmbracelet/bubbletea"
 
-	"cloudwind/config"
+	"cloudwind/cooling"
+	"cloudwind/internal/atomicfile"
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/scenario"
 	"cloudwind/model"
 )
 
@@ -35,14 +37,14 @@ type statusMsg struct {
 
 // coolingMsg carries a resolved cooling source (or the error).
 type coolingMsg struct {
-	src *CoolingSource
+	src *cooling.Source
 	err error
 }
 
 // scenarioMsg carries a loaded scenario and its cooling source.
 type scenarioMsg struct {
-	sc  config.Scenario
-	src *CoolingSource
+	sc  scenario.Scenario
+	src *cooling.Source
 	err error
 }
 
@@ -100,7 +102,7 @@ func computeChart(r chartRequest) tea.Msg {
 func (a *App) requestCooling(spec string, table []string) tea.Cmd {
 	open := a.cfg.Open
 	return func() tea.Msg {
-		src, err := ResolveCooling("cooling", spec, table, open)
+		src, err := cooling.Resolve("cooling", spec, table, open)
 		return coolingMsg{src, err}
 	}
 }
@@ -117,17 +119,17 @@ func (a *App) applyCooling(m coolingMsg) tea.Cmd {
 }
 
 // loadScenario reads a scenario file in a command.
-func loadScenario(path string, open Opener) tea.Cmd {
+func loadScenario(path string, open cooling.Opener) tea.Cmd {
 	return func() tea.Msg {
 		if open == nil {
 			return scenarioMsg{err: fmt.Errorf("no file access")}
 		}
 		r, name, closeFn, err := open(path)
 		if err != nil {
-			return scenarioMsg{err: fmt.Errorf("open %s: %w", Sanitize(path), err)}
+			return scenarioMsg{err: fmt.Errorf("open %s: %w", quantity.Sanitize(path), err)}
 		}
 		defer closeFn()
-		sc, err := config.ParseScenario(r, name)
+		sc, err := scenario.Parse(r, name)
 		if err != nil {
 			return scenarioMsg{err: err}
 		}
@@ -137,25 +139,14 @@ func loadScenario(path string, open Opener) tea.Cmd {
 
 // resolveScenario resolves a scenario's cooling source; a relative table
 // path is taken relative to the scenario file's directory.
-func resolveScenario(sc config.Scenario, open Opener, dir string) scenarioMsg {
+func resolveScenario(sc scenario.Scenario, open cooling.Opener, dir string) scenarioMsg {
 	spec := sc.Cooling
 	if spec == "" {
-		spec = DefaultCooling
+		spec = cooling.DefaultSpec
 	}
-	spec = ScenarioCooling(spec, dir)
-	src, err := ResolveCooling("scenario cooling", spec, sc.Table, open)
+	spec = scenario.CoolingSpec(spec, dir)
+	src, err := cooling.Resolve("scenario cooling", spec, sc.Table, open)
 	return scenarioMsg{sc: sc, src: src, err: err}
-}
-
-// ScenarioCooling returns the cooling spec of a scenario file that lies in
-// dir: a relative table path is taken relative to dir; names, formulas,
-// absolute paths and "" are returned unchanged, and so is every spec when
-// dir is "" (a file read from standard input).
-func ScenarioCooling(spec, dir string) string {
-	if spec == "" || dir == "" || isNamedOrAnalytic(spec) || filepath.IsAbs(spec) {
-		return spec
-	}
-	return filepath.Join(dir, spec)
 }
 
 // applyScenario switches to a loaded scenario; a bad one leaves the
@@ -176,8 +167,8 @@ func (a *App) applyScenario(m scenarioMsg) tea.Cmd {
 }
 
 // scenarioLabel names a scenario for the status line and header.
-func scenarioLabel(sc config.Scenario) string {
-	name := Sanitize(sc.Name)
+func scenarioLabel(sc scenario.Scenario) string {
+	name := quantity.Sanitize(sc.Name)
 	if name == "" {
 		name = "unnamed scenario"
 	}
@@ -185,52 +176,27 @@ func scenarioLabel(sc config.Scenario) string {
 }
 
 // currentScenario describes the current state as a scenario for saving.
-func (a *App) currentScenario() config.Scenario {
+func (a *App) currentScenario() scenario.Scenario {
 	name := a.scenario
 	if name == "" {
 		name = "saved from the explorer"
 	}
-	return config.Scenario{Name: name, Params: a.cur.params, Cooling: a.cur.cooling.Spec, Table: a.cur.cooling.Table}
-}
-
-// savedCooling returns the cooling spec as a scenario file at path must
-// name it, the inverse of ScenarioCooling: a table path relative to the
-// file's directory (absolute where no relative path exists). A table read
-// from standard input cannot be named, and is an error.
-func savedCooling(spec, path string) (string, error) {
-	if spec == "" || isNamedOrAnalytic(spec) {
-		return spec, nil
-	}
-	if spec == "-" {
-		return "", errors.New("the cooling table was read from standard input, which a scenario file cannot name: give the cooling input (a: more inputs) a file first")
-	}
-	abs, err := filepath.Abs(spec)
-	if err != nil {
-		return "", fmt.Errorf("cooling table %s: %w", Sanitize(spec), err)
-	}
-	dir, err := filepath.Abs(filepath.Dir(path))
-	if err != nil {
-		return abs, nil
-	}
-	if rel, err := filepath.Rel(dir, abs); err == nil {
-		return rel, nil
-	}
-	return abs, nil
+	return scenario.Scenario{Name: name, Params: a.cur.params, Cooling: a.cur.cooling.Spec, Table: a.cur.cooling.Table}
 }
 
 // saveScenario writes sc to path atomically in a command; a table path in
 // sc is rewritten relative to path's directory.
-func saveScenario(path string, sc config.Scenario) tea.Cmd {
+func saveScenario(path string, sc scenario.Scenario) tea.Cmd {
 	return func() tea.Msg {
 		var err error
-		if sc.Cooling, err = savedCooling(sc.Cooling, path); err != nil {
+		if sc.Cooling, err = scenario.SavedCoolingSpec(sc.Cooling, path); err != nil {
 			return statusMsg{"not saved: " + oneLine(err.Error()), true}
 		}
-		err = WriteFileAtomic(path, func(w io.Writer) error { return config.WriteScenario(w, sc) })
+		err = atomicfile.Write(path, func(w io.Writer) error { return scenario.Write(w, sc) })
 		if err != nil {
 			return statusMsg{oneLine(err.Error()), true}
 		}
-		return statusMsg{"saved scenario to " + Sanitize(path), false}
+		return statusMsg{"saved scenario to " + quantity.Sanitize(path), false}
 	}
 }
 
@@ -249,7 +215,7 @@ func exportChart(path string, c chartState) tea.Cmd {
 		if err != nil {
 			return statusMsg{oneLine(err.Error()), true}
 		}
-		return statusMsg{"exported the chart to " + Sanitize(path), false}
+		return statusMsg{"exported the chart to " + quantity.Sanitize(path), false}
 	}
 }
 
@@ -257,7 +223,7 @@ func exportChart(path string, c chartState) tea.Cmd {
 // eval --format json) in a command.
 func exportState(path string, doc map[string]any) tea.Cmd {
 	return func() tea.Msg {
-		err := WriteFileAtomic(path, func(w io.Writer) error {
+		err := atomicfile.Write(path, func(w io.Writer) error {
 			enc := json.NewEncoder(w)
 			enc.SetIndent("", "  ")
 			return enc.Encode(doc)
@@ -265,7 +231,7 @@ func exportState(path string, doc map[string]any) tea.Cmd {
 		if err != nil {
 			return statusMsg{oneLine(err.Error()), true}
 		}
-		return statusMsg{"exported the state to " + Sanitize(path), false}
+		return statusMsg{"exported the state to " + quantity.Sanitize(path), false}
 	}
 }
 

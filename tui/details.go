@@ -8,6 +8,8 @@ import (
 	"github.com/charmbracelet/x/ansi"
 
 	"cloudwind/cooling"
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/report"
 	"cloudwind/model"
 )
 
@@ -17,9 +19,9 @@ import (
 func (a *App) detailsLines(w int) (title string, lines []string) {
 	st := &a.styles
 	wrap := func(label, text string) {
-		lines = append(lines, wrapText(st.Dim.Render(label)+" ", Sanitize(text), w)...)
+		lines = append(lines, wrapText(st.Dim.Render(label)+" ", quantity.Sanitize(text), w)...)
 	}
-	conv := fmt.Sprintf("f = %s (%s), 𝒩 = %s", FormatSig(a.cur.params.HeatCapacity.Factor(), 2), a.cur.params.HeatCapacity, densityWord(a.cur.params.DensityProduct))
+	conv := fmt.Sprintf("f = %s (%s), 𝒩 = %s", quantity.FormatSig(a.cur.params.HeatCapacity.Factor(), 2), a.cur.params.HeatCapacity, densityWord(a.cur.params.DensityProduct))
 	switch a.focus {
 	case focusInputs:
 		in := a.in.current()
@@ -27,9 +29,9 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 		wrap("meaning:", in.about)
 		if !in.isEnum() && in.field != "cooling" {
 			wrap("value:", valueText(in, &a.cur.params, ""))
-			step := fmt.Sprintf("%s per step (×10 with shift)", FormatSig(in.fine, 2))
+			step := fmt.Sprintf("%s per step (×10 with shift)", quantity.FormatSig(in.fine, 2))
 			if in.log {
-				step = fmt.Sprintf("×%s per step (%s dex; ×10 with shift)", FormatSig(pow10(in.fine), 3), FormatSig(in.fine, 2))
+				step = fmt.Sprintf("×%s per step (%s dex; ×10 with shift)", quantity.FormatSig(pow10(in.fine), 3), quantity.FormatSig(in.fine, 2))
 			}
 			wrap("step:", step)
 			wrap("typing:", "enter, then a number with an optional unit, e.g. "+typingExample(in.dim))
@@ -40,7 +42,7 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 	case focusDerived:
 		q := a.derived[a.derivedSel]
 		title = q.Symbol + " — " + q.Name
-		wrap("value:", Format(q.Dim, q.Value(&a.res.State)))
+		wrap("value:", quantity.Format(q.Dim, q.Value(&a.res.State)))
 		wrap("formula:", q.Formula)
 		wrap("source:", q.Source)
 		wrap("convention:", conv)
@@ -49,7 +51,7 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 		}
 	case focusCriteria:
 		c, o := &a.res.Criteria[a.critSel], a.res.Outcomes[a.critSel]
-		title = Sanitize(c.Label) + " (" + Sanitize(c.ID) + ")"
+		title = quantity.Sanitize(c.Label) + " (" + quantity.Sanitize(c.ID) + ")"
 		wrap("criterion:", "survives and grows when "+c.Formula())
 		wrap("citation:", c.Citation.String())
 		if c.Citation.Equation == "" {
@@ -59,11 +61,11 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 		if !c.Verified {
 			verified = "NOT verified"
 		}
-		wrap("constants:", fmt.Sprintf("α = %s, β = %s — %s: %s", FormatSig(c.Alpha, 3), FormatSig(c.Beta, 3), verified, c.Status))
+		wrap("constants:", fmt.Sprintf("α = %s, β = %s — %s: %s", quantity.FormatSig(c.Alpha, 3), quantity.FormatSig(c.Beta, 3), verified, c.Status))
 		if c.Cool != model.CoolNone {
 			wrap("now:", fmt.Sprintf("%s/%s = %s (limit %s), r_crit = %s, margin r_cl/r_crit = %s → %s",
-				c.Cool.Symbol(), c.Dyn, FormatSig(o.Ratio, 3), FormatSig(o.Threshold, 3),
-				Format(model.DimLength, float64(o.RCrit)), FormatSig(o.Margin, 3), o.Verdict))
+				c.Cool.Symbol(), c.Dyn, quantity.FormatSig(o.Ratio, 3), quantity.FormatSig(o.Threshold, 3),
+				quantity.Format(model.DimLength, float64(o.RCrit)), quantity.FormatSig(o.Margin, 3), o.Verdict))
 		}
 		wrap("calibrated:", rangeText(c.Range))
 		if !o.InRange() {
@@ -78,7 +80,7 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 
 // coolingDetails describes the cooling function in use.
 func (a *App) coolingDetails(wrap func(label, text string)) {
-	wrap("in use:", CoolingName(a.cur.cooling, a.cur.cf))
+	wrap("in use:", report.CoolingName(a.cur.cooling, a.cur.cf))
 	p, ok := a.cur.cf.(*cooling.PowerLaw)
 	if !ok {
 		wrap("form:", "analytic, per n_H²")
@@ -87,8 +89,8 @@ func (a *App) coolingDetails(wrap func(label, text string)) {
 	m := p.Meta()
 	lo, hi := p.ValidRange()
 	wrap("source:", m.Citation)
-	wrap("table:", fmt.Sprintf("%s – %s, stored per n_H² (source per %s), He/H = %s", Format(model.DimTemperature, float64(lo)),
-		Format(model.DimTemperature, float64(hi)), m.Normalisation.Symbol(), FormatSig(m.HeliumRatio, 3)))
+	wrap("table:", fmt.Sprintf("%s – %s, stored per n_H² (source per %s), He/H = %s", quantity.Format(model.DimTemperature, float64(lo)),
+		quantity.Format(model.DimTemperature, float64(hi)), m.Normalisation.Symbol(), quantity.FormatSig(m.HeliumRatio, 3)))
 	for _, c := range m.Caveats {
 		wrap("caveat:", c)
 	}
@@ -128,7 +130,7 @@ func rangeText(c model.Calibration) string {
 		if i.IsUnbounded() {
 			return
 		}
-		parts = append(parts, fmt.Sprintf("%s %s–%s%s", name, FormatSig(i.Min, 3), FormatSig(i.Max, 3), unit))
+		parts = append(parts, fmt.Sprintf("%s %s–%s%s", name, quantity.FormatSig(i.Min, 3), quantity.FormatSig(i.Max, 3), unit))
 	}
 	add("χ", c.Chi, "")
 	add("M", c.Mach, "")

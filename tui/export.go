@@ -11,6 +11,9 @@ import (
 	"strconv"
 	"strings"
 
+	"cloudwind/internal/atomicfile"
+	"cloudwind/internal/quantity"
+
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
@@ -43,7 +46,7 @@ const (
 // The file is written atomically (WriteFileAtomic); every error names path.
 func ExportLineChart(c *LineChart, path string) error {
 	if c == nil {
-		return fmt.Errorf("export %s: no chart to export", Sanitize(path))
+		return fmt.Errorf("export %s: no chart to export", quantity.Sanitize(path))
 	}
 	return exportFigure(path, func(dc draw.Canvas) error { return figLineChart(dc, c) })
 }
@@ -58,10 +61,10 @@ func ExportLineChart(c *LineChart, path string) error {
 // with "?". It returns an error when len(m.Counts) is not NX×NY.
 func ExportRegimeMap(m *RegimeMap, path string) error {
 	if m == nil {
-		return fmt.Errorf("export %s: no regime map to export", Sanitize(path))
+		return fmt.Errorf("export %s: no regime map to export", quantity.Sanitize(path))
 	}
 	if m.NX < 1 || m.NY < 1 || len(m.Counts) != m.NX*m.NY {
-		return fmt.Errorf("export %s: regime map has %d counts for %d×%d cells", Sanitize(path), len(m.Counts), m.NX, m.NY)
+		return fmt.Errorf("export %s: regime map has %d counts for %d×%d cells", quantity.Sanitize(path), len(m.Counts), m.NX, m.NY)
 	}
 	return exportFigure(path, func(dc draw.Canvas) error { return figRegimeMap(dc, m) })
 }
@@ -71,7 +74,7 @@ var ErrExportFormat = errors.New("unsupported figure format")
 
 // exportFigure renders a figure for path's format, then writes it atomically.
 func exportFigure(path string, render func(draw.Canvas) error) error {
-	name := Sanitize(path)
+	name := quantity.Sanitize(path)
 	var canvas vg.CanvasWriterTo
 	switch ext := strings.ToLower(filepath.Ext(path)); ext {
 	case ".svg":
@@ -79,12 +82,12 @@ func exportFigure(path string, render func(draw.Canvas) error) error {
 	case ".png":
 		canvas = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(exportWidth, exportHeight), vgimg.UseDPI(exportDPI))}
 	default:
-		return fmt.Errorf("export %s: %w %q (want .svg or .png)", name, ErrExportFormat, Sanitize(ext))
+		return fmt.Errorf("export %s: %w %q (want .svg or .png)", name, ErrExportFormat, quantity.Sanitize(ext))
 	}
 	if err := figRender(render, draw.New(canvas)); err != nil {
 		return fmt.Errorf("export %s: %w", name, err)
 	}
-	return WriteFileAtomic(path, func(w io.Writer) error {
+	return atomicfile.Write(path, func(w io.Writer) error {
 		if _, err := canvas.WriteTo(w); err != nil {
 			return fmt.Errorf("write %s: %w", name, err)
 		}

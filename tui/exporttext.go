@@ -3,6 +3,8 @@ package tui
 import (
 	"slices"
 	"strings"
+
+	"cloudwind/internal/quantity"
 )
 
 // Text of exported figures: the embedded fonts of gonum/plot lack Greek
@@ -37,7 +39,7 @@ func figScriptChar(r rune) (byte, int) {
 func figText(s string) string {
 	var b strings.Builder
 	run := 0
-	for _, r := range Sanitize(s) {
+	for _, r := range quantity.Sanitize(s) {
 		if c, kind := figScriptChar(r); kind != 0 {
 			if kind != run {
 				b.WriteString([...]string{"", "^", "_"}[kind])

@@ -8,6 +8,8 @@ import (
 	"github.com/charmbracelet/bubbles/cursor"
 	"github.com/charmbracelet/bubbles/textinput"
 
+	"cloudwind/cooling"
+	"cloudwind/internal/quantity"
 	"cloudwind/model"
 )
 
@@ -143,7 +145,7 @@ func (ip *inputsPane) step(p model.Params, n int, coolingSpec string) (model.Par
 	in := ip.current()
 	switch {
 	case in.field == "cooling":
-		names := NamedCooling()
+		names := cooling.Names()
 		i := 0
 		for k, c := range names {
 			if c.Name == coolingSpec {
@@ -171,15 +173,13 @@ func (ip *inputsPane) step(p model.Params, n int, coolingSpec string) (model.Par
 	if in.log {
 		v *= math.Pow(10, float64(n)*in.fine)
 	} else {
-		v += float64(n) * in.fine * unitFactor(in.dim)
-		v = roundTo(v, in.fine*unitFactor(in.dim)) // no 0.30000000000000004
+		v += float64(n) * in.fine * quantity.Factor(in.dim)
+		v = roundTo(v, in.fine*quantity.Factor(in.dim)) // no 0.30000000000000004
 	}
 	in.set(&p, v)
 	return p, ""
 }
 
-// unitFactor is the CGS size of one display unit of d.
-func unitFactor(d model.Dimension) float64 { return displayUnits[d].factor }
 
 // roundTo rounds v to a multiple of step/1000, removing float noise from
 // repeated additions.
@@ -198,7 +198,7 @@ func (ip *inputsPane) startEdit(p *model.Params, coolingSpec string) {
 	case in.isEnum():
 		ip.edit.SetValue(in.options[in.getEnum(p)])
 	default:
-		ip.edit.SetValue(strings.TrimSpace(Number(in.dim, in.get(p))))
+		ip.edit.SetValue(strings.TrimSpace(quantity.Number(in.dim, in.get(p))))
 	}
 	ip.edit.CursorEnd()
 	ip.edit.Focus()
@@ -228,9 +228,9 @@ func (ip *inputsPane) applyEdit(p model.Params) (model.Params, string, error) {
 				return p, "", nil
 			}
 		}
-		return p, "", fmt.Errorf("%s: %q is not one of %s", in.label, Sanitize(text), strings.Join(in.options, ", "))
+		return p, "", fmt.Errorf("%s: %q is not one of %s", in.label, quantity.Sanitize(text), strings.Join(in.options, ", "))
 	}
-	v, err := ParseValue(in.dim, text)
+	v, err := quantity.ParseValue(in.dim, text)
 	if err != nil {
 		return p, "", fmt.Errorf("%s: %w", in.label, err)
 	}
@@ -248,5 +248,5 @@ func valueText(in *input, p *model.Params, coolingName string) string {
 	case in.field == model.FieldTFloor && p.TFloor == 0:
 		return "= T_cl"
 	}
-	return Format(in.dim, in.get(p))
+	return quantity.Format(in.dim, in.get(p))
 }

@@ -8,7 +8,9 @@ import (
 	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
-	"cloudwind/config"
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/report"
+	"cloudwind/internal/scenario"
 )
 
 // promptKind says what a prompt is for.
@@ -27,7 +29,7 @@ type prompt struct {
 	kind     promptKind
 	question string
 	input    textinput.Model
-	demos    []config.Scenario
+	demos    []scenario.Scenario
 	choice   int // in the menu: index into demos, or len(demos) for "load a file…"
 }
 
@@ -42,7 +44,7 @@ func newPathPrompt(kind promptKind, question, suggestion string) *prompt {
 	return &prompt{kind: kind, question: question, input: ti}
 }
 
-func newScenarioMenu(demos []config.Scenario) *prompt {
+func newScenarioMenu(demos []scenario.Scenario) *prompt {
 	return &prompt{kind: promptScenarios, question: "open a scenario", demos: demos}
 }
 
@@ -87,7 +89,7 @@ func (a *App) updatePrompt(msg tea.KeyMsg) tea.Cmd {
 		case promptExportChart:
 			return exportChart(path, a.chart)
 		case promptExportState:
-			return exportState(path, StateDocument(&a.res, a.cur.cooling, a.cur.cf, a.cfg.Version))
+			return exportState(path, report.StateDocument(&a.res, a.cur.cooling, a.cur.cf, a.cfg.Version))
 		case promptLoad:
 			return loadScenario(path, a.cfg.Open)
 		}
@@ -108,13 +110,13 @@ func (a *App) promptView(w int) []string {
 	var body []string
 	if p.kind == promptScenarios {
 		for i, d := range p.demos {
-			line := "  " + Sanitize(d.Name)
+			line := "  " + quantity.Sanitize(d.Name)
 			if i == p.choice {
-				line = st.Selected.Render("▸ " + Sanitize(d.Name))
+				line = st.Selected.Render("▸ " + quantity.Sanitize(d.Name))
 			}
 			body = append(body, line)
 			if i == p.choice && d.Description != "" {
-				body = append(body, st.Dim.Render("    "+Sanitize(d.Description)))
+				body = append(body, st.Dim.Render("    "+quantity.Sanitize(d.Description)))
 			}
 		}
 		last := "  load a scenario file…"

@@ -5,6 +5,8 @@ import (
 	"strings"
 
 	"cloudwind/cooling"
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/report"
 	"cloudwind/model"
 )
 
@@ -68,12 +70,12 @@ func (a *App) derivedLines(w, h int) []string {
 	}
 	for i, q := range rows {
 		v := q.Value(&a.res.State)
-		val := Format(q.Dim, v)
+		val := quantity.Format(q.Dim, v)
 		cell := st.Value.Render(val)
 		if a.pin != nil {
 			va := q.Value(&a.pin.res.State)
 			if r := v / va; isFiniteValue(r) && va != 0 {
-				cell += st.Dim.Render("  B/A " + FormatSig(r, 3))
+				cell += st.Dim.Render("  B/A " + quantity.FormatSig(r, 3))
 			}
 		}
 		if note := tableStatus(a.cur.cf, q.Key, &a.res.State); note != "" {
@@ -89,7 +91,7 @@ func (a *App) derivedLines(w, h int) []string {
 	}
 	// The cold-gas line carries the caution when T_cl leaves the table.
 	for _, c := range a.res.Cautions {
-		lines = append(lines, st.Warning.Render("⚠ "+Sanitize(c.Message)))
+		lines = append(lines, st.Warning.Render("⚠ "+quantity.Sanitize(c.Message)))
 	}
 	return scrollWindow(lines, a.derivedSel, h, a.focus == focusDerived)
 }
@@ -150,7 +152,7 @@ func (a *App) criteriaLines(w int) []string {
 	anyUnverified, anyOut := false, false
 	for i := range a.res.Criteria {
 		c, o := &a.res.Criteria[i], a.res.Outcomes[i]
-		name := fit(Sanitize(c.ID), idW-3) + " "
+		name := fit(quantity.Sanitize(c.ID), idW-3) + " "
 		if a.focus == focusCriteria && i == a.critSel {
 			name = st.Selected.Render("▸ " + name)
 		} else {
@@ -158,7 +160,7 @@ func (a *App) criteriaLines(w int) []string {
 		}
 		rc := "none"
 		if o.HasThreshold() {
-			rc = Format(model.DimLength, float64(o.RCrit))
+			rc = quantity.Format(model.DimLength, float64(o.RCrit))
 		}
 		var row string
 		switch {
@@ -166,23 +168,23 @@ func (a *App) criteriaLines(w int) []string {
 			oa := a.pin.res.Outcomes[i]
 			rca := "none"
 			if oa.HasThreshold() {
-				rca = Format(model.DimLength, float64(oa.RCrit))
+				rca = quantity.Format(model.DimLength, float64(oa.RCrit))
 			}
 			ratio := "—"
 			if o.HasThreshold() && oa.HasThreshold() {
-				ratio = FormatSig(float64(o.RCrit/oa.RCrit), 3)
+				ratio = quantity.FormatSig(float64(o.RCrit/oa.RCrit), 3)
 			}
 			row = name + fit(rca, 10) + " " + fit(rc, 10) + " " + fit(ratio, 6) + " " +
 				verdictGlyph(oa.Verdict) + "→" + a.verdictText(o.Verdict, true)
 		case compact:
-			row = name + fit(rc, 10) + " " + fit(FormatSig(o.Margin, 3), 7) + " " + a.verdictText(o.Verdict, true)
+			row = name + fit(rc, 10) + " " + fit(quantity.FormatSig(o.Margin, 3), 7) + " " + a.verdictText(o.Verdict, true)
 		default:
-			limit := FormatSig(o.Threshold, 3)
+			limit := quantity.FormatSig(o.Threshold, 3)
 			if c.Cool == model.CoolNone {
 				limit = "—"
 			}
-			row = name + fit(FormatSig(o.Ratio, 3), 8) + " " + fit(limit, 6) + " " + fit(rc, 10) + " " +
-				fit(FormatSig(o.Margin, 3), 7) + " " + a.verdictText(o.Verdict, false)
+			row = name + fit(quantity.FormatSig(o.Ratio, 3), 8) + " " + fit(limit, 6) + " " + fit(rc, 10) + " " +
+				fit(quantity.FormatSig(o.Margin, 3), 7) + " " + a.verdictText(o.Verdict, false)
 		}
 		marks := ""
 		if !c.Verified {
@@ -219,7 +221,7 @@ func verdictGlyph(v model.Verdict) string {
 func (a *App) inputLines(w int) []string {
 	st := &a.styles
 	var lines []string
-	coolName := CoolingName(a.cur.cooling, a.cur.cf)
+	coolName := report.CoolingName(a.cur.cooling, a.cur.cf)
 	for i, in := range a.in.visible() {
 		label := fit(in.label, 9)
 		val := valueText(in, &a.cur.params, coolName)

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"cloudwind/cooling"
+	"cloudwind/internal/quantity"
 	"cloudwind/model"
 )
 
@@ -81,9 +82,9 @@ func thresholdChart(r chartRequest) *LineChart {
 				}
 			}
 			for k, m := range machs {
-				c.Series = append(c.Series, Series{Name: fmt.Sprintf("%s M = %s", r.criteria[sel].ID, FormatSig(m, 3)), X: xs, Y: ys[k], Index: k})
+				c.Series = append(c.Series, Series{Name: fmt.Sprintf("%s M = %s", r.criteria[sel].ID, quantity.FormatSig(m, 3)), X: xs, Y: ys[k], Index: k})
 			}
-			c.Title = "threshold radius vs χ: " + Sanitize(r.criteria[sel].Label) + " at four Mach numbers"
+			c.Title = "threshold radius vs χ: " + quantity.Sanitize(r.criteria[sel].Label) + " at four Mach numbers"
 			return
 		}
 		ys := make([][]float64, len(r.criteria))
@@ -103,7 +104,7 @@ func thresholdChart(r chartRequest) *LineChart {
 			}
 		}
 		for _, i := range rad {
-			c.Series = append(c.Series, Series{Name: prefix + Sanitize(r.criteria[i].ID), X: xs, Y: ys[i], Index: i, Dashed: dashed})
+			c.Series = append(c.Series, Series{Name: prefix + quantity.Sanitize(r.criteria[i].ID), X: xs, Y: ys[i], Index: i, Dashed: dashed})
 		}
 	}
 	if r.pin != nil {
@@ -177,7 +178,7 @@ func coolingChart(r chartRequest) *LineChart {
 	}
 	name := "Λ(T)"
 	if p, ok := r.cf.(*cooling.PowerLaw); ok {
-		name = Sanitize(p.Meta().Name)
+		name = quantity.Sanitize(p.Meta().Name)
 	}
 	c := &LineChart{
 		Title:  "cooling function Λ(T) per n_H²",
@@ -189,7 +190,7 @@ func coolingChart(r chartRequest) *LineChart {
 	if r.pin != nil && r.pin.cf != r.cf {
 		aname := "A: Λ(T)"
 		if p, ok := r.pin.cf.(*cooling.PowerLaw); ok {
-			aname = "A: " + Sanitize(p.Meta().Name)
+			aname = "A: " + quantity.Sanitize(p.Meta().Name)
 		}
 		c.Series = append(c.Series, Series{Name: aname, X: xs, Y: curve(r.pin.cf), Index: 1, Dashed: true})
 	}

@@ -4,6 +4,8 @@ import (
 	"math"
 	"strings"
 
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/report"
 	"cloudwind/model"
 )
 
@@ -52,7 +54,7 @@ func evolutionCharts(r chartRequest) (mass, vel *LineChart) {
 				vs[k] = v
 			}
 		}
-		name := Sanitize(c.ID)
+		name := quantity.Sanitize(c.ID)
 		mass.Series = append(mass.Series, Series{Name: name, X: ts, Y: ms, Index: i})
 		vel.Series = append(vel.Series, Series{Name: name, X: ts, Y: vs, Index: i})
 	}
@@ -81,17 +83,17 @@ func planLines(r chartRequest) []string {
 	if err != nil {
 		return []string{err.Error()}
 	}
-	lines := []string{"Plan for a growth study at r_cl = " + Format(model.DimLength, float64(r.params.RCloud)) +
+	lines := []string{"Plan for a growth study at r_cl = " + quantity.Format(model.DimLength, float64(r.params.RCloud)) +
 		" (defaults; cloudwind plan sets every assumption)", ""}
-	lines = append(lines, strings.Split(strings.TrimRight(PlanText(&pl), "\n"), "\n")...)
+	lines = append(lines, strings.Split(strings.TrimRight(report.PlanText(&pl), "\n"), "\n")...)
 	cmp, err := model.ComparePlans(r.params, r.cf, r.criteria, set, disp)
 	if err == nil && len(cmp) > 0 {
 		lines = append(lines, "", "To tell the criteria apart:")
 		for i := range cmp {
 			c := &cmp[i]
-			lines = append(lines, "  r_cl = "+Format(model.DimLength, float64(c.RCloud))+": "+strings.Join(c.Survive, ", ")+
-				" survive; "+strings.Join(c.Destroy, ", ")+" destroyed — "+FormatSig(c.Plan.RunTcc, 3)+" t_cc, "+
-				FormatSig(c.Plan.Cells, 3)+" cells, "+FormatSig(c.Plan.CoreHours, 3)+" core-hours")
+			lines = append(lines, "  r_cl = "+quantity.Format(model.DimLength, float64(c.RCloud))+": "+strings.Join(c.Survive, ", ")+
+				" survive; "+strings.Join(c.Destroy, ", ")+" destroyed — "+quantity.FormatSig(c.Plan.RunTcc, 3)+" t_cc, "+
+				quantity.FormatSig(c.Plan.Cells, 3)+" cells, "+quantity.FormatSig(c.Plan.CoreHours, 3)+" core-hours")
 		}
 	}
 	return lines

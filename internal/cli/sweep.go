@@ -1,0 +1,243 @@
+package cli
+
+import (
+	"context"
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+	"runtime"
+	"strings"
+	"syscall"
+	"time"
+
+	"cloudwind/model"
+)
+
+const sweepSynopsis = `Usage: cloudwind sweep [grid flags] [scenario flags] [--format csv|ecsv|json|jsonl] [-o FILE]
+
+Evaluate every criterion over a grid of inputs: the Cartesian product of
+the swept flags. Each of --chi --mach --pressure --t-cloud --radius
+--metallicity takes a single value, a comma list ("1,3,10"), or a range
+lin:A:B:N or log:A:B:N (N points, both ends included; values may carry
+units, e.g. "log:0.1pc:1kpc:31"). One row per grid point: the inputs, the
+main derived quantities, and for each criterion its ratio, threshold radius
+(pc), margin and verdict. The radius varies fastest, then the Mach number,
+χ, pressure, cloud temperature and metallicity.
+
+Formats: csv; ecsv (astropy's Enhanced CSV: units, descriptions and the
+run's settings in a YAML header); json (one document with metadata and a
+rows array); jsonl (JSON Lines, one row object per line, for large grids).
+Output goes to stdout, or with -o to FILE, written atomically: an
+interrupted or failed run leaves no partial file.`
+
+const sweepExamples = `  cloudwind sweep --chi log:10:1e4:61 --radius log:0.01:1e3:101 --format csv -o grid.csv
+  cloudwind sweep --chi 100,300,1000 --mach 0.5,1,1.5 --radius "log:0.1pc:1kpc:41" --format ecsv -o grid.ecsv
+  cloudwind sweep --metallicity lin:0.1:1:10 --cooling builtin --format jsonl | head`
+
+// sweepOptions are the parsed flags of sweep.
+type sweepOptions struct {
+	base     model.Params
+	grid     sweepGrid
+	cooling  *coolingSource
+	criteria []model.Criterion
+	format   sweepFormat
+	out      string
+	workers  int
+	progress bool
+}
+
+func runSweep(e *env) error {
+	f := newFlagSet("sweep", sweepSynopsis, sweepExamples)
+	var sf scenarioFlags
+	sf.register(f)
+	format := f.fs.String("format", "csv", "output format: csv, ecsv, json or jsonl")
+	out := f.fs.String("o", "", "write to FILE (atomically) instead of stdout")
+	force := f.fs.Bool("force", false, fmt.Sprintf("run grids larger than %d points", maxGridDefault))
+	workers := f.fs.Int("workers", runtime.GOMAXPROCS(0), "parallel workers")
+	if err := f.parse(e); err != nil {
+		return err
+	}
+	opt, err := sweepSetup(e, &sf, f, *format, *workers, *force)
+	if err != nil {
+		return err
+	}
+	opt.out = *out
+	opt.progress = isTerminal(e.stderr) && opt.grid.total >= 200_000
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
+	defer stop()
+	if opt.out == "" || opt.out == "-" {
+		return runSweepTo(ctx, e, opt, e.stdout)
+	}
+	return writeFileAtomic(opt.out, func(w io.Writer) error { return runSweepTo(ctx, e, opt, w) })
+}
+
+// sweepSetup parses and validates everything before any output.
+func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers int, force bool) (*sweepOptions, error) {
+	opt := &sweepOptions{workers: workers}
+	var ok bool
+	if opt.format, ok = lookupSweepFormat(format); !ok {
+		return nil, usagef("--format: want csv, ecsv, json or jsonl (got %q)", sanitizeArg(format))
+	}
+	if workers < 1 || workers > 1024 {
+		return nil, usagef("--workers: want 1 to 1024 (got %d)", workers)
+	}
+	// The swept flags, parsed as specs; the single-valued rest as eval does.
+	flagsByName := map[string]scenarioFlag{}
+	for _, s := range numericScenarioFlags() {
+		flagsByName[s.name] = s
+	}
+	if err := sf.load(e); err != nil {
+		return nil, err
+	}
+	var axes []sweepAxis
+	plain := *sf
+	for _, name := range sweepAxisOrder {
+		s := flagsByName[name]
+		spec := *s.ptr(sf)
+		vs, err := parseAxis(name, s.kind, spec)
+		if err != nil {
+			return nil, err
+		}
+		if len(vs) == 1 {
+			continue // a single value: keep it as a plain input
+		}
+		axes = append(axes, sweepAxis{flag: name, field: s.field, kind: s.kind, spec: spec, values: vs})
+		*s.ptr(&plain) = "" // parsed by the axis
+	}
+	base, err := plain.parse()
+	if err != nil {
+		return nil, err
+	}
+	for _, a := range axes {
+		setField(&base, a.field, a.values[0]) // a valid value for the checks below
+	}
+	if err := base.Validate(); err != nil {
+		return nil, fieldUsage(err)
+	}
+	opt.base = base
+	opt.grid = newSweepGrid(axes)
+	if opt.grid.total > maxGridDefault && !force {
+		return nil, usagef("the grid has %s points, more than %d; pass --force to run it", gridSize(opt.grid.total), maxGridDefault)
+	}
+	if err := opt.grid.validate(base); err != nil {
+		return nil, err
+	}
+	if opt.cooling, err = sf.source(e); err != nil {
+		return nil, err
+	}
+	if opt.criteria, err = loadCriteria(e, sf.criteria); err != nil {
+		return nil, err
+	}
+	// Every metallicity must give a cooling function.
+	for _, z := range metallicities(opt) {
+		if _, err := opt.cooling.Function(z); err != nil {
+			return nil, usagef("--metallicity %g: %v", z, err)
+		}
+	}
+	return opt, nil
+}
+
+// metallicities returns the metallicities of the sweep.
+func metallicities(opt *sweepOptions) []float64 {
+	for _, a := range opt.grid.axes {
+		if a.field == model.FieldMetallicity {
+			return a.values
+		}
+	}
+	return []float64{opt.base.Metallicity}
+}
+
+func gridSize(n int) string {
+	if n == int(^uint(0)>>1) {
+		return "more than 9.2e18"
+	}
+	return fmt.Sprintf("%d", n)
+}
+
+// isTerminal reports whether w is a terminal (a character device).
+func isTerminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}
+
+// sweepMeta describes the run for ECSV and JSON headers.
+func sweepMeta(opt *sweepOptions) []metaItem {
+	q := opt.base.WithDefaults()
+	var grid []metaItem
+	for _, a := range opt.grid.axes {
+		grid = append(grid, metaItem{a.flag, a.spec})
+	}
+	var crit []any
+	for _, c := range opt.criteria {
+		crit = append(crit, []metaItem{
+			{"id", c.ID}, {"label", c.Label}, {"formula", c.Formula()}, {"cooling_time", c.Cool.String()},
+			{"dynamical_time", c.Dyn.String()}, {"alpha", c.Alpha}, {"beta", c.Beta}, {"verified", c.Verified},
+			{"status", c.Status}, {"citation", c.Citation.String()},
+			{"calibrated_range", []metaItem{{"chi", []any{c.Range.Chi.Min, c.Range.Chi.Max}}, {"mach", []any{c.Range.Mach.Min, c.Range.Mach.Max}},
+				{"t_cloud_k", []any{c.Range.TCloud.Min, c.Range.TCloud.Max}}, {"status", c.Range.Status}}},
+		})
+	}
+	cool := []metaItem{{"spec", opt.cooling.Spec}, {"description", opt.cooling.Desc}}
+	if m := opt.cooling.Meta; m != nil {
+		cool = append(cool, metaItem{"citation", m.Citation}, metaItem{"source_normalisation", m.Normalisation.String()},
+			metaItem{"helium_ratio", m.HeliumRatio}, metaItem{"mixture", m.Mixture}, metaItem{"historical", m.Historical},
+			metaItem{"caveats", stringsToAny(m.Caveats)}, metaItem{"warnings", stringsToAny(m.Warnings)})
+	}
+	return []metaItem{
+		{"program", "cloudwind " + versionString()},
+		{"grid", grid},
+		{"row_order", "radius fastest, then mach, chi, pressure, t_cloud, metallicity"},
+		{"fixed_inputs", []metaItem{{"chi", q.Chi}, {"mach", q.Mach}, {"pressure_kcm3", float64(q.Pressure)}, {"t_cloud_k", float64(q.TCloud)},
+			{"radius_pc", float64(q.RCloud / model.Parsec)}, {"metallicity_zsun", q.Metallicity}}},
+		{"conventions", []metaItem{{"heat_capacity", q.HeatCapacity.String()}, {"heat_capacity_f", q.HeatCapacity.Factor()},
+			{"density_product", q.DensityProduct.String()}, {"gamma", q.Gamma}, {"mu_cloud", q.MuCold}, {"mu_hot", q.MuHot},
+			{"hydrogen_fraction", q.HydrogenFraction}, {"mixture", q.Mixture.Name}, {"t_floor_k", tFloorMeta(opt.base)},
+			{"mach_reference", "hot-gas adiabatic sound speed"}, {"lambda_normalisation", "per n_H^2"}}},
+		{"cooling", cool},
+		{"criteria", crit},
+	}
+}
+
+// tFloorMeta is the floor, or "t_cloud" when it follows the cloud temperature.
+func tFloorMeta(p model.Params) any {
+	if p.TFloor == 0 {
+		return "t_cloud"
+	}
+	return float64(p.TFloor)
+}
+
+func stringsToAny(s []string) []any {
+	out := make([]any, len(s))
+	for i, v := range s {
+		out[i] = v
+	}
+	return out
+}
+
+// progressBar draws a one-line progress bar on a terminal.
+type progressBar struct {
+	w     io.Writer
+	total int
+	start time.Time
+	last  time.Time
+}
+
+func (p *progressBar) update(done int, final bool) {
+	now := time.Now()
+	if !final && now.Sub(p.last) < 100*time.Millisecond {
+		return
+	}
+	p.last = now
+	const width = 30
+	frac := float64(done) / float64(p.total)
+	n := int(frac * width)
+	fmt.Fprintf(p.w, "\r[%s%s] %3.0f%%  %d/%d points  %.1f s", strings.Repeat("=", n), strings.Repeat(" ", width-n), 100*frac, done, p.total, now.Sub(p.start).Seconds())
+	if final {
+		fmt.Fprint(p.w, "\n")
+	}
+}

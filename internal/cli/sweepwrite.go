@@ -1,0 +1,238 @@
+package cli
+
+import (
+	"encoding/json"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+)
+
+// A metaItem is one entry of the run's metadata, kept in order. A value is
+// a string, float64, int, bool, []any, []metaItem or nil.
+type metaItem struct {
+	key   string
+	value any
+}
+
+// sweepFormat writes one output format.
+type sweepFormat struct {
+	name      string
+	json      bool // numbers that do not exist are null, strings are quoted
+	header    func(w io.Writer, cols []sweepColumn, meta []metaItem) error
+	appendRow func(b []byte, cols []sweepColumn, fields [][]byte, first bool) []byte
+	footer    string
+}
+
+// lookupSweepFormat returns the writer of a --format name.
+func lookupSweepFormat(name string) (sweepFormat, bool) {
+	switch name {
+	case "csv":
+		return sweepFormat{name: name, header: csvHeader, appendRow: delimitedRow(',')}, true
+	case "ecsv":
+		return sweepFormat{name: name, header: ecsvHeader, appendRow: delimitedRow(' ')}, true
+	case "json":
+		return sweepFormat{name: name, json: true, header: jsonHeader, appendRow: jsonRow(true), footer: "\n]}\n"}, true
+	case "jsonl":
+		return sweepFormat{name: name, json: true, header: func(io.Writer, []sweepColumn, []metaItem) error { return nil }, appendRow: jsonRow(false)}, true
+	}
+	return sweepFormat{}, false
+}
+
+func csvHeader(w io.Writer, cols []sweepColumn, _ []metaItem) error {
+	names := make([]string, len(cols))
+	for i, c := range cols {
+		names[i] = c.name
+	}
+	_, err := io.WriteString(w, strings.Join(names, ",")+"\n")
+	return err
+}
+
+// delimitedRow writes a CSV or ECSV data line from formatted fields. No
+// field needs quoting: numbers, and verdict words without spaces or commas.
+func delimitedRow(sep byte) func([]byte, []sweepColumn, [][]byte, bool) []byte {
+	return func(b []byte, _ []sweepColumn, fields [][]byte, _ bool) []byte {
+		for i, f := range fields {
+			if i > 0 {
+				b = append(b, sep)
+			}
+			b = append(b, f...)
+		}
+		return append(b, '\n')
+	}
+}
+
+// jsonRow writes one row object from formatted fields (strings arrive
+// quoted); in a JSON document (doc) rows after the first start with a comma.
+func jsonRow(doc bool) func([]byte, []sweepColumn, [][]byte, bool) []byte {
+	return func(b []byte, cols []sweepColumn, fields [][]byte, first bool) []byte {
+		if doc && !first {
+			b = append(b, ",\n"...)
+		} else if doc {
+			b = append(b, '\n')
+		}
+		b = append(b, '{')
+		for i, f := range fields {
+			if i > 0 {
+				b = append(b, ',')
+			}
+			b = append(b, cols[i].jsonKey...)
+			b = append(b, f...)
+		}
+		b = append(b, '}')
+		if !doc {
+			b = append(b, '\n')
+		}
+		return b
+	}
+}
+
+// ecsvHeader writes the header of astropy's Enhanced Character Separated
+// Values format (ECSV 1.0): a YAML block after "# %ECSV 1.0" and "# ---"
+// with each column's name, unit, datatype and description, and the run's
+// settings as ordered metadata, then the line of column names.
+// Values are written as YAML flow collections with JSON-quoted strings and
+// floats with a point and a signed exponent, so that YAML 1.1 readers
+// (PyYAML, as astropy uses) read them as numbers.
+func ecsvHeader(w io.Writer, cols []sweepColumn, meta []metaItem) error {
+	var b strings.Builder
+	b.WriteString("# %ECSV 1.0\n# ---\n# delimiter: ' '\n# datatype:\n")
+	for _, c := range cols {
+		dt := "float64"
+		if c.isString {
+			dt = "string"
+		}
+		b.WriteString("# - {name: " + yamlString(c.name))
+		if c.unit != "" {
+			b.WriteString(", unit: " + yamlString(c.unit))
+		}
+		b.WriteString(", datatype: " + dt + ", description: " + yamlString(c.description) + "}\n")
+	}
+	b.WriteString("# meta: !!omap\n")
+	for _, m := range meta {
+		b.WriteString("# - {" + yamlString(m.key) + ": " + yamlValue(m.value) + "}\n")
+	}
+	b.WriteString("# schema: astropy-2.0\n")
+	for i, c := range cols {
+		if i > 0 {
+			b.WriteByte(' ')
+		}
+		b.WriteString(c.name)
+	}
+	b.WriteByte('\n')
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+// yamlString quotes s as a YAML double-quoted scalar (JSON's escapes are
+// valid YAML escapes).
+func yamlString(s string) string {
+	var b strings.Builder
+	enc := json.NewEncoder(&b)
+	enc.SetEscapeHTML(false)
+	enc.Encode(s)
+	return strings.TrimSuffix(b.String(), "\n")
+}
+
+// yamlValue writes v in YAML flow style.
+func yamlValue(v any) string {
+	switch x := v.(type) {
+	case nil:
+		return "null"
+	case string:
+		return yamlString(x)
+	case bool:
+		return strconv.FormatBool(x)
+	case int:
+		return strconv.Itoa(x)
+	case float64:
+		return yamlFloat(x)
+	case []any:
+		parts := make([]string, len(x))
+		for i, e := range x {
+			parts[i] = yamlValue(e)
+		}
+		return "[" + strings.Join(parts, ", ") + "]"
+	case []metaItem:
+		parts := make([]string, len(x))
+		for i, e := range x {
+			parts[i] = yamlString(e.key) + ": " + yamlValue(e.value)
+		}
+		return "{" + strings.Join(parts, ", ") + "}"
+	}
+	panic("cloudwind: unsupported metadata value")
+}
+
+// yamlFloat writes a float that YAML 1.1 resolves as a float: a point in
+// the mantissa and a signed exponent, or .inf/.nan.
+func yamlFloat(v float64) string {
+	switch {
+	case math.IsNaN(v):
+		return ".nan"
+	case math.IsInf(v, 1):
+		return ".inf"
+	case math.IsInf(v, -1):
+		return "-.inf"
+	}
+	s := strconv.FormatFloat(v, 'e', -1, 64) // e.g. 1e+06, -2.5e-22
+	mant, exp, _ := strings.Cut(s, "e")
+	if !strings.Contains(mant, ".") {
+		mant += ".0"
+	}
+	return mant + "e" + exp
+}
+
+// jsonValue converts metadata to values encoding/json writes in order.
+func jsonValue(v any) any {
+	switch x := v.(type) {
+	case float64:
+		return finite(x)
+	case []any:
+		out := make([]any, len(x))
+		for i, e := range x {
+			out[i] = jsonValue(e)
+		}
+		return out
+	case []metaItem:
+		return orderedJSON(x)
+	}
+	return v
+}
+
+// orderedJSON is a JSON object that keeps its keys in order.
+type orderedJSON []metaItem
+
+func (o orderedJSON) MarshalJSON() ([]byte, error) {
+	b := []byte{'{'}
+	for i, m := range o {
+		if i > 0 {
+			b = append(b, ',')
+		}
+		k, _ := json.Marshal(m.key)
+		v, err := json.Marshal(jsonValue(m.value))
+		if err != nil {
+			return nil, err
+		}
+		b = append(append(append(b, k...), ':'), v...)
+	}
+	return append(b, '}'), nil
+}
+
+func jsonHeader(w io.Writer, cols []sweepColumn, meta []metaItem) error {
+	colMeta := make([]any, len(cols))
+	for i, c := range cols {
+		dt := "float64"
+		if c.isString {
+			dt = "string"
+		}
+		colMeta[i] = []metaItem{{"name", c.name}, {"unit", c.unit}, {"datatype", dt}, {"description", c.description}}
+	}
+	head, err := json.Marshal(orderedJSON{{"schema", "cloudwind.sweep/1"}, {"meta", meta}, {"columns", colMeta}})
+	if err != nil {
+		return err
+	}
+	// Leave the object open: the rows follow.
+	head = append(head[:len(head)-1], `,"rows":[`...)
+	_, err = w.Write(head)
+	return err
+}

@@ -1,0 +1,141 @@
+// Package report builds the documents cloudwind writes for scripts and
+// people, shared by the commands and the explorer: the JSON state document
+// (schema cloudwind.eval/1), the cooling description and the plan text.
+package report
+
+import (
+	"math"
+
+	"cloudwind/internal/quantity"
+	"cloudwind/internal/safetext"
+
+	"cloudwind/cooling"
+	"cloudwind/model"
+)
+
+// StateSchema names the layout of the state document (cloudwind eval's
+// JSON and the explorer's JSON export); it changes only when a field
+// changes meaning or disappears.
+const StateSchema = "cloudwind.eval/1"
+
+// JSONNumber returns v, or nil (JSON null) when v is NaN or ±Inf.
+func JSONNumber(v float64) any {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return nil
+	}
+	return v
+}
+
+// jsonInterval returns [min, max] with open ends as null.
+func jsonInterval(i model.Interval) []any { return []any{JSONNumber(i.Min), JSONNumber(i.Max)} }
+
+// StateDocument describes an evaluated state for JSON output: inputs,
+// cooling function, every derived quantity (keys carry their unit, e.g.
+// t_cc_myr), every criterion's outcome, and the cautions.
+func StateDocument(r *model.Result, src *cooling.Source, cf model.CoolingFunction, version string) map[string]any {
+	q := r.Params
+	doc := map[string]any{
+		"schema":  StateSchema,
+		"version": version,
+		"inputs": map[string]any{
+			"chi":               q.Chi,
+			"mach":              q.Mach,
+			"pressure_kcm3":     float64(q.Pressure),
+			"t_cloud_k":         float64(q.TCloud),
+			"radius_pc":         quantity.Convert(model.DimLength, float64(q.RCloud)),
+			"metallicity_zsun":  q.Metallicity,
+			"gamma":             q.Gamma,
+			"mu_cloud":          q.MuCold,
+			"mu_hot":            q.MuHot,
+			"mixture":           q.Mixture.Name,
+			"hydrogen_fraction": q.HydrogenFraction,
+			"t_floor_k":         float64(q.TFloor),
+			"heat_capacity":     q.HeatCapacity.String(),
+			"heat_capacity_f":   q.HeatCapacity.Factor(),
+			"density_product":   q.DensityProduct.String(),
+		},
+		"cooling": CoolingDocument(src, cf),
+	}
+	derived := map[string]any{}
+	for _, qt := range model.Quantities() {
+		derived[quantity.JSONKey(qt.Key, qt.Dim)] = JSONNumber(quantity.Convert(qt.Dim, qt.Value(&r.State)))
+	}
+	doc["derived"] = derived
+	crit := make([]map[string]any, len(r.Criteria))
+	for i := range r.Criteria {
+		c, o := &r.Criteria[i], r.Outcomes[i]
+		leaves := o.Leaves.Names()
+		if leaves == nil {
+			leaves = []string{}
+		}
+		crit[i] = map[string]any{
+			"id":             c.ID,
+			"label":          c.Label,
+			"formula":        c.Formula(),
+			"cooling_time":   c.Cool.String(),
+			"dynamical_time": c.Dyn.String(),
+			"alpha":          JSONNumber(c.Alpha),
+			"beta":           JSONNumber(c.Beta),
+			"threshold":      JSONNumber(o.Threshold),
+			"ratio":          JSONNumber(o.Ratio),
+			"radius_crit_pc": JSONNumber(quantity.Convert(model.DimLength, float64(o.RCrit))),
+			"margin":         JSONNumber(o.Margin),
+			"verdict":        o.Verdict.String(),
+			"verified":       c.Verified,
+			"status":         c.Status,
+			"in_range":       o.InRange(),
+			"out_of_range":   leaves,
+			"calibrated_range": map[string]any{
+				"chi": jsonInterval(c.Range.Chi), "mach": jsonInterval(c.Range.Mach), "t_cloud_k": jsonInterval(c.Range.TCloud),
+				"status": c.Range.Status,
+			},
+			"citation": c.Citation.String(),
+			"arxiv":    c.Citation.ArXiv,
+			"note":     c.Note,
+		}
+	}
+	doc["criteria"] = crit
+	cautions := make([]map[string]string, 0, len(r.Cautions))
+	for _, c := range r.Cautions {
+		cautions = append(cautions, map[string]string{"field": c.Field, "message": c.Message})
+	}
+	doc["cautions"] = cautions
+	return doc
+}
+
+// CoolingName names the cooling function in use.
+func CoolingName(src *cooling.Source, cf model.CoolingFunction) string {
+	if p, ok := cf.(*cooling.PowerLaw); ok {
+		return safetext.Terminal(p.Meta().Name)
+	}
+	return src.Desc
+}
+
+// CoolingDocument describes the cooling function in use for JSON output.
+func CoolingDocument(src *cooling.Source, cf model.CoolingFunction) map[string]any {
+	out := map[string]any{"spec": src.Spec, "name": CoolingName(src, cf), "z_dependent": src.ZDependent}
+	p, ok := cf.(*cooling.PowerLaw)
+	if !ok {
+		out["normalisation"] = "nH2"
+		return out
+	}
+	m := p.Meta()
+	lo, hi := p.ValidRange()
+	out["citation"] = m.Citation
+	out["source_normalisation"] = m.Normalisation.String()
+	out["helium_ratio"] = JSONNumber(m.HeliumRatio)
+	out["metallicity_zsun"] = JSONNumber(m.Metallicity)
+	out["mixture"] = m.Mixture
+	out["historical"] = m.Historical
+	out["table_range_k"] = []any{JSONNumber(float64(lo)), JSONNumber(float64(hi))}
+	out["caveats"] = nonNil(m.Caveats)
+	out["warnings"] = nonNil(m.Warnings)
+	return out
+}
+
+func nonNil(s []string) []string {
+	if s == nil {
+		return []string{}
+	}
+	return s
+}

@@ -1,0 +1,148 @@
+// Package scenario reads the files people write for cloudwind: criteria
+// files and scenario files. Every error names the file and the line of the
+// problem.
+//
+// # The TOML subset
+//
+// ParseTOML reads a strict subset of TOML v1.0.0 (https://toml.io/en/v1.0.0)
+// with a reader of its own:
+//
+//   - UTF-8 text with LF or CRLF line endings and an optional byte-order
+//     mark; invalid UTF-8 and control characters other than tab are errors
+//     anywhere, comments included;
+//   - # comments and blank lines;
+//   - [table] and [table.sub] headers, and [[array]] headers for arrays of
+//     tables, where [array.sub] is a sub-table of the array's last element;
+//   - key = value with bare keys (A-Z, a-z, 0-9, '_', '-');
+//   - basic strings "..." with the escapes \" \\ \n \t \r \uXXXX and
+//     \UXXXXXXXX, and literal strings '...';
+//   - integers (decimal with sign and '_' between digits, 0x, 0o, 0b),
+//     floats (fraction, exponent, inf and nan), and true and false;
+//   - arrays of those scalars, on one line or several, with a trailing
+//     comma and comments allowed.
+//
+// Valid TOML outside the subset (quoted and dotted keys, inline tables,
+// nested arrays, multi-line strings, the escapes \b and \f, dates and
+// times) is refused with an error wrapping ErrUnsupported, which reads
+// "... not supported by cloudwind's TOML reader". Invalid TOML (duplicate
+// keys, a table defined twice, a key that is also a table) is refused too.
+// Inputs beyond MaxInputSize, MaxTableDepth, MaxTables or MaxValues are
+// refused with ErrTooLarge, so no file can exhaust memory.
+//
+// # Criteria files
+//
+// A criteria file corrects a constant of a built-in criterion or adds a
+// criterion from a new paper, without recompiling. LoadCriteria reads one:
+//
+//	# cloudwind criteria file
+//	[[criterion]]
+//	id = "li-2020"          # an existing built-in id: only the keys given here change
+//	alpha = 5
+//	verified = true
+//	status = "alpha checked against Li et al. 2020, Sec. 4"
+//
+//	[[criterion]]
+//	id = "my-2026"           # a new id: every key down to alpha is required
+//	label = "Me et al. 2026"
+//	authors = "Me, You & Them"
+//	year = 2026
+//	journal = "MNRAS 999, 1" # "" when not known
+//	arxiv = "2601.00001"     # "" when there is none
+//	equation = "12"          # "" when not read from the paper
+//	cooling_time = "mix"     # none | hot | mix | minmix | cold
+//	dynamical_time = "t_cc"  # t_cc | t_shear
+//	alpha = 1.0
+//	beta = -0.5              # optional, default 0
+//	verified = false         # optional, default false
+//	status = "from memory — check the paper"
+//	note = "one-line summary"
+//	[criterion.range]        # optional: the calibrated range of the criterion above
+//	chi = [100, 1000]        # [min, max]; omit a key for no limit
+//	mach = [1, 10]
+//	t_cloud = [1e4, 4e4]     # K
+//	status = "from the paper's Table 1"
+//
+// The criterion tested is τ_cool,X / τ_dyn,Y < α (χ/100)^β, with X the
+// cooling_time and Y the dynamical_time; see model.Criterion.
+//
+// Rules, checked with the line of the offending key or header:
+//
+//   - the only table is [[criterion]] with its [criterion.range]; no key
+//     may stand outside them, and unknown keys are errors that suggest the
+//     closest known key;
+//   - an id may appear once per file;
+//   - numbers must be finite, except in ranges, where -inf as min or inf
+//     as max leaves that side open (omit the key to leave both open);
+//   - strings are stored as written but may not hold control characters
+//     (raw or escaped);
+//   - year is an integer from 1 to 9999;
+//   - the merged criterion must pass (*model.Criterion).Validate.
+//
+// Status texts written by the merge: an override that changes alpha, beta,
+// cooling_time or dynamical_time without saying verified = true becomes
+// unverified with Status "changed by criteria file NAME: " followed by the
+// file's status or "not verified"; with verified = true but no status it
+// gets "changed by criteria file NAME: marked verified, no status given".
+// An override that changes a range interval without a range status gets
+// Range.Status "changed by criteria file NAME". A new criterion without a
+// status gets "from criteria file NAME, no status given", and without a
+// range status "not given in criteria file NAME".
+//
+// # Scenario files
+//
+// A scenario file holds one problem as the explorer saves it: the inputs,
+// the conventions and the cooling function. Parse reads one and
+// Write writes one:
+//
+//	# cloudwind scenario
+//	[scenario]
+//	name = "Starburst outflow, inner kpc"  # shown in the explorer
+//	description = "free text"
+//	demo = false              # true only for cloudwind's fictional demo scenarios
+//
+//	[inputs]                  # a key left out takes the fiducial value of model.Fiducial()
+//	chi = 300                 # rho_cl/rho_hot
+//	mach = 1.5
+//	pressure = 1e5            # P/k_B in K cm^-3
+//	t_cloud = 1e4             # K
+//	radius = 10               # pc
+//	metallicity = 1           # Z/Z_sun
+//
+//	[conventions]             # every key optional; left out = the model default
+//	gamma = 1.6666666666666667
+//	mu = 0.6
+//	mu_cloud = 0.6
+//	mu_hot = 0.6
+//	mixture = "A09"           # A09, A09p, AG89, GS98 or A21 (model.Mixtures)
+//	hydrogen_fraction = 0.7381
+//	t_floor = 1e4             # K; left out = the cloud temperature
+//	heat_capacity = "isochoric"  # or "isobaric"
+//	density_product = "nh2"      # or "n2"
+//
+//	[cooling]                 # optional; left out = the program's default
+//	spec = "builtin"          # a name, const:LAMBDA, powerlaw:L0,T0,SLOPE or a table path
+//	table = ["norm: nH2", "columns: T=1 lambda=2"]  # settings for a table path
+//
+// Rules, checked with the line of the offending key or table header:
+//
+//   - the tables are [scenario], [inputs], [conventions] and [cooling], each
+//     at most once and all optional; no key may stand outside them, and
+//     unknown keys and tables are errors that suggest the closest known one;
+//   - numbers must be finite; integers and floats are both accepted;
+//   - a convention number may not be 0 (which the model reads as "use the
+//     default"): leave the key out for the default;
+//   - mixture, heat_capacity and density_product take the names above;
+//   - strings may not hold control characters (raw or escaped), line
+//     separators or bidirectional overrides (U+2028–U+202E,
+//     U+2066–U+2069), so no file can disguise what the explorer shows;
+//   - table needs spec; the program, not this package, resolves spec, and
+//     reads a relative table path from the scenario file's directory;
+//   - the inputs and conventions together must pass
+//     (model.Params).Validate; its error is reported on the line of the key
+//     it names (for the wind-temperature check on chi, on t_cloud or the
+//     μ keys when chi is left out).
+//
+// Write writes every input and only the conventions that are set
+// (non-zero in model.Params), with numbers in their shortest round-tripping
+// form, so that reading the file back gives an equal Scenario.
+package scenario
