@@ -180,7 +180,6 @@ func (ip *inputsPane) step(p model.Params, n int, coolingSpec string) (model.Par
 	return p, ""
 }
 
-
 // roundTo rounds v to a multiple of step/1000, removing float noise from
 // repeated additions.
 func roundTo(v, step float64) float64 {
