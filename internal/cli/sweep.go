@@ -11,6 +11,8 @@ import (
 	"syscall"
 	"time"
 
+	"cloudwind/internal/report"
+
 	"cloudwind/model"
 )
 
@@ -41,7 +43,7 @@ type sweepOptions struct {
 	grid     sweepGrid
 	cooling  *coolingSource
 	criteria []model.Criterion
-	format   sweepFormat
+	format   report.Format
 	out      string
 	workers  int
 	progress bool
@@ -76,7 +78,7 @@ func runSweep(e *env) error {
 func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers int, force bool) (*sweepOptions, error) {
 	opt := &sweepOptions{workers: workers}
 	var ok bool
-	if opt.format, ok = lookupSweepFormat(format); !ok {
+	if opt.format, ok = report.LookupFormat(format); !ok {
 		return nil, usagef("--format: want csv, ecsv, json or jsonl (got %q)", sanitizeArg(format))
 	}
 	if workers < 1 || workers > 1024 {
@@ -166,40 +168,40 @@ func isTerminal(w io.Writer) bool {
 }
 
 // sweepMeta describes the run for ECSV and JSON headers.
-func sweepMeta(opt *sweepOptions) []metaItem {
+func sweepMeta(opt *sweepOptions) []report.Meta {
 	q := opt.base.WithDefaults()
-	var grid []metaItem
+	var grid []report.Meta
 	for _, a := range opt.grid.axes {
-		grid = append(grid, metaItem{a.flag, a.spec})
+		grid = append(grid, report.KV(a.flag, a.spec))
 	}
 	var crit []any
 	for _, c := range opt.criteria {
-		crit = append(crit, []metaItem{
-			{"id", c.ID}, {"label", c.Label}, {"formula", c.Formula()}, {"cooling_time", c.Cool.String()},
-			{"dynamical_time", c.Dyn.String()}, {"alpha", c.Alpha}, {"beta", c.Beta}, {"verified", c.Verified},
-			{"status", c.Status}, {"citation", c.Citation.String()},
-			{"calibrated_range", []metaItem{{"chi", []any{c.Range.Chi.Min, c.Range.Chi.Max}}, {"mach", []any{c.Range.Mach.Min, c.Range.Mach.Max}},
-				{"t_cloud_k", []any{c.Range.TCloud.Min, c.Range.TCloud.Max}}, {"status", c.Range.Status}}},
+		crit = append(crit, []report.Meta{
+			report.KV("id", c.ID), report.KV("label", c.Label), report.KV("formula", c.Formula()), report.KV("cooling_time", c.Cool.String()),
+			report.KV("dynamical_time", c.Dyn.String()), report.KV("alpha", c.Alpha), report.KV("beta", c.Beta), report.KV("verified", c.Verified),
+			report.KV("status", c.Status), report.KV("citation", c.Citation.String()),
+			report.KV("calibrated_range", []report.Meta{report.KV("chi", []any{c.Range.Chi.Min, c.Range.Chi.Max}), report.KV("mach", []any{c.Range.Mach.Min, c.Range.Mach.Max}),
+				report.KV("t_cloud_k", []any{c.Range.TCloud.Min, c.Range.TCloud.Max}), report.KV("status", c.Range.Status)}),
 		})
 	}
-	cool := []metaItem{{"spec", opt.cooling.Spec}, {"description", opt.cooling.Desc}}
+	cool := []report.Meta{report.KV("spec", opt.cooling.Spec), report.KV("description", opt.cooling.Desc)}
 	if m := opt.cooling.Meta; m != nil {
-		cool = append(cool, metaItem{"citation", m.Citation}, metaItem{"source_normalisation", m.Normalisation.String()},
-			metaItem{"helium_ratio", m.HeliumRatio}, metaItem{"mixture", m.Mixture}, metaItem{"historical", m.Historical},
-			metaItem{"caveats", stringsToAny(m.Caveats)}, metaItem{"warnings", stringsToAny(m.Warnings)})
+		cool = append(cool, report.KV("citation", m.Citation), report.KV("source_normalisation", m.Normalisation.String()),
+			report.KV("helium_ratio", m.HeliumRatio), report.KV("mixture", m.Mixture), report.KV("historical", m.Historical),
+			report.KV("caveats", stringsToAny(m.Caveats)), report.KV("warnings", stringsToAny(m.Warnings)))
 	}
-	return []metaItem{
-		{"program", "cloudwind " + versionString()},
-		{"grid", grid},
-		{"row_order", "radius fastest, then mach, chi, pressure, t_cloud, metallicity"},
-		{"fixed_inputs", []metaItem{{"chi", q.Chi}, {"mach", q.Mach}, {"pressure_kcm3", float64(q.Pressure)}, {"t_cloud_k", float64(q.TCloud)},
-			{"radius_pc", float64(q.RCloud / model.Parsec)}, {"metallicity_zsun", q.Metallicity}}},
-		{"conventions", []metaItem{{"heat_capacity", q.HeatCapacity.String()}, {"heat_capacity_f", q.HeatCapacity.Factor()},
-			{"density_product", q.DensityProduct.String()}, {"gamma", q.Gamma}, {"mu_cloud", q.MuCold}, {"mu_hot", q.MuHot},
-			{"hydrogen_fraction", q.HydrogenFraction}, {"mixture", q.Mixture.Name}, {"t_floor_k", tFloorMeta(opt.base)},
-			{"mach_reference", "hot-gas adiabatic sound speed"}, {"lambda_normalisation", "per n_H^2"}}},
-		{"cooling", cool},
-		{"criteria", crit},
+	return []report.Meta{
+		report.KV("program", "cloudwind "+versionString()),
+		report.KV("grid", grid),
+		report.KV("row_order", "radius fastest, then mach, chi, pressure, t_cloud, metallicity"),
+		report.KV("fixed_inputs", []report.Meta{report.KV("chi", q.Chi), report.KV("mach", q.Mach), report.KV("pressure_kcm3", float64(q.Pressure)), report.KV("t_cloud_k", float64(q.TCloud)),
+			report.KV("radius_pc", float64(q.RCloud/model.Parsec)), report.KV("metallicity_zsun", q.Metallicity)}),
+		report.KV("conventions", []report.Meta{report.KV("heat_capacity", q.HeatCapacity.String()), report.KV("heat_capacity_f", q.HeatCapacity.Factor()),
+			report.KV("density_product", q.DensityProduct.String()), report.KV("gamma", q.Gamma), report.KV("mu_cloud", q.MuCold), report.KV("mu_hot", q.MuHot),
+			report.KV("hydrogen_fraction", q.HydrogenFraction), report.KV("mixture", q.Mixture.Name), report.KV("t_floor_k", tFloorMeta(opt.base)),
+			report.KV("mach_reference", "hot-gas adiabatic sound speed"), report.KV("lambda_normalisation", "per n_H^2")}),
+		report.KV("cooling", cool),
+		report.KV("criteria", crit),
 	}
 }
 

@@ -6,6 +6,8 @@ import (
 	"os"
 	"strings"
 	"testing"
+
+	"cloudwind/internal/report"
 )
 
 // benchSweep sets up a 10⁶-point sweep (χ 100 values × r 10⁴ values) with
@@ -55,7 +57,7 @@ func BenchmarkSweep1e6CSVOneWorker(b *testing.B) {
 // without formatting, to split the time between evaluation and output.
 func BenchmarkSweepEvaluateOnly(b *testing.B) {
 	_, opt := benchSweep(b, 1)
-	cols := sweepColumns(opt.criteria)
+	cols := report.SweepColumns(opt.criteria)
 	sw := newSweepWorker(opt, cols)
 	for b.Loop() {
 		sw.prev = nil
@@ -71,7 +73,7 @@ func BenchmarkSweepEvaluateOnly(b *testing.B) {
 // without text formatting.
 func BenchmarkSweepEvaluateAndColumns(b *testing.B) {
 	_, opt := benchSweep(b, 1)
-	cols := sweepColumns(opt.criteria)
+	cols := report.SweepColumns(opt.criteria)
 	sw := newSweepWorker(opt, cols)
 	for b.Loop() {
 		sw.prev = nil
@@ -80,10 +82,10 @@ func BenchmarkSweepEvaluateAndColumns(b *testing.B) {
 				b.Fatal(err)
 			}
 			for c, col := range sw.cols {
-				if col.isString {
-					_ = col.str(&sw.res)
+				if col.IsString {
+					_ = col.Str(&sw.res)
 				} else {
-					sw.vals[c] = col.num(&sw.res)
+					sw.vals[c] = col.Num(&sw.res)
 				}
 			}
 		}

@@ -9,6 +9,8 @@ import (
 	"sync"
 	"time"
 
+	"cloudwind/internal/report"
+
 	"cloudwind/model"
 )
 
@@ -24,8 +26,8 @@ type chunkResult struct {
 // runSweepTo evaluates the grid in parallel and writes rows to w in grid
 // order. Memory stays flat: at most 2 × workers chunks are in flight.
 func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) error {
-	cols := sweepColumns(opt.criteria)
-	if err := opt.format.header(w, cols, sweepMeta(opt)); err != nil {
+	cols := report.SweepColumns(opt.criteria)
+	if err := opt.format.Header(w, cols, sweepMeta(opt)); err != nil {
 		return err
 	}
 	nChunks := (opt.grid.total + sweepChunk - 1) / sweepChunk
@@ -117,8 +119,8 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 	if bar != nil {
 		bar.update(opt.grid.total, true)
 	}
-	if opt.format.footer != "" {
-		_, werr = io.WriteString(w, opt.format.footer)
+	if opt.format.Footer != "" {
+		_, werr = io.WriteString(w, opt.format.Footer)
 	}
 	return werr
 }
@@ -128,7 +130,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 // take the fast path (model.Result.Reevaluate).
 type sweepWorker struct {
 	opt   *sweepOptions
-	cols  []sweepColumn
+	cols  []report.Column
 	idx   []int
 	prev  []int // axis indices of the last evaluated point; nil before the first
 	res   model.Result
@@ -140,7 +142,7 @@ type sweepWorker struct {
 	fast  []bool // axis k may change on the fast path
 }
 
-func newSweepWorker(opt *sweepOptions, cols []sweepColumn) *sweepWorker {
+func newSweepWorker(opt *sweepOptions, cols []report.Column) *sweepWorker {
 	sw := &sweepWorker{opt: opt, cols: cols, idx: make([]int, len(opt.grid.axes)),
 		vals: make([]float64, len(cols)), text: make([][]byte, len(cols)), seen: make([]bool, len(cols)),
 		fast: make([]bool, len(opt.grid.axes))}
@@ -159,7 +161,7 @@ func (sw *sweepWorker) chunk(buf []byte, k int) ([]byte, error) {
 			return buf, err
 		}
 		sw.format()
-		buf = sw.opt.format.appendRow(buf, sw.cols, sw.text, i == 0)
+		buf = sw.opt.format.AppendRow(buf, sw.cols, sw.text, i == 0)
 	}
 	return buf, nil
 }
@@ -168,11 +170,11 @@ func (sw *sweepWorker) chunk(buf []byte, k int) ([]byte, error) {
 // fast axes most columns repeat (every thermal quantity, r_crit), so a
 // value equal to the column's last one reuses its text.
 func (sw *sweepWorker) format() {
-	js := sw.opt.format.json
+	js := sw.opt.format.JSON
 	for c := range sw.cols {
 		col := &sw.cols[c]
-		if col.isString {
-			s := col.str(&sw.res)
+		if col.IsString {
+			s := col.Str(&sw.res)
 			if js {
 				sw.text[c] = strconv.AppendQuote(sw.text[c][:0], s)
 			} else {
@@ -180,16 +182,16 @@ func (sw *sweepWorker) format() {
 			}
 			continue
 		}
-		v := col.num(&sw.res)
+		v := col.Num(&sw.res)
 		if sw.seen[c] && v == sw.vals[c] {
 			continue
 		}
 		sw.vals[c], sw.seen[c] = v, true
-		if t := col.twin; t >= 0 && sw.vals[t] == v {
+		if t := col.Twin; t >= 0 && sw.vals[t] == v {
 			sw.text[c] = append(sw.text[c][:0], sw.text[t]...)
 			continue
 		}
-		sw.text[c] = appendNumber(sw.text[c][:0], v, js)
+		sw.text[c] = report.AppendNumber(sw.text[c][:0], v, js)
 	}
 }
 

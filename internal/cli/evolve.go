@@ -204,13 +204,13 @@ func (o *evolveOutput) grid(r *evolveRun) []float64 {
 }
 
 // evolveColumns are the columns of csv/ecsv output.
-func evolveColumns() []sweepColumn {
-	return []sweepColumn{
-		{name: "criterion", isString: true, description: "criterion whose branch the cloud follows"},
-		{name: "t_tcc", description: "time in cloud-crushing times of the initial cloud, t/t_cc,0"},
-		{name: "m_m0", description: "cloud mass over its initial mass"},
-		{name: "v_vw", description: "cloud velocity over the wind speed"},
-		{name: "x_rcl", description: "cloud position over its initial radius"},
+func evolveColumns() []report.Column {
+	return []report.Column{
+		{Name: "criterion", IsString: true, Description: "criterion whose branch the cloud follows"},
+		{Name: "t_tcc", Description: "time in cloud-crushing times of the initial cloud, t/t_cc,0"},
+		{Name: "m_m0", Description: "cloud mass over its initial mass"},
+		{Name: "v_vw", Description: "cloud velocity over the wind speed"},
+		{Name: "x_rcl", Description: "cloud position over its initial radius"},
 	}
 }
 
@@ -219,13 +219,13 @@ func (o *evolveOutput) writeDelimited(w io.Writer, ecsv bool) error {
 	sep := ","
 	if ecsv {
 		sep = " "
-		if err := ecsvHeader(w, cols, o.meta()); err != nil {
+		if err := report.ECSVHeader(w, cols, o.meta()); err != nil {
 			return err
 		}
 	} else {
 		names := make([]string, len(cols))
 		for i, c := range cols {
-			names[i] = c.name
+			names[i] = c.Name
 		}
 		if _, err := io.WriteString(w, strings.Join(names, ",")+"\n"); err != nil {
 			return err
@@ -242,7 +242,7 @@ func (o *evolveOutput) writeDelimited(w io.Writer, ecsv bool) error {
 			b = append(b, r.c.ID...)
 			for _, val := range []float64{t, m, v, x} {
 				b = append(b, sep...)
-				b = appendNumber(b, val, false)
+				b = report.AppendNumber(b, val, false)
 			}
 			b = append(b, '\n')
 		}
@@ -252,38 +252,38 @@ func (o *evolveOutput) writeDelimited(w io.Writer, ecsv bool) error {
 }
 
 // meta describes the run for ECSV and JSON.
-func (o *evolveOutput) meta() []metaItem {
-	var consts []metaItem
+func (o *evolveOutput) meta() []report.Meta {
+	var consts []report.Meta
 	for _, c := range o.set.Constants() {
 		var v, d any = c.Text, c.DefText
 		if c.Text == "" {
 			v, d = c.Value, c.Default
 		}
-		consts = append(consts, metaItem{c.Key, []metaItem{{"value", v}, {"default", d}, {"status", c.Status}}})
+		consts = append(consts, report.KV(c.Key, []report.Meta{report.KV("value", v), report.KV("default", d), report.KV("status", c.Status)}))
 	}
 	var summ []any
 	for i := range o.runs {
 		r := &o.runs[i]
-		item := []metaItem{{"criterion", r.c.ID}}
+		item := []report.Meta{report.KV("criterion", r.c.ID)}
 		if r.err != nil {
-			item = append(item, metaItem{"error", r.err.Error()})
+			item = append(item, report.KV("error", r.err.Error()))
 		} else {
-			item = append(item, metaItem{"t_entrain_tcc", r.tr.TEntrain}, metaItem{"t_double_tcc", r.tr.TDouble},
-				metaItem{"t_destroy_tcc", r.tr.TDestroy}, metaItem{"destroyed", r.tr.Destroyed})
+			item = append(item, report.KV("t_entrain_tcc", r.tr.TEntrain), report.KV("t_double_tcc", r.tr.TDouble),
+				report.KV("t_destroy_tcc", r.tr.TDestroy), report.KV("destroyed", r.tr.Destroyed))
 		}
 		summ = append(summ, item)
 	}
 	q := o.res.Params
-	return []metaItem{
-		{"program", "cloudwind " + versionString()},
-		{"inputs", []metaItem{{"chi", q.Chi}, {"mach", q.Mach}, {"pressure_kcm3", float64(q.Pressure)}, {"t_cloud_k", float64(q.TCloud)},
-			{"radius_pc", float64(q.RCloud / model.Parsec)}, {"metallicity_zsun", q.Metallicity}}},
-		{"t_cc0_myr", float64(o.res.TCC / model.Megayear)},
-		{"cooling", o.cooling},
-		{"settings", []metaItem{{"branch", o.set.Branch.String()}, {"area", o.set.Area.String()}, {"mix_cooling", o.set.MixCooling.String()},
-			{"t_end_tcc", o.set.TEnd}, {"rel_tol", o.set.RelTol}}},
-		{"constants", consts},
-		{"summary", summ},
+	return []report.Meta{
+		report.KV("program", "cloudwind "+versionString()),
+		report.KV("inputs", []report.Meta{report.KV("chi", q.Chi), report.KV("mach", q.Mach), report.KV("pressure_kcm3", float64(q.Pressure)), report.KV("t_cloud_k", float64(q.TCloud)),
+			report.KV("radius_pc", float64(q.RCloud/model.Parsec)), report.KV("metallicity_zsun", q.Metallicity)}),
+		report.KV("t_cc0_myr", float64(o.res.TCC/model.Megayear)),
+		report.KV("cooling", o.cooling),
+		report.KV("settings", []report.Meta{report.KV("branch", o.set.Branch.String()), report.KV("area", o.set.Area.String()), report.KV("mix_cooling", o.set.MixCooling.String()),
+			report.KV("t_end_tcc", o.set.TEnd), report.KV("rel_tol", o.set.RelTol)}),
+		report.KV("constants", consts),
+		report.KV("summary", summ),
 	}
 }
 
@@ -313,7 +313,7 @@ func (o *evolveOutput) writeJSON(w io.Writer) error {
 		item["samples"] = samples
 		runs = append(runs, item)
 	}
-	doc := map[string]any{"schema": "cloudwind.evolve/1", "meta": orderedJSON(o.meta()), "trajectories": runs}
+	doc := map[string]any{"schema": "cloudwind.evolve/1", "meta": report.OrderedJSON(o.meta()), "trajectories": runs}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	return enc.Encode(doc)

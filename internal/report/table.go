@@ -1,4 +1,4 @@
-package cli
+package report
 
 import (
 	"encoding/json"
@@ -8,41 +8,41 @@ import (
 	"strings"
 )
 
-// A metaItem is one entry of the run's metadata, kept in order. A value is
-// a string, float64, int, bool, []any, []metaItem or nil.
-type metaItem struct {
-	key   string
-	value any
+// A Meta is one entry of the run's metadata, kept in order. A value is
+// a string, float64, int, bool, []any, []Meta or nil.
+type Meta struct {
+	Key   string
+	Value any
 }
 
-// sweepFormat writes one output format.
-type sweepFormat struct {
-	name      string
-	json      bool // numbers that do not exist are null, strings are quoted
-	header    func(w io.Writer, cols []sweepColumn, meta []metaItem) error
-	appendRow func(b []byte, cols []sweepColumn, fields [][]byte, first bool) []byte
-	footer    string
+// Format writes one output format.
+type Format struct {
+	Name      string
+	JSON      bool // numbers that do not exist are null, strings are quoted
+	Header    func(w io.Writer, cols []Column, meta []Meta) error
+	AppendRow func(b []byte, cols []Column, fields [][]byte, first bool) []byte
+	Footer    string
 }
 
-// lookupSweepFormat returns the writer of a --format name.
-func lookupSweepFormat(name string) (sweepFormat, bool) {
+// LookupFormat returns the writer of a --format name.
+func LookupFormat(name string) (Format, bool) {
 	switch name {
 	case "csv":
-		return sweepFormat{name: name, header: csvHeader, appendRow: delimitedRow(',')}, true
+		return Format{Name: name, Header: CSVHeader, AppendRow: delimitedRow(',')}, true
 	case "ecsv":
-		return sweepFormat{name: name, header: ecsvHeader, appendRow: delimitedRow(' ')}, true
+		return Format{Name: name, Header: ECSVHeader, AppendRow: delimitedRow(' ')}, true
 	case "json":
-		return sweepFormat{name: name, json: true, header: jsonHeader, appendRow: jsonRow(true), footer: "\n]}\n"}, true
+		return Format{Name: name, JSON: true, Header: JSONHeader, AppendRow: jsonRow(true), Footer: "\n]}\n"}, true
 	case "jsonl":
-		return sweepFormat{name: name, json: true, header: func(io.Writer, []sweepColumn, []metaItem) error { return nil }, appendRow: jsonRow(false)}, true
+		return Format{Name: name, JSON: true, Header: func(io.Writer, []Column, []Meta) error { return nil }, AppendRow: jsonRow(false)}, true
 	}
-	return sweepFormat{}, false
+	return Format{}, false
 }
 
-func csvHeader(w io.Writer, cols []sweepColumn, _ []metaItem) error {
+func CSVHeader(w io.Writer, cols []Column, _ []Meta) error {
 	names := make([]string, len(cols))
 	for i, c := range cols {
-		names[i] = c.name
+		names[i] = c.Name
 	}
 	_, err := io.WriteString(w, strings.Join(names, ",")+"\n")
 	return err
@@ -50,8 +50,8 @@ func csvHeader(w io.Writer, cols []sweepColumn, _ []metaItem) error {
 
 // delimitedRow writes a CSV or ECSV data line from formatted fields. No
 // field needs quoting: numbers, and verdict words without spaces or commas.
-func delimitedRow(sep byte) func([]byte, []sweepColumn, [][]byte, bool) []byte {
-	return func(b []byte, _ []sweepColumn, fields [][]byte, _ bool) []byte {
+func delimitedRow(sep byte) func([]byte, []Column, [][]byte, bool) []byte {
+	return func(b []byte, _ []Column, fields [][]byte, _ bool) []byte {
 		for i, f := range fields {
 			if i > 0 {
 				b = append(b, sep)
@@ -64,8 +64,8 @@ func delimitedRow(sep byte) func([]byte, []sweepColumn, [][]byte, bool) []byte {
 
 // jsonRow writes one row object from formatted fields (strings arrive
 // quoted); in a JSON document (doc) rows after the first start with a comma.
-func jsonRow(doc bool) func([]byte, []sweepColumn, [][]byte, bool) []byte {
-	return func(b []byte, cols []sweepColumn, fields [][]byte, first bool) []byte {
+func jsonRow(doc bool) func([]byte, []Column, [][]byte, bool) []byte {
+	return func(b []byte, cols []Column, fields [][]byte, first bool) []byte {
 		if doc && !first {
 			b = append(b, ",\n"...)
 		} else if doc {
@@ -76,7 +76,7 @@ func jsonRow(doc bool) func([]byte, []sweepColumn, [][]byte, bool) []byte {
 			if i > 0 {
 				b = append(b, ',')
 			}
-			b = append(b, cols[i].jsonKey...)
+			b = append(b, cols[i].JSONKey...)
 			b = append(b, f...)
 		}
 		b = append(b, '}')
@@ -87,37 +87,37 @@ func jsonRow(doc bool) func([]byte, []sweepColumn, [][]byte, bool) []byte {
 	}
 }
 
-// ecsvHeader writes the header of astropy's Enhanced Character Separated
+// ECSVHeader writes the header of astropy's Enhanced Character Separated
 // Values format (ECSV 1.0): a YAML block after "# %ECSV 1.0" and "# ---"
 // with each column's name, unit, datatype and description, and the run's
 // settings as ordered metadata, then the line of column names.
 // Values are written as YAML flow collections with JSON-quoted strings and
 // floats with a point and a signed exponent, so that YAML 1.1 readers
 // (PyYAML, as astropy uses) read them as numbers.
-func ecsvHeader(w io.Writer, cols []sweepColumn, meta []metaItem) error {
+func ECSVHeader(w io.Writer, cols []Column, meta []Meta) error {
 	var b strings.Builder
 	b.WriteString("# %ECSV 1.0\n# ---\n# delimiter: ' '\n# datatype:\n")
 	for _, c := range cols {
 		dt := "float64"
-		if c.isString {
+		if c.IsString {
 			dt = "string"
 		}
-		b.WriteString("# - {name: " + yamlString(c.name))
-		if c.unit != "" {
-			b.WriteString(", unit: " + yamlString(c.unit))
+		b.WriteString("# - {Name: " + yamlString(c.Name))
+		if c.Unit != "" {
+			b.WriteString(", Unit: " + yamlString(c.Unit))
 		}
-		b.WriteString(", datatype: " + dt + ", description: " + yamlString(c.description) + "}\n")
+		b.WriteString(", datatype: " + dt + ", Description: " + yamlString(c.Description) + "}\n")
 	}
 	b.WriteString("# meta: !!omap\n")
 	for _, m := range meta {
-		b.WriteString("# - {" + yamlString(m.key) + ": " + yamlValue(m.value) + "}\n")
+		b.WriteString("# - {" + yamlString(m.Key) + ": " + yamlValue(m.Value) + "}\n")
 	}
 	b.WriteString("# schema: astropy-2.0\n")
 	for i, c := range cols {
 		if i > 0 {
 			b.WriteByte(' ')
 		}
-		b.WriteString(c.name)
+		b.WriteString(c.Name)
 	}
 	b.WriteByte('\n')
 	_, err := io.WriteString(w, b.String())
@@ -153,10 +153,10 @@ func yamlValue(v any) string {
 			parts[i] = yamlValue(e)
 		}
 		return "[" + strings.Join(parts, ", ") + "]"
-	case []metaItem:
+	case []Meta:
 		parts := make([]string, len(x))
 		for i, e := range x {
-			parts[i] = yamlString(e.key) + ": " + yamlValue(e.value)
+			parts[i] = yamlString(e.Key) + ": " + yamlValue(e.Value)
 		}
 		return "{" + strings.Join(parts, ", ") + "}"
 	}
@@ -186,30 +186,30 @@ func yamlFloat(v float64) string {
 func jsonValue(v any) any {
 	switch x := v.(type) {
 	case float64:
-		return finite(x)
+		return JSONNumber(x)
 	case []any:
 		out := make([]any, len(x))
 		for i, e := range x {
 			out[i] = jsonValue(e)
 		}
 		return out
-	case []metaItem:
-		return orderedJSON(x)
+	case []Meta:
+		return OrderedJSON(x)
 	}
 	return v
 }
 
-// orderedJSON is a JSON object that keeps its keys in order.
-type orderedJSON []metaItem
+// OrderedJSON is a JSON object that keeps its keys in order.
+type OrderedJSON []Meta
 
-func (o orderedJSON) MarshalJSON() ([]byte, error) {
+func (o OrderedJSON) MarshalJSON() ([]byte, error) {
 	b := []byte{'{'}
 	for i, m := range o {
 		if i > 0 {
 			b = append(b, ',')
 		}
-		k, _ := json.Marshal(m.key)
-		v, err := json.Marshal(jsonValue(m.value))
+		k, _ := json.Marshal(m.Key)
+		v, err := json.Marshal(jsonValue(m.Value))
 		if err != nil {
 			return nil, err
 		}
@@ -218,16 +218,16 @@ func (o orderedJSON) MarshalJSON() ([]byte, error) {
 	return append(b, '}'), nil
 }
 
-func jsonHeader(w io.Writer, cols []sweepColumn, meta []metaItem) error {
+func JSONHeader(w io.Writer, cols []Column, meta []Meta) error {
 	colMeta := make([]any, len(cols))
 	for i, c := range cols {
 		dt := "float64"
-		if c.isString {
+		if c.IsString {
 			dt = "string"
 		}
-		colMeta[i] = []metaItem{{"name", c.name}, {"unit", c.unit}, {"datatype", dt}, {"description", c.description}}
+		colMeta[i] = []Meta{{"name", c.Name}, {"unit", c.Unit}, {"datatype", dt}, {"description", c.Description}}
 	}
-	head, err := json.Marshal(orderedJSON{{"schema", "cloudwind.sweep/1"}, {"meta", meta}, {"columns", colMeta}})
+	head, err := json.Marshal(OrderedJSON{{"schema", "cloudwind.sweep/1"}, {"meta", meta}, {"columns", colMeta}})
 	if err != nil {
 		return err
 	}
@@ -236,3 +236,6 @@ func jsonHeader(w io.Writer, cols []sweepColumn, meta []metaItem) error {
 	_, err = w.Write(head)
 	return err
 }
+
+// KV returns the metadata entry key: value.
+func KV(key string, value any) Meta { return Meta{Key: key, Value: value} }

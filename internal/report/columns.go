@@ -1,4 +1,4 @@
-package cli
+package report
 
 import (
 	"math"
@@ -9,16 +9,16 @@ import (
 	"cloudwind/model"
 )
 
-// A sweepColumn is one column of sweep output.
-type sweepColumn struct {
-	name        string // column name, e.g. "t_cc_myr"
-	unit        string // astropy unit string; "" when dimensionless
-	description string
-	isString    bool
-	num         func(r *model.Result) float64 // display-unit value
-	str         func(r *model.Result) string
-	jsonKey     []byte // `"name":`, set by sweepColumns
-	twin        int    // an earlier column that holds the same value when the criteria share a form; -1 for none
+// A Column is one column of sweep output.
+type Column struct {
+	Name        string // column name, e.g. "t_cc_myr"
+	Unit        string // astropy unit string; "" when dimensionless
+	Description string
+	IsString    bool
+	Num         func(r *model.Result) float64 // display-unit value
+	Str         func(r *model.Result) string
+	JSONKey     []byte // `"name":`, set by sweepColumns
+	Twin        int    // an earlier column that holds the same value when the criteria share a form; -1 for none
 }
 
 // sweepDerivedKeys are the derived quantities every sweep row carries.
@@ -30,12 +30,12 @@ var sweepDerivedKeys = []string{
 // sweepColumns returns the columns of a sweep with criteria cs: the six
 // inputs, the main derived quantities, then per criterion its ratio,
 // threshold radius, margin and verdict.
-func sweepColumns(cs []model.Criterion) []sweepColumn {
-	in := func(name string, k quantity.Kind, desc string, get func(p *model.Params) float64) sweepColumn {
-		return sweepColumn{name: quantity.JSONKey(name, k), unit: quantity.UnitASCII(k), description: desc,
-			num: func(r *model.Result) float64 { return quantity.Convert(k, get(&r.Params)) }}
+func SweepColumns(cs []model.Criterion) []Column {
+	in := func(name string, k quantity.Kind, desc string, get func(p *model.Params) float64) Column {
+		return Column{Name: quantity.JSONKey(name, k), Unit: quantity.UnitASCII(k), Description: desc,
+			Num: func(r *model.Result) float64 { return quantity.Convert(k, get(&r.Params)) }}
 	}
-	cols := []sweepColumn{
+	cols := []Column{
 		in("chi", model.Dimensionless, "density contrast rho_cloud/rho_wind (input)", func(p *model.Params) float64 { return p.Chi }),
 		in("mach", model.Dimensionless, "wind Mach number against the hot adiabatic sound speed (input)", func(p *model.Params) float64 { return p.Mach }),
 		in("pressure", model.DimPressure, "pressure P/k_B (input)", func(p *model.Params) float64 { return float64(p.Pressure) }),
@@ -54,12 +54,12 @@ func sweepColumns(cs []model.Criterion) []sweepColumn {
 		}
 		get := q.Value
 		dim := q.Dim
-		cols = append(cols, sweepColumn{name: quantity.JSONKey(key, dim), unit: quantity.UnitASCII(dim),
-			description: q.Name + ": " + q.Formula + " (" + q.Source + ")",
-			num:         func(r *model.Result) float64 { return quantity.Convert(dim, get(&r.State)) }})
+		cols = append(cols, Column{Name: quantity.JSONKey(key, dim), Unit: quantity.UnitASCII(dim),
+			Description: q.Name + ": " + q.Formula + " (" + q.Source + ")",
+			Num:         func(r *model.Result) float64 { return quantity.Convert(dim, get(&r.State)) }})
 	}
 	for i := range cols {
-		cols[i].twin = -1
+		cols[i].Twin = -1
 	}
 	first := len(cols) // index of the first criterion column
 	for i := range cs {
@@ -80,29 +80,29 @@ func sweepColumns(cs []model.Criterion) []sweepColumn {
 		}
 		label := c.Label + " (" + c.Formula() + ")"
 		cols = append(cols,
-			sweepColumn{name: base + "_ratio", description: label + ": " + c.Cool.Symbol() + "/" + c.Dyn.String() + " at r_cl",
-				num: func(r *model.Result) float64 { return r.Outcomes[i].Ratio }},
-			sweepColumn{name: base + "_radius_crit_pc", unit: "pc", description: label + ": threshold radius r_crit",
-				num: func(r *model.Result) float64 { return quantity.Convert(model.DimLength, float64(r.Outcomes[i].RCrit)) }},
-			sweepColumn{name: base + "_margin", description: label + ": r_cl/r_crit (> 1 survives)",
-				num: func(r *model.Result) float64 { return r.Outcomes[i].Margin }},
-			sweepColumn{name: base + "_verdict", description: label + ": survives-and-grows or destroyed", isString: true,
-				str: func(r *model.Result) string { return r.Outcomes[i].Verdict.String() }},
+			Column{Name: base + "_ratio", Description: label + ": " + c.Cool.Symbol() + "/" + c.Dyn.String() + " at r_cl",
+				Num: func(r *model.Result) float64 { return r.Outcomes[i].Ratio }},
+			Column{Name: base + "_radius_crit_pc", Unit: "pc", Description: label + ": threshold radius r_crit",
+				Num: func(r *model.Result) float64 { return quantity.Convert(model.DimLength, float64(r.Outcomes[i].RCrit)) }},
+			Column{Name: base + "_margin", Description: label + ": r_cl/r_crit (> 1 survives)",
+				Num: func(r *model.Result) float64 { return r.Outcomes[i].Margin }},
+			Column{Name: base + "_verdict", Description: label + ": survives-and-grows or destroyed", IsString: true,
+				Str: func(r *model.Result) string { return r.Outcomes[i].Verdict.String() }},
 		)
 		for k := 0; k < 3; k++ {
-			cols[len(cols)-4+k].twin = twin[k]
+			cols[len(cols)-4+k].Twin = twin[k]
 		}
 	}
 	for i := range cols {
-		cols[i].jsonKey = append(strconv.AppendQuote(nil, cols[i].name), ':')
+		cols[i].JSONKey = append(strconv.AppendQuote(nil, cols[i].Name), ':')
 	}
 	return cols
 }
 
-// appendNumber appends v with nine significant figures (enough for a
+// AppendNumber appends v with nine significant figures (enough for a
 // 1e-6 cross-check after the reader's own rounding), "nan" or "inf" as
 // numpy and astropy read them, or JSON null when json is set.
-func appendNumber(b []byte, v float64, json bool) []byte {
+func AppendNumber(b []byte, v float64, json bool) []byte {
 	switch {
 	case math.IsNaN(v):
 		if json {
