@@ -2,7 +2,6 @@ package model
 
 import (
 	"fmt"
-	"math"
 	"strings"
 )
 
@@ -164,25 +163,15 @@ func (s EvolveSettings) WithDefaults() EvolveSettings {
 func (s EvolveSettings) Validate() error {
 	q := s.WithDefaults()
 	for _, c := range [...]struct {
-		key    string
-		v      float64
-		lo, hi float64
-		open   bool // v must exceed lo
+		key string
+		v   float64
 	}{
-		{"alpha_v", q.AlphaV, 0, 100, true}, {"area_factor", q.AreaFactor, 0, 100, true},
-		{"kappa", q.Kappa, 0, 1000, true}, {"drag_coefficient", q.DragCoefficient, 0, 100, true},
-		{"alfven_over_wind", q.AlfvenOverWind, 0, 1000, false}, {"v0", q.V0, -100, 100, false},
-		{"width", q.Width, 0, 1000, true}, {"t_end", q.TEnd, 0, 1e6, true},
-		{"rel_tol", q.RelTol, 1e-14, 0.1, false}, {"abs_tol", q.AbsTol, 0, 1, true},
-		{"max_steps", float64(q.MaxSteps), 1, 1e8, false},
+		{"alpha_v", q.AlphaV}, {"area_factor", q.AreaFactor}, {"kappa", q.Kappa}, {"drag_coefficient", q.DragCoefficient},
+		{"alfven_over_wind", q.AlfvenOverWind}, {"v0", q.V0}, {"width", q.Width}, {"t_end", q.TEnd},
+		{"rel_tol", q.RelTol}, {"abs_tol", q.AbsTol}, {"max_steps", float64(q.MaxSteps)},
 	} {
-		switch {
-		case math.IsNaN(c.v) || math.IsInf(c.v, 0):
-			return &FieldError{c.key, c.v, fmt.Sprintf("must be a finite number (got %s)", num(c.v)), ErrNotFinite}
-		case c.open && c.v <= c.lo:
-			return &FieldError{c.key, c.v, fmt.Sprintf("must be greater than %s (got %s)", num(c.lo), num(c.v)), ErrOutOfBounds}
-		case c.v < c.lo || c.v > c.hi:
-			return &FieldError{c.key, c.v, fmt.Sprintf("must lie in [%s, %s] (got %s)", num(c.lo), num(c.hi), num(c.v)), ErrOutOfBounds}
+		if err := CheckField(c.key, c.v); err != nil {
+			return err
 		}
 	}
 	unknown := func(key string, v int) error {

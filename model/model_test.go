@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"reflect"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
@@ -346,7 +347,7 @@ func TestValidateRejects(t *testing.T) {
 		{FieldMuHot, func(p *Params) { p.MuHot = inf }},
 		{FieldHydrogenFraction, func(p *Params) { p.HydrogenFraction = 1.5 }},
 		{FieldTFloor, func(p *Params) { p.TFloor = 2e4 }}, // above T_cl = 1e4
-		{FieldTFloor, func(p *Params) { p.TFloor = -1 }},
+		{FieldTFloor, func(p *Params) { p.TFloor = -2 }},  // negative and not NoFloor
 		{FieldHeatCapacity, func(p *Params) { p.HeatCapacity = 7 }},
 		{FieldDensityProduct, func(p *Params) { p.DensityProduct = -1 }},
 	}
@@ -504,5 +505,45 @@ func TestParamsField(t *testing.T) {
 	}
 	if _, ok := p.Field("nope"); ok {
 		t.Error(`Field("nope") reported a value`)
+	}
+}
+
+// TestCheckFieldExplicitZero: a value given explicitly is checked as given;
+// 0 is not read as "the default" (a rule of this package).
+func TestCheckFieldExplicitZero(t *testing.T) {
+	for _, f := range []string{FieldGamma, FieldMu, FieldMuCold, FieldMuHot, FieldHydrogenFraction, FieldChi, FieldMach, FieldPressure, FieldTCloud, FieldRCloud} {
+		err := CheckField(f, 0)
+		var fe *FieldError
+		if !errors.As(err, &fe) || fe.Field != f || !strings.Contains(fe.Reason, "got 0") {
+			t.Errorf("CheckField(%s, 0) = %v, want a FieldError quoting 0", f, err)
+		}
+	}
+	if err := CheckField(FieldTFloor, 0); err != nil {
+		t.Errorf("CheckField(t_floor, 0) = %v, want nil (no floor)", err)
+	}
+	if err := CheckField(FieldMetallicity, 0); err != nil {
+		t.Errorf("CheckField(metallicity, 0) = %v, want nil (metal-free is valid)", err)
+	}
+	if err := CheckField("no_such_field", 1); !errors.Is(err, ErrUnknown) {
+		t.Errorf("CheckField(unknown) = %v, want ErrUnknown", err)
+	}
+}
+
+// TestNoFloor: with NoFloor, Λ is applied below T_cl; with the default floor
+// it is 0 there (the floor rule of Params.TFloor).
+func TestNoFloor(t *testing.T) {
+	p := Fiducial()
+	p.TFloor = NoFloor
+	if err := p.Validate(); err != nil {
+		t.Fatalf("Validate(NoFloor) = %v", err)
+	}
+	cf := ConstantCooling{Value: 1e-22}
+	s := State{Params: p.WithDefaults()}
+	if got := s.lambda(cf, 10); got != 1e-22 {
+		t.Errorf("lambda(10 K) with no floor = %g, want 1e-22", got)
+	}
+	s.Params.TFloor = s.Params.TCloud
+	if got := s.lambda(cf, 10); got != 0 {
+		t.Errorf("lambda(10 K) with the floor at T_cl = %g, want 0", got)
 	}
 }

@@ -58,12 +58,23 @@ func ScanNumber(s string) (v float64, n int, err error) {
 		}
 		return 0, 0, ErrNoNumber
 	}
+	if v == 0 && strings.ContainsAny(mantissa(num[:end]), "123456789") {
+		return 0, 0, ErrNumberRange // underflow: 1e-400 is not 0
+	}
 	if skip > 0 {
 		if v = math.Pow(10, v); math.IsInf(v, 0) || v == 0 {
 			return 0, 0, ErrNumberRange
 		}
 	}
 	return v, skip + end, nil
+}
+
+// mantissa returns the part of a decimal literal before its exponent.
+func mantissa(lit string) string {
+	if i := strings.IndexAny(lit, "eE"); i >= 0 {
+		return lit[:i]
+	}
+	return lit
 }
 
 // numberPrefix returns the length of the decimal floating-point literal at

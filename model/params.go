@@ -73,7 +73,7 @@ type Params struct {
 
 	Mixture          Mixture     // solar mixture for n_H; default Asplund2009
 	HydrogenFraction float64     // hydrogen mass fraction X; default Mixture.X
-	TFloor           Temperature // cooling floor: Λ = 0 below it; default TCloud
+	TFloor           Temperature // cooling floor: Λ = 0 below it; default TCloud; NoFloor for none
 
 	HeatCapacity   HeatCapacity   // f in t_cool; default Isochoric (3/2)
 	DensityProduct DensityProduct // 𝒩 in t_cool; default NH2
@@ -86,6 +86,22 @@ const (
 	// simulations use (status: from memory); fully ionised A09 gas has 0.5991.
 	DefaultMu = 0.6
 )
+
+// NoFloor, as Params.TFloor, asks for no cooling floor: Λ applies at every
+// temperature the cooling function covers (below its range it is 0 by the
+// cooling function's own policy). People write it as a floor of 0 K; the
+// zero value of TFloor means the default floor, T_cl.
+const NoFloor Temperature = -1
+
+// Floor returns the cooling floor of p after defaults and whether there is
+// one: (T_cl, true) by default, (0, false) for NoFloor.
+func (p Params) Floor() (Temperature, bool) {
+	q := p.WithDefaults()
+	if q.TFloor == NoFloor {
+		return 0, false
+	}
+	return q.TFloor, true
+}
 
 // Fiducial returns the fiducial problem of the Gronke & Oh (2018) scaling:
 // χ = 100, M = 1, P/k_B = 10³ K cm⁻³, T_cl = 10⁴ K, r_cl = 1 pc, Z = 1,
@@ -179,53 +195,124 @@ const (
 	MaxHydrogenFrac = 1.0
 )
 
+// fieldRange is the accepted range of a numeric input, with the unit its
+// messages quote values in (the radius in pc).
+type fieldRange struct {
+	lo, hi float64
+	open   bool    // lo itself is refused
+	scale  float64 // display value = CGS value × scale
+	unit   string
+}
+
+// fieldRanges gives the accepted range of every numeric input but t_floor,
+// whose upper bound is the cloud temperature.
+var fieldRanges = map[string]fieldRange{
+	FieldChi:              {1, MaxChi, true, 1, ""},
+	FieldMach:             {0, MaxMach, true, 1, ""},
+	FieldPressure:         {MinPressure, MaxPressure, false, 1, " K cm⁻³"},
+	FieldTCloud:           {MinTCloud, MaxTCloud, false, 1, " K"},
+	FieldRCloud:           {float64(MinRCloud), float64(MaxRCloud), false, 1 / float64(Parsec), " pc"},
+	FieldMetallicity:      {0, MaxMetallicity, false, 1, " Z☉"},
+	FieldGamma:            {1, MaxGamma, true, 1, ""},
+	FieldMu:               {MinMu, MaxMu, false, 1, ""},
+	FieldMuCold:           {MinMu, MaxMu, false, 1, ""},
+	FieldMuHot:            {MinMu, MaxMu, false, 1, ""},
+	FieldHydrogenFraction: {MinHydrogenFrac, MaxHydrogenFrac, false, 1, ""},
+
+	// PlanSettings. The bounds catch typos, not physics: R from 1 to 10⁴,
+	// boxes from 2 r_cl (one cloud diameter), C in (0, 1].
+	FieldCellsPerRadius: {1, 1e4, false, 1, ""},
+	FieldBoxAlong:       {2, 1e6, false, 1, " r_cl"},
+	FieldBoxAcross:      {2, 1e4, false, 1, " r_cl"},
+	FieldUpstream:       {0, 1e4, false, 1, " r_cl"},
+	FieldTail:           {0, 1e6, false, 1, " r_cl"},
+	FieldRunTcc:         {0, 1e7, true, 1, " t_cc"},
+	FieldCFL:            {0, 1, true, 1, ""},
+	FieldThroughput:     {0, 1e15, true, 1, ""},
+	FieldBytesPerCell:   {0, 1e6, true, 1, ""},
+
+	// EvolveSettings, by key.
+	"alpha_v":          {0, 100, true, 1, ""},
+	"area_factor":      {0, 100, true, 1, ""},
+	"kappa":            {0, 1000, true, 1, ""},
+	"drag_coefficient": {0, 100, true, 1, ""},
+	"alfven_over_wind": {0, 1000, false, 1, ""},
+	"v0":               {-100, 100, false, 1, ""},
+	"width":            {0, 1000, true, 1, ""},
+	"t_end":            {0, 1e6, true, 1, " t_cc"},
+	"rel_tol":          {1e-14, 0.1, false, 1, ""},
+	"abs_tol":          {0, 1, true, 1, ""},
+	"max_steps":        {1, 1e8, false, 1, ""},
+}
+
+// CheckField checks a value given explicitly for the numeric input or
+// setting named by a Field… name or setting key (CGS, as SetField takes it)
+// against its accepted range, and returns a *FieldError or nil. Unlike the
+// Validate methods, which read a zero optional field as "use the default",
+// it treats 0 as the value given: CheckField(FieldGamma, 0) is an error.
+// For FieldTFloor, 0 (no floor) and any temperature ≥ 0 pass; the
+// comparison with T_cl is Validate's. It knows the inputs of Params, the
+// numeric fields of PlanSettings and the keys of EvolveSettings; other
+// names are an error wrapping ErrUnknown.
+func CheckField(field string, v float64) error {
+	if field == FieldTFloor {
+		if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+			return &FieldError{FieldTFloor, v, fmt.Sprintf("must be a finite temperature ≥ 0 K, 0 for no floor (got %s)", num(v)), ErrOutOfBounds}
+		}
+		return nil
+	}
+	r, ok := fieldRanges[field]
+	if !ok {
+		return &FieldError{field, v, "unknown input", ErrUnknown}
+	}
+	return r.check(field, v)
+}
+
+// check returns the *FieldError of v against r, in the one wording of every
+// range message: "must be a finite number", "must be greater than LO",
+// "must be at least LO", "must not exceed HI", each followed by
+// "(got V)" in the range's unit.
+func (r fieldRange) check(field string, v float64) error {
+	scale := r.scale
+	if scale == 0 {
+		scale = 1
+	}
+	switch {
+	case math.IsNaN(v) || math.IsInf(v, 0):
+		return &FieldError{field, v, fmt.Sprintf("must be a finite number (got %s)", num(v)), ErrNotFinite}
+	case r.open && v <= r.lo:
+		return &FieldError{field, v, fmt.Sprintf("must be greater than %s%s (got %s%s)", num(r.lo*scale), r.unit, num(v*scale), r.unit), ErrOutOfBounds}
+	case !r.open && v < r.lo:
+		return &FieldError{field, v, fmt.Sprintf("must be at least %s%s (got %s%s)", num(r.lo*scale), r.unit, num(v*scale), r.unit), ErrOutOfBounds}
+	case v > r.hi:
+		return &FieldError{field, v, fmt.Sprintf("must not exceed %s%s (got %s%s)", num(r.hi*scale), r.unit, num(v*scale), r.unit), ErrOutOfBounds}
+	}
+	return nil
+}
+
 // Validate checks every field of p (after defaults) and returns a
 // *FieldError naming the first invalid one, or nil.
 func (p Params) Validate() error {
 	q := p.WithDefaults()
-	// Reasons quote values in the unit people type: pc for the radius.
-	check := func(field string, v, lo, hi float64, loOpen bool, scale float64, unit string) error {
-		switch {
-		case math.IsNaN(v) || math.IsInf(v, 0):
-			return &FieldError{field, v, fmt.Sprintf("must be a finite number (got %s)", num(v)), ErrNotFinite}
-		case loOpen && v <= lo:
-			return &FieldError{field, v, fmt.Sprintf("must be greater than %s%s (got %s%s)", num(lo*scale), unit, num(v*scale), unit), ErrOutOfBounds}
-		case !loOpen && v < lo:
-			return &FieldError{field, v, fmt.Sprintf("must be at least %s%s (got %s%s)", num(lo*scale), unit, num(v*scale), unit), ErrOutOfBounds}
-		case v > hi:
-			return &FieldError{field, v, fmt.Sprintf("must not exceed %s%s (got %s%s)", num(hi*scale), unit, num(v*scale), unit), ErrOutOfBounds}
-		}
-		return nil
-	}
-	checks := [...]struct {
-		field  string
-		v      float64
-		lo, hi float64
-		open   bool
-		scale  float64
-		unit   string
+	for _, c := range [...]struct {
+		field string
+		v     float64
 	}{
-		{FieldChi, p.Chi, 1, MaxChi, true, 1, ""},
-		{FieldMach, p.Mach, 0, MaxMach, true, 1, ""},
-		{FieldPressure, float64(p.Pressure), MinPressure, MaxPressure, false, 1, " K cm⁻³"},
-		{FieldTCloud, float64(p.TCloud), MinTCloud, MaxTCloud, false, 1, " K"},
-		{FieldRCloud, float64(p.RCloud), float64(MinRCloud), float64(MaxRCloud), false, 1 / float64(Parsec), " pc"},
-		{FieldMetallicity, p.Metallicity, 0, MaxMetallicity, false, 1, " Z☉"},
-		{FieldGamma, q.Gamma, 1, MaxGamma, true, 1, ""},
-		{FieldMu, q.Mu, MinMu, MaxMu, false, 1, ""},
-		{FieldMuCold, q.MuCold, MinMu, MaxMu, false, 1, ""},
-		{FieldMuHot, q.MuHot, MinMu, MaxMu, false, 1, ""},
-		{FieldHydrogenFraction, q.HydrogenFraction, MinHydrogenFrac, MaxHydrogenFrac, false, 1, ""},
-	}
-	for _, c := range checks {
-		if err := check(c.field, c.v, c.lo, c.hi, c.open, c.scale, c.unit); err != nil {
+		{FieldChi, p.Chi}, {FieldMach, p.Mach}, {FieldPressure, float64(p.Pressure)}, {FieldTCloud, float64(p.TCloud)},
+		{FieldRCloud, float64(p.RCloud)}, {FieldMetallicity, p.Metallicity}, {FieldGamma, q.Gamma}, {FieldMu, q.Mu},
+		{FieldMuCold, q.MuCold}, {FieldMuHot, q.MuHot}, {FieldHydrogenFraction, q.HydrogenFraction},
+	} {
+		if err := CheckField(c.field, c.v); err != nil {
 			return err
 		}
 	}
-	if tf := float64(q.TFloor); math.IsNaN(tf) || math.IsInf(tf, 0) || tf < 0 {
-		return &FieldError{FieldTFloor, tf, fmt.Sprintf("must be a finite temperature ≥ 0 K (got %s)", num(tf)), ErrOutOfBounds}
-	} else if tf > float64(q.TCloud) {
-		return &FieldError{FieldTFloor, tf, fmt.Sprintf("the cooling floor %s K is above the cloud temperature %s K", num(tf), num(float64(q.TCloud))), ErrOutOfBounds}
+	if tf := float64(q.TFloor); q.TFloor != NoFloor {
+		if err := CheckField(FieldTFloor, tf); err != nil {
+			return err
+		}
+		if tf > float64(q.TCloud) {
+			return &FieldError{FieldTFloor, tf, fmt.Sprintf("the cooling floor %s K is above the cloud temperature %s K", num(tf), num(float64(q.TCloud))), ErrOutOfBounds}
+		}
 	}
 	if q.HeatCapacity != Isochoric && q.HeatCapacity != Isobaric {
 		return &FieldError{FieldHeatCapacity, float64(q.HeatCapacity), fmt.Sprintf("unknown heat-capacity convention %d", q.HeatCapacity), ErrUnknown}

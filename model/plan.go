@@ -132,26 +132,18 @@ func (p PlanSettings) WithDefaults() PlanSettings {
 // (one cloud diameter), C in (0, 1].
 func (p PlanSettings) Validate() error {
 	for _, c := range [...]struct {
-		field  string
-		v      float64
-		lo, hi float64
+		field string
+		v     float64
 	}{
-		{FieldCellsPerRadius, p.CellsPerRadius, 1, 1e4},
-		{FieldBoxAlong, p.BoxAlongRcl, 2, 1e6},
-		{FieldBoxAcross, p.BoxAcrossRcl, 2, 1e4},
-		{FieldUpstream, p.UpstreamRcl, 0, 1e4},
-		{FieldTail, p.TailRcl, 0, 1e6},
-		{FieldRunTcc, p.RunTcc, 0, 1e7},
-		{FieldCFL, p.CFL, 0, 1},
-		{FieldThroughput, p.CellUpdatesPerCoreSecond, 0, 1e15},
-		{FieldBytesPerCell, p.BytesPerCell, 0, 1e6},
+		{FieldCellsPerRadius, p.CellsPerRadius}, {FieldBoxAlong, p.BoxAlongRcl}, {FieldBoxAcross, p.BoxAcrossRcl},
+		{FieldUpstream, p.UpstreamRcl}, {FieldTail, p.TailRcl}, {FieldRunTcc, p.RunTcc}, {FieldCFL, p.CFL},
+		{FieldThroughput, p.CellUpdatesPerCoreSecond}, {FieldBytesPerCell, p.BytesPerCell},
 	} {
-		switch {
-		case c.v == 0: // the default
-		case math.IsNaN(c.v) || math.IsInf(c.v, 0):
-			return &FieldError{c.field, c.v, fmt.Sprintf("must be a finite number (got %s)", num(c.v)), ErrNotFinite}
-		case c.v < c.lo || c.v > c.hi:
-			return &FieldError{c.field, c.v, fmt.Sprintf("must be 0 (the default) or from %s to %s (got %s)", num(c.lo), num(c.hi), num(c.v)), ErrOutOfBounds}
+		if c.v == 0 {
+			continue // the default
+		}
+		if err := CheckField(c.field, c.v); err != nil {
+			return err
 		}
 	}
 	if p.Question < QuestionGrowth || p.Question > QuestionDestruction {

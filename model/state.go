@@ -41,7 +41,9 @@ type State struct {
 	TShatter   Temperature   // where that minimum lies
 	VMix       Velocity      // MixingVelocity with α_v = 1
 	TGrow      Time          // GrowthTime
-	Cautions   []Caution     // inputs outside the cooling function's range, and similar
+	Cautions   []Caution     // inputs outside the cooling function's range, physically absurd inputs, and similar
+
+	nThermal int // Cautions[:nThermal] do not depend on the Mach number or the radius
 }
 
 // A Caution is a warning about the inputs that does not make them invalid.
@@ -95,6 +97,10 @@ func (s *State) derive(p Params, cf CoolingFunction) error {
 
 	s.minimaAlongIsobar(cf, f)
 	s.rangeCautions(cf)
+	if q.TCloud > MaxColdCloud {
+		s.Cautions = append(s.Cautions, Caution{FieldTCloud, fmt.Sprintf("T_cl = %s K is not cold gas: the criteria compare a cloud near 10⁴ K with a hotter wind (cloudwind's limit for this caution: %s K)", num3(float64(q.TCloud)), num3(MaxColdCloud))})
+	}
+	s.nThermal = len(s.Cautions)
 	s.deriveFlow()
 	return nil
 }
@@ -112,6 +118,38 @@ func (s *State) deriveFlow() {
 	s.ColumnCold = CloudColumn(s.NCold, q.RCloud)
 	s.VMix = MixingVelocity(1, s.CsCold, s.TCoolCold, s.TSoundCold)
 	s.TGrow = GrowthTime(q.RCloud, q.Chi, s.VMix)
+	s.flowCautions()
+}
+
+// Limits of the cautions for physically absurd inputs. They are
+// cloudwind's choice (common practice, no source): inputs beyond them are
+// valid numbers, but no published criterion was meant for them.
+const (
+	// RelativisticWind is the wind speed, as a fraction of c, above which
+	// the Newtonian formulas of every criterion are in doubt.
+	RelativisticWind = 0.1
+	// MaxCloudRadius is the cloud radius above which a "cloud" is larger
+	// than a galaxy's halo (~100 kpc): most likely a unit mistake.
+	MaxCloudRadius = 100 * Kiloparsec
+	// MaxColdCloud is the cloud temperature above which the cloud is not
+	// cold gas: the criteria concern clouds near 10⁴ K.
+	MaxColdCloud = 1e6
+)
+
+// flowCautions replaces the cautions that depend on the Mach number or the
+// radius: a wind near or above the speed of light, a cloud larger than a
+// halo.
+func (s *State) flowCautions() {
+	s.Cautions = s.Cautions[:s.nThermal]
+	switch beta := float64(s.VWind) / SpeedOfLight; {
+	case beta >= 1:
+		s.Cautions = append(s.Cautions, Caution{FieldMach, fmt.Sprintf("the wind speed M c_s,hot = %s c exceeds the speed of light: these inputs are unphysical, and every formula here is Newtonian", num3(beta))})
+	case beta >= RelativisticWind:
+		s.Cautions = append(s.Cautions, Caution{FieldMach, fmt.Sprintf("the wind speed M c_s,hot = %s c is a noticeable fraction of the speed of light; every formula here is Newtonian", num3(beta))})
+	}
+	if s.Params.RCloud > MaxCloudRadius {
+		s.Cautions = append(s.Cautions, Caution{FieldRCloud, fmt.Sprintf("r_cl = %s kpc is larger than a galaxy's halo (~100 kpc): check the unit", num3(float64(s.Params.RCloud/Kiloparsec)))})
+	}
 }
 
 // lambda returns Λ(t) with the cooling floor applied: Λ = 0 below T_floor.

@@ -14,6 +14,7 @@ import (
 	"runtime/debug"
 	"strings"
 
+	"cloudwind/internal/safetext"
 	"cloudwind/internal/suggest"
 )
 
@@ -77,6 +78,21 @@ func Main(args []string) int {
 // run dispatches the command line and returns the exit status. It is the
 // only place that turns errors into statuses.
 func run(e *env) int {
+	out := &checkedWriter{w: e.stdout}
+	e2 := *e
+	e2.stdout = out
+	status := dispatch(&e2)
+	if status == exitOK && out.err != nil {
+		// Output that did not arrive is a failure, even when the command
+		// itself succeeded (a full disk, a closed pipe).
+		fmt.Fprintf(e.stderr, "cloudwind: write standard output: %s\n", safetext.Line(pathErrText(out.err)))
+		return exitFailure
+	}
+	return status
+}
+
+// dispatch runs the command named by the first argument.
+func dispatch(e *env) int {
 	if len(e.args) == 0 {
 		return exitStatus(e, "explore", runExplore(e))
 	}
@@ -114,7 +130,9 @@ func exitStatus(e *env, cmd string, err error) int {
 	if errors.Is(err, errHelpShown) {
 		return exitOK
 	}
-	fmt.Fprintf(e.stderr, "cloudwind %s: %s\n", cmd, oneLine(err.Error()))
+	// Messages may quote file names and file contents: they pass through
+	// the one sanitiser on their way to the terminal.
+	fmt.Fprintf(e.stderr, "cloudwind %s: %s\n", cmd, safetext.Line(err.Error()))
 	var ue *usageError
 	if errors.As(err, &ue) {
 		return exitUsage
@@ -201,7 +219,30 @@ func runHelp(e *env) error {
 	return usagef("no help for unknown command %q", sanitizeArg(e.args[0]))
 }
 
-// oneLine joins a multi-line message into one line.
-func oneLine(s string) string {
-	return strings.Join(strings.Fields(strings.ReplaceAll(s, "\n", " ")), " ")
+// A checkedWriter remembers the first write error of standard output, so
+// that run can exit non-zero when output was lost.
+type checkedWriter struct {
+	w   io.Writer
+	err error
+}
+
+func (c *checkedWriter) Write(p []byte) (int, error) {
+	if c.err != nil {
+		return 0, c.err
+	}
+	n, err := c.w.Write(p)
+	if err != nil {
+		c.err = err
+	}
+	return n, err
+}
+
+// pathErrText is the message of err without the path that *os.PathError
+// repeats (standard output's is "/dev/stdout").
+func pathErrText(err error) string {
+	var pe *os.PathError
+	if errors.As(err, &pe) {
+		return pe.Err.Error()
+	}
+	return err.Error()
 }

@@ -47,7 +47,7 @@ func runCooling(e *env) error {
 	f.fs.StringVar(&metal, "metallicity", "1", "metallicity Z in solar units, for functions that depend on it")
 	f.fs.StringVar(&tmin, "tmin", "1e4", "lowest temperature in K (or \"1 keV\")")
 	f.fs.StringVar(&tmax, "tmax", "1e8", "highest temperature in K")
-	f.fs.IntVar(&points, "points", 41, "number of temperatures, evenly spaced in log T (2–100000)")
+	f.int(&points, "points", 41, 2, 100000, "number of temperatures, evenly spaced in log T (2–100000)")
 	f.fs.StringVar(&format, "format", "text", "output format: text, csv or json")
 	if err := f.parse(e); err != nil {
 		return err
@@ -69,9 +69,6 @@ func runCooling(e *env) error {
 	}
 	if !(hi > lo) {
 		return usagef("--tmax (%g K) must be above --tmin (%g K)", hi, lo)
-	}
-	if points < 2 || points > 100000 {
-		return usagef("--points: want 2 to 100000 (got %d)", points)
 	}
 	if format != "text" && format != "csv" && format != "json" {
 		return usagef("--format: want text, csv or json (got %q)", sanitizeArg(format))

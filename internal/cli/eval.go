@@ -96,7 +96,11 @@ func writeEvalText(w io.Writer, sc *evaluated) error {
 	row("Z", quantity.Format(model.DimMetallicity, q.Metallicity)+zNote)
 	row("γ, μ_cl, μ_hot", fmt.Sprintf("%s, %s, %s", quantity.FormatSig(q.Gamma, 4), quantity.FormatSig(q.MuCold, 4), quantity.FormatSig(q.MuHot, 4)))
 	row("X (hydrogen)", fmt.Sprintf("%s  (%s)", quantity.FormatSig(q.HydrogenFraction, 4), q.Mixture.Name))
-	row("T_floor", quantity.Format(model.DimTemperature, float64(q.TFloor)))
+	if tf, ok := q.Floor(); ok {
+		row("T_floor", quantity.Format(model.DimTemperature, float64(tf)))
+	} else {
+		row("T_floor", "none (Λ applies wherever the cooling function has values)")
+	}
 	row("convention", conventionText(q))
 	row("cooling", coolingName(sc.cooling, sc.cf))
 	if p, ok := sc.cf.(*cooling.PowerLaw); ok {

@@ -43,34 +43,37 @@ type evolveFlags struct {
 
 func (f *evolveFlags) register(fs *flagSet) {
 	d := model.DefaultEvolveSettings()
-	fs.fs.Float64Var(&f.until, "until", d.TEnd, "end time in cloud-crushing times t_cc (of the initial cloud)")
+	fs.float(&f.until, "until", d.TEnd, "end time in cloud-crushing times t_cc (of the initial cloud)")
 	fs.fs.StringVar(&f.criterion, "criterion", "all", "the criterion whose branch the cloud follows: an id, or all")
 	fs.fs.StringVar(&f.branch, "branch", "sharp", "sharp (grow or shrink by the criterion) or smooth (S = 1/(1+(ratio/limit)^n))")
-	fs.fs.Float64Var(&f.width, "width", d.Width, "n of the smooth branch (a modelling choice)")
-	fs.fs.Float64Var(&f.alphaV, "alpha-v", d.AlphaV, "α_v in v_mix = α_v c_s,cl (t_cool/t_sc,cl)^-1/4 (from memory)")
-	fs.fs.Float64Var(&f.areaFactor, "area-factor", d.AreaFactor, "f_A in A = f_A 4π r² (from memory)")
+	fs.float(&f.width, "width", d.Width, "n of the smooth branch (a modelling choice)")
+	fs.float(&f.alphaV, "alpha-v", d.AlphaV, "α_v in v_mix = α_v c_s,cl (t_cool/t_sc,cl)^-1/4 (from memory)")
+	fs.float(&f.areaFactor, "area-factor", d.AreaFactor, "f_A in A = f_A 4π r² (from memory)")
 	fs.fs.StringVar(&f.area, "area", "sphere", "sphere (A ∝ r²) or fragmented (A ∝ m, v_mix fixed: exponential growth)")
-	fs.fs.Float64Var(&f.kappa, "kappa", d.Kappa, "κ in t_destroy = κ t_cc (literature 2–10)")
-	fs.fs.Float64Var(&f.cd, "drag-coefficient", d.DragCoefficient, "C_D of the ram-pressure drag (from memory, ~0.5–1)")
-	fs.fs.Float64Var(&f.va, "va-over-vw", 0, "v_A/v_w of a magnetised wind: drag × (1 + v_A²/v_w²)")
+	fs.float(&f.kappa, "kappa", d.Kappa, "κ in t_destroy = κ t_cc (literature 2–10)")
+	fs.float(&f.cd, "drag-coefficient", d.DragCoefficient, "C_D of the ram-pressure drag (from memory, ~0.5–1)")
+	fs.float(&f.va, "va-over-vw", 0, "v_A/v_w of a magnetised wind: drag × (1 + v_A²/v_w²)")
 	fs.fs.BoolVar(&f.machFactor, "mach-factor", false, "multiply v_mix by (|Δv|/c_s,hot)^1/2 (from memory, uncertain)")
 	fs.fs.StringVar(&f.mixCooling, "mix-cooling", "cold", "cooling time in v_mix: cold, minmix, mix or hot")
-	fs.fs.Float64Var(&f.v0, "v0", 0, "initial cloud velocity in v_w")
-	fs.fs.Float64Var(&f.rtol, "rtol", d.RelTol, "relative tolerance of the integrator")
-	fs.fs.IntVar(&f.samples, "samples", 201, "output times, evenly spaced from 0 to --until (2–100000)")
+	fs.float(&f.v0, "v0", 0, "initial cloud velocity in v_w")
+	fs.float(&f.rtol, "rtol", d.RelTol, "relative tolerance of the integrator")
+	fs.int(&f.samples, "samples", 201, 2, 100000, "output times, evenly spaced from 0 to --until (2–100000)")
 }
 
 // settings turns the flags into model.EvolveSettings.
 func (f *evolveFlags) settings() (model.EvolveSettings, error) {
 	// In EvolveSettings zero means "the default"; on the command line a
-	// typed zero is a mistake, so these must be positive here.
+	// value given is checked as given (model.CheckField), 0 included.
 	for _, c := range []struct {
-		name string
-		v    float64
-	}{{"until", f.until}, {"alpha-v", f.alphaV}, {"area-factor", f.areaFactor}, {"kappa", f.kappa},
-		{"drag-coefficient", f.cd}, {"width", f.width}, {"rtol", f.rtol}} {
-		if !(c.v > 0) {
-			return model.EvolveSettings{}, usagef("--%s: must be greater than 0 (got %g)", c.name, c.v)
+		name, key string
+		v         float64
+	}{{"until", "t_end", f.until}, {"alpha-v", "alpha_v", f.alphaV}, {"area-factor", "area_factor", f.areaFactor},
+		{"kappa", "kappa", f.kappa}, {"drag-coefficient", "drag_coefficient", f.cd}, {"width", "width", f.width},
+		{"rtol", "rel_tol", f.rtol}, {"va-over-vw", "alfven_over_wind", f.va}, {"v0", "v0", f.v0}} {
+		if err := model.CheckField(c.key, c.v); err != nil {
+			var fe *model.FieldError
+			errors.As(err, &fe)
+			return model.EvolveSettings{}, usagef("--%s: %s", c.name, fe.Reason)
 		}
 	}
 	s := model.EvolveSettings{AlphaV: f.alphaV, AreaFactor: f.areaFactor, Kappa: f.kappa, DragCoefficient: f.cd,
@@ -84,9 +87,6 @@ func (f *evolveFlags) settings() (model.EvolveSettings, error) {
 	}
 	if s.MixCooling, err = model.ParseCoolingTimeKind(f.mixCooling); err != nil || s.MixCooling == model.CoolNone {
 		return s, usagef("--mix-cooling: want cold, minmix, mix or hot (got %q)", sanitizeArg(f.mixCooling))
-	}
-	if f.samples < 2 || f.samples > 100000 {
-		return s, usagef("--samples: want 2 to 100000 (got %d)", f.samples)
 	}
 	if err := s.Validate(); err != nil {
 		var fe *model.FieldError

@@ -6,6 +6,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"math"
 	"path/filepath"
 	"sort"
 	"strconv"
@@ -69,6 +70,14 @@ func (f *flagSet) explain(err error) error {
 	if name, ok := strings.CutPrefix(msg, "flag needs an argument: "); ok {
 		return usagef("--%s needs a value", strings.TrimLeft(sanitizeArg(name), "-"))
 	}
+	// The flag package's "invalid value %q for flag -NAME: ERR": our Set
+	// methods word ERR; name the flag the way it is typed.
+	if rest, ok := strings.CutPrefix(msg, "invalid value "); ok {
+		if i := strings.Index(rest, " for flag -"); i >= 0 {
+			name, why, _ := strings.Cut(rest[i+len(" for flag -"):], ": ")
+			return usagef("--%s: %s", sanitizeArg(name), sanitizeArg(why))
+		}
+	}
 	return usagef("%s", sanitizeArg(msg))
 }
 
@@ -103,6 +112,67 @@ func (f *flagSet) printHelp(w io.Writer) {
 		fmt.Fprintf(&b, "\nExamples:\n%s\n", strings.TrimRight(f.examples, "\n"))
 	}
 	w.Write(b.Bytes())
+}
+
+// float defines a number flag without a unit, read by model.ScanNumber (so
+// 10^x is accepted) rather than the flag package's own parser.
+func (f *flagSet) float(p *float64, name string, def float64, usage string) {
+	*p = def
+	f.fs.Var(&numberFlag{f: p}, name, usage)
+}
+
+// int defines a whole-number flag from lo to hi; values out of range are
+// refused with the one range wording ("must be at least 2 (got 1)").
+func (f *flagSet) int(p *int, name string, def, lo, hi int, usage string) {
+	*p = def
+	f.fs.Var(&numberFlag{i: p, lo: lo, hi: hi}, name, usage)
+}
+
+// A numberFlag is a flag.Value holding a float64 (f) or an int (i, from lo
+// to hi).
+type numberFlag struct {
+	f      *float64
+	i      *int
+	lo, hi int
+}
+
+func (n *numberFlag) String() string {
+	switch {
+	case n.f != nil:
+		return model.FormatNumber(*n.f, 6)
+	case n.i != nil:
+		return strconv.Itoa(*n.i)
+	}
+	return ""
+}
+
+func (n *numberFlag) Set(s string) error {
+	t := strings.TrimSpace(s)
+	v, k, err := model.ScanNumber(t)
+	if errors.Is(err, model.ErrNumberRange) {
+		return fmt.Errorf("%q is out of range", sanitizeArg(t))
+	}
+	if err != nil || k != len(t) {
+		if n.i != nil {
+			return fmt.Errorf("want a whole number (got %q)", sanitizeArg(t))
+		}
+		return fmt.Errorf("want a number without a unit (got %q)", sanitizeArg(t))
+	}
+	if n.f != nil {
+		*n.f = v
+		return nil
+	}
+	if v != math.Trunc(v) {
+		return fmt.Errorf("want a whole number (got %q)", sanitizeArg(t))
+	}
+	switch {
+	case v < float64(n.lo):
+		return fmt.Errorf("must be at least %d (got %s)", n.lo, model.FormatNumber(v, 6))
+	case v > float64(n.hi):
+		return fmt.Errorf("must not exceed %d (got %s)", n.hi, model.FormatNumber(v, 6))
+	}
+	*n.i = int(v)
+	return nil
 }
 
 // set reports whether the named flag was given on the command line.
@@ -156,7 +226,7 @@ func numericScenarioFlags() []scenarioFlag {
 		{"mu-cloud", model.FieldMuCold, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muCloud }, "", "μ of the cloud, if different (then T_hot = χ T_cl μ_hot/μ_cl)"},
 		{"mu-hot", model.FieldMuHot, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muHot }, "", "μ of the wind, if different"},
 		{"hydrogen-fraction", model.FieldHydrogenFraction, model.Dimensionless, func(s *scenarioFlags) *string { return &s.hydrogen }, "", "hydrogen mass fraction X (default: that of --mixture)"},
-		{"t-floor", model.FieldTFloor, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tFloor }, "", "cooling floor in K: Λ = 0 below it (default: the cloud temperature)"},
+		{"t-floor", model.FieldTFloor, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tFloor }, "", "cooling floor in K: Λ = 0 below it (default: the cloud temperature; 0 for no floor,\nso that Λ applies wherever the cooling function has values)"},
 	}
 }
 
@@ -282,6 +352,14 @@ func (s *scenarioFlags) parse() (model.Params, error) {
 		v, err := quantity.ParseValue(sf.kind, raw)
 		if err != nil {
 			return p, usagef("--%s: %v", sf.name, err)
+		}
+		// A value given is used or refused, never replaced by a default:
+		// 0 is checked as 0, except that a floor of 0 K means no floor.
+		if err := model.CheckField(sf.field, v); err != nil {
+			return p, fieldUsage(err)
+		}
+		if sf.field == model.FieldTFloor && v == 0 {
+			v = float64(model.NoFloor)
 		}
 		p.SetField(sf.field, v)
 	}

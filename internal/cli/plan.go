@@ -37,13 +37,18 @@ func runPlan(e *env) error {
 	var sf scenarioFlags
 	sf.register(f)
 	d := model.DefaultPlanSettings()
-	cells := f.fs.Float64("cells-per-radius", d.CellsPerRadius, "cells per cloud radius R = r_cl/Δx")
+	var cells float64
+	f.float(&cells, "cells-per-radius", d.CellsPerRadius, "cells per cloud radius R = r_cl/Δx")
 	box := f.fs.String("box", "auto", "box in r_cl, along × across × across the wind: LxWxH (W = H), or auto")
-	run := f.fs.Float64("run-tcc", 0, "run length in t_cc (0: automatic from the question)")
-	cfl := f.fs.Float64("cfl", d.CFL, "Courant number C in Δt = C Δx/(v_w + c_s,hot)")
+	var run float64
+	f.float(&run, "run-tcc", 0, "run length in t_cc (0: automatic from the question)")
+	var cfl float64
+	f.float(&cfl, "cfl", d.CFL, "Courant number C in Δt = C Δx/(v_w + c_s,hot)")
 	tracking := f.fs.Bool("tracking", false, "the frame follows the cloud (no room needed for its displacement)")
-	throughput := f.fs.Float64("throughput", d.CellUpdatesPerCoreSecond, "cell-updates per core-second of your code (an assumption by default)")
-	bytes := f.fs.Float64("bytes-per-cell", d.BytesPerCell, "memory per cell in bytes (an assumption by default)")
+	var throughput float64
+	f.float(&throughput, "throughput", d.CellUpdatesPerCoreSecond, "cell-updates per core-second of your code (an assumption by default)")
+	var bytes float64
+	f.float(&bytes, "bytes-per-cell", d.BytesPerCell, "memory per cell in bytes (an assumption by default)")
 	mhd := f.fs.Bool("mhd", false, "magnetohydrodynamics (resolution advice ≥ 64 cells per radius)")
 	question := f.fs.String("question", "growth", "what the run must show: growth, entrainment or destruction")
 	criterion := f.fs.String("criterion", "gronke-oh-2018", "the criterion whose branch the displacement integration follows")
@@ -61,13 +66,23 @@ func runPlan(e *env) error {
 		}
 		return 0
 	}
-	for name, v := range map[string]float64{"cells-per-radius": *cells, "cfl": *cfl, "throughput": *throughput, "bytes-per-cell": *bytes} {
-		if f.set(name) && !(v > 0) {
-			return usagef("--%s: must be greater than 0 (got %g)", name, v)
+	// A value given is checked as given, 0 included (model.CheckField).
+	for _, c := range []struct {
+		name, field string
+		v           float64
+	}{{"cells-per-radius", model.FieldCellsPerRadius, cells}, {"cfl", model.FieldCFL, cfl},
+		{"throughput", model.FieldThroughput, throughput}, {"bytes-per-cell", model.FieldBytesPerCell, bytes}} {
+		if !f.set(c.name) {
+			continue
+		}
+		if err := model.CheckField(c.field, c.v); err != nil {
+			var fe *model.FieldError
+			errors.As(err, &fe)
+			return usagef("--%s: %s", c.name, fe.Reason)
 		}
 	}
-	set := model.PlanSettings{CellsPerRadius: given("cells-per-radius", *cells), RunTcc: *run, CFL: given("cfl", *cfl), Tracking: *tracking,
-		CellUpdatesPerCoreSecond: given("throughput", *throughput), BytesPerCell: given("bytes-per-cell", *bytes), MHD: *mhd}
+	set := model.PlanSettings{CellsPerRadius: given("cells-per-radius", cells), RunTcc: run, CFL: given("cfl", cfl), Tracking: *tracking,
+		CellUpdatesPerCoreSecond: given("throughput", throughput), BytesPerCell: given("bytes-per-cell", bytes), MHD: *mhd}
 	if set.Question, err = model.ParseQuestion(*question); err != nil {
 		return usagef("--question: %v", err)
 	}

@@ -1,14 +1,11 @@
 package cli
 
 import (
-	"context"
 	"fmt"
 	"io"
 	"os"
-	"os/signal"
 	"runtime"
 	"strings"
-	"syscall"
 	"time"
 
 	"cloudwind/internal/report"
@@ -53,25 +50,35 @@ func runSweep(e *env) error {
 	f := newFlagSet("sweep", sweepSynopsis, sweepExamples)
 	var sf scenarioFlags
 	sf.register(f)
-	format := f.fs.String("format", "csv", "output format: csv, ecsv, json or jsonl")
+	format := f.fs.String("format", "csv", "output format: csv, ecsv, json or jsonl (default: from the -o file's extension, else csv)")
 	out := f.fs.String("o", "", "write to FILE (atomically) instead of stdout")
 	force := f.fs.Bool("force", false, fmt.Sprintf("run grids larger than %d points", maxGridDefault))
-	workers := f.fs.Int("workers", runtime.GOMAXPROCS(0), "parallel workers")
+	var workers int
+	f.int(&workers, "workers", runtime.GOMAXPROCS(0), 1, 1024, "parallel workers")
 	if err := f.parse(e); err != nil {
 		return err
 	}
-	opt, err := sweepSetup(e, &sf, f, *format, *workers, *force)
+	fmtName, err := formatFor(*format, f.set("format"), *out, "csv", "ecsv", "json", "jsonl")
+	if err != nil {
+		return err
+	}
+	opt, err := sweepSetup(e, &sf, f, fmtName, workers, *force)
 	if err != nil {
 		return err
 	}
 	opt.out = *out
 	opt.progress = isTerminal(e.stderr) && opt.grid.total >= 200_000
-	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
+	// The output is checked before anything is computed.
+	target, err := checkOutput(opt.out)
+	if err != nil {
+		return err
+	}
+	ctx, stop := interruptContext()
 	defer stop()
-	if opt.out == "" || opt.out == "-" {
+	if target == nil {
 		return runSweepTo(ctx, e, opt, e.stdout)
 	}
-	return writeFileAtomic(opt.out, func(w io.Writer) error { return runSweepTo(ctx, e, opt, w) })
+	return target.Write(func(w io.Writer) error { return runSweepTo(ctx, e, opt, w) })
 }
 
 // sweepSetup parses and validates everything before any output.
@@ -80,9 +87,6 @@ func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers in
 	var ok bool
 	if opt.format, ok = report.LookupFormat(format); !ok {
 		return nil, usagef("--format: want csv, ecsv, json or jsonl (got %q)", sanitizeArg(format))
-	}
-	if workers < 1 || workers > 1024 {
-		return nil, usagef("--workers: want 1 to 1024 (got %d)", workers)
 	}
 	// The swept flags, parsed as specs; the single-valued rest as eval does.
 	flagsByName := map[string]scenarioFlag{}
@@ -159,6 +163,9 @@ func gridSize(n int) string {
 
 // isTerminal reports whether w is a terminal (a character device).
 func isTerminal(w io.Writer) bool {
+	if c, ok := w.(*checkedWriter); ok {
+		w = c.w
+	}
 	f, ok := w.(*os.File)
 	if !ok {
 		return false
@@ -205,10 +212,14 @@ func sweepMeta(opt *sweepOptions) []report.Meta {
 	}
 }
 
-// tFloorMeta is the floor, or "t_cloud" when it follows the cloud temperature.
+// tFloorMeta is the floor, "t_cloud" when it follows the cloud
+// temperature, or "none".
 func tFloorMeta(p model.Params) any {
 	if p.TFloor == 0 {
 		return "t_cloud"
+	}
+	if _, ok := p.Floor(); !ok {
+		return "none"
 	}
 	return float64(p.TFloor)
 }

@@ -18,7 +18,7 @@ func TestSweepBadSpecs(t *testing.T) {
 		frag string
 	}{
 		{[]string{"--chi", "log:0:10:5"}, "a log range needs A > 0 and B > 0"},
-		{[]string{"--radius", "lin:1:2:0"}, "N must be from 2"},
+		{[]string{"--radius", "lin:1:2:0"}, "N must be at least 2"},
 		{[]string{"--radius", "lin:1:2"}, "want lin:A:B:N"},
 		{[]string{"--radius", "lin:1:2:x"}, "N must be a whole number"},
 		{[]string{"--radius", "log:1 parsec:2:3"}, `unknown unit "parsec"`},

@@ -50,11 +50,14 @@ func parseAxis(flag string, k quantity.Kind, spec string) ([]float64, error) {
 		if err != nil {
 			return nil, bad("N must be a whole number (got %q)", sanitizeArg(parts[2]))
 		}
-		if n < 2 || n > maxAxisPoints {
-			return nil, bad("N must be from 2 to %d (got %d): it counts the points, both ends included", maxAxisPoints, n)
+		if n < 2 {
+			return nil, bad("N must be at least 2 (got %d): it counts the points, both ends included", n)
+		}
+		if n > maxAxisPoints {
+			return nil, bad("N must not exceed %d (got %d)", maxAxisPoints, n)
 		}
 		if mode == "log" && !(a > 0 && b > 0) {
-			return nil, bad("a log range needs A > 0 and B > 0 (got %g and %g)", a, b)
+			return nil, bad("a log range needs A > 0 and B > 0 (got %s and %s)", quantity.Format(k, a), quantity.Format(k, b))
 		}
 		vs := make([]float64, n)
 		for i := range vs {

@@ -49,7 +49,7 @@ func StateDocument(r *model.Result, src *cooling.Source, cf model.CoolingFunctio
 			"mu_hot":            q.MuHot,
 			"mixture":           q.Mixture.Name,
 			"hydrogen_fraction": q.HydrogenFraction,
-			"t_floor_k":         float64(q.TFloor),
+			"t_floor_k":         floorK(q),
 			"heat_capacity":     q.HeatCapacity.String(),
 			"heat_capacity_f":   q.HeatCapacity.Factor(),
 			"density_product":   q.DensityProduct.String(),
@@ -138,4 +138,10 @@ func nonNil(s []string) []string {
 		return []string{}
 	}
 	return s
+}
+
+// floorK is the cooling floor in K for JSON: 0 when there is none.
+func floorK(p model.Params) float64 {
+	tf, _ := p.Floor()
+	return float64(tf)
 }
