@@ -1,16 +1,14 @@
 package tui
 
 import (
-	"fmt"
 	"os"
-	"strings"
 
-	"github.com/charmbracelet/bubbles/help"
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"cloudwind/cooling"
-	"cloudwind/internal/quantity"
+	"cloudwind/internal/chartspec"
+	"cloudwind/internal/report"
 	"cloudwind/internal/scenario"
 	"cloudwind/model"
 )
@@ -44,51 +42,13 @@ func (f focus) String() string {
 	return [...]string{"inputs", "derived", "criteria"}[f]
 }
 
-// viewKind is the chart on screen.
-type viewKind int
-
-const (
-	viewThreshold viewKind = iota // r_crit vs χ
-	viewCooling                   // Λ(T)
-	viewRatios                    // τ_cool/τ_dyn vs r_cl
-	viewRegime                    // regime map
-	viewEvolution                 // m/m0 and v/v_w vs t/t_cc
-	viewPlan                      // simulation plan
-	viewCount
-)
-
-func (v viewKind) String() string {
-	return [...]string{"threshold radius vs χ", "cooling curve Λ(T)", "timescale ratios vs r_cl", "regime map",
-		"evolution vs t/t_cc", "simulation plan"}[v]
-}
-
-// snapshot is a complete state of the inputs: what undo restores and what
-// compare mode pins.
-type snapshot struct {
-	params  model.Params
-	cooling *cooling.Source
-	cf      model.CoolingFunction
-}
-
-// pinned is scenario A of compare mode.
-type pinned struct {
-	snapshot
-	res model.Result
-}
-
-// status is the status line: a message or an error.
-type status struct {
-	text  string
-	isErr bool
-}
-
-// App is the explorer: the root Bubble Tea model. It routes messages to
-// its panes and composes their views; the panes own their state.
+// App is the explorer: the root Bubble Tea model. It holds the inputs and
+// their evaluation (state.go), routes messages to its panes and composes
+// their views (app_view.go); the panes own their state.
 type App struct {
 	cfg    Config
 	keys   KeyMap
-	styles Styles
-	help   help.Model
+	styles Styles // the panes share it: the palette switch restyles them all
 	width  int
 	height int
 
@@ -98,42 +58,26 @@ type App struct {
 	initial  snapshot     // what reset returns to
 	pin      *pinned
 	scenario string
+	focus    focus
+	status   status
 
-	in          inputsPane
-	derived     []model.Quantity // the derived pane's rows, fixed at start
-	focus       focus
-	derivedSel  int
-	critSel     int
-	view        viewKind
-	family      bool
-	mapMach     bool
-	showHelp    bool
-	showDetails bool
-	prompt      *prompt
-	status      status
-
-	gen   int        // generation of the latest chart request
-	chart chartState // the latest chart received
+	in       inputsPane
+	derived  readout
+	criteria criteriaPane
+	chart    chartPane
+	details  detailsPane
+	prompt   prompt
+	help     helpOverlay
 }
-
-// chartState is the chart on screen and the request it answers.
-type chartState struct {
-	gen    int
-	view   viewKind
-	line   *LineChart
-	line2  *LineChart // the evolution view's second chart (v/v_w)
-	regime *RegimeMap
-	text   []string // the plan view
-}
-
-// maxHistory bounds the undo stack.
-const maxHistory = 200
 
 // New returns the explorer for cfg. It evaluates the initial state; an
 // invalid one is an error (main validates before).
 func New(cfg Config) (*App, error) {
-	a := &App{cfg: cfg, keys: DefaultKeyMap(), help: help.New(), in: newInputsPane(), derived: derivedRows(), scenario: cfg.Scenario}
+	a := &App{cfg: cfg, keys: DefaultKeyMap(), scenario: cfg.Scenario}
 	a.styles = NewStyles(cfg.Palette, cfg.Color, cfg.ASCII)
+	st, k := &a.styles, &a.keys
+	a.in, a.derived, a.criteria = newInputsPane(st, k), newReadout(st, k), newCriteriaPane(st, k)
+	a.chart, a.details, a.prompt, a.help = newChartPane(st), newDetailsPane(st, k), newPrompt(st, k), newHelpOverlay(st, k)
 	cf, err := cfg.Cooling.Function(cfg.Params.Metallicity)
 	if err != nil {
 		return nil, err
@@ -143,80 +87,98 @@ func New(cfg Config) (*App, error) {
 		return nil, err
 	}
 	a.initial = a.cur
+	a.sync()
 	return a, nil
-}
-
-// normalise fills the defaults of p but keeps a zero T_floor, which means
-// "follow the cloud temperature".
-func normalise(p model.Params) model.Params {
-	q := p.WithDefaults()
-	q.TFloor = p.TFloor
-	return q
 }
 
 // Init starts the first chart computation.
 func (a *App) Init() tea.Cmd { return a.requestChart() }
 
-// Update handles a message.
+// Update handles a message, then hands the panes the new state.
 func (a *App) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
+	cmd := a.update(msg)
+	a.sync()
+	return a, cmd
+}
+
+func (a *App) update(msg tea.Msg) tea.Cmd {
 	switch msg := msg.(type) {
 	case tea.WindowSizeMsg:
 		a.width, a.height = msg.Width, msg.Height
-		a.help.Width = msg.Width
-		return a, a.requestChart()
+		return a.requestChart()
 	case chartMsg:
-		if msg.gen == a.gen { // stale results are dropped
-			a.chart = chartState{gen: msg.gen, view: msg.view, line: msg.line, line2: msg.line2, regime: msg.regime, text: msg.text}
-		}
-		return a, nil
+		a.chart, _ = a.chart.Update(msg)
 	case statusMsg:
 		a.status = status{msg.text, msg.isErr}
-		return a, nil
 	case coolingMsg:
-		return a, a.applyCooling(msg)
+		return a.applyCooling(msg)
 	case scenarioMsg:
-		return a, a.applyScenario(msg)
+		return a.applyScenario(msg)
 	case tea.KeyMsg:
-		return a, a.handleKey(msg)
+		return a.handleKey(msg)
 	}
-	return a, nil
+	return nil
 }
 
-// handleKey routes a key: overlays and prompts first, then global keys,
+// sync hands the panes what they show: the state, the focus and their
+// sizes. Update calls it after every message.
+func (a *App) sync() {
+	var pin *model.Result
+	if a.pin != nil {
+		pin = &a.pin.res
+	}
+	a.in.SetValues(a.cur.params, a.cur.cooling.Spec, report.CoolingName(a.cur.cooling, a.cur.cf))
+	a.derived.SetResult(&a.res, pin, a.cur.cf)
+	a.criteria.SetResult(&a.res, pin)
+	a.in.SetFocused(a.focus == focusInputs)
+	a.derived.SetFocused(a.focus == focusDerived)
+	a.criteria.SetFocused(a.focus == focusCriteria)
+	about := subject{focus: a.focus}
+	switch a.focus {
+	case focusInputs:
+		about.input = a.in.Current()
+	case focusDerived:
+		about.quantity = a.derived.Selected()
+	case focusCriteria:
+		about.criterion = a.criteria.Selected()
+	}
+	a.details.SetState(about, a.cur.params, a.cur.cooling, a.cur.cf, &a.res)
+	a.resize()
+}
+
+// handleKey routes a key: prompts and overlays first, then global keys,
 // then the focused pane.
 func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
+	var cmd tea.Cmd
 	switch {
-	case a.prompt != nil:
-		return a.updatePrompt(msg)
-	case a.in.editing:
-		return a.updateEdit(msg)
-	case a.showHelp:
-		if key.Matches(msg, a.keys.Help, a.keys.Cancel, a.keys.Accept) {
-			a.showHelp = false
-		} else if key.Matches(msg, a.keys.Quit) {
-			return tea.Quit
+	case a.prompt.Open():
+		a.prompt, cmd = a.prompt.Update(msg)
+		return cmd
+	case a.in.Editing():
+		if msg.Type == tea.KeyEnter {
+			return a.applyEdit()
 		}
-		return nil
-	case a.showDetails:
-		if key.Matches(msg, a.keys.Details, a.keys.Cancel, a.keys.Accept) {
-			a.showDetails = false
-			return nil
+		a.in, cmd = a.in.Update(msg)
+		return cmd
+	case a.help.Open():
+		a.help, cmd = a.help.Update(msg)
+		return cmd
+	case a.details.Open():
+		a.details, cmd = a.details.Update(msg)
+		if a.details.Open() && key.Matches(msg, a.keys.Up, a.keys.Down) {
+			// Moving the selection keeps the details open on the new item.
+			return a.updateFocused(msg)
 		}
-		if key.Matches(msg, a.keys.Quit) {
-			return tea.Quit
-		}
-		// Moving the selection keeps the details open on the new item.
-		a.moveSelection(msg)
-		return nil
+		return cmd
 	}
 	k := &a.keys
 	switch {
 	case key.Matches(msg, k.Quit):
 		return tea.Quit
 	case key.Matches(msg, k.Help):
-		a.showHelp = true
+		a.help.Show()
 	case key.Matches(msg, k.Details):
-		a.showDetails = true
+		a.details.Show()
 	case key.Matches(msg, k.Focus):
 		a.focus = (a.focus + 1) % focusCount
 	case key.Matches(msg, k.FocusBack):
@@ -234,15 +196,13 @@ func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
 	case key.Matches(msg, k.View6):
 		return a.setView(viewPlan)
 	case key.Matches(msg, k.NextView):
-		return a.setView((a.view + 1) % viewCount)
+		return a.setView((a.chart.Kind() + 1) % viewCount)
 	case key.Matches(msg, k.Family):
-		a.family = !a.family
-		a.setStatus(fmt.Sprintf("family over Mach numbers %s (threshold chart; the selected criterion)", onOff(a.family)), false)
+		a.setStatus("family over Mach numbers "+onOff(a.chart.ToggleFamily())+" (threshold chart; the selected criterion)", false)
 		return a.requestChart()
 	case key.Matches(msg, k.MapAxis):
-		a.mapMach = !a.mapMach
 		axes := "χ × r_cl"
-		if a.mapMach {
+		if a.chart.ToggleMapAxis() {
 			axes = "χ × Mach"
 		}
 		a.setStatus("regime map axes: "+axes, false)
@@ -265,13 +225,19 @@ func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
 		a.styles = NewStyles(p, a.cfg.Color, a.cfg.ASCII)
 		a.setStatus(p.Name+" palette", false)
 	case key.Matches(msg, k.Scenarios):
-		a.prompt = newScenarioMenu(a.cfg.Demos)
+		open := a.cfg.Open
+		a.prompt.ChooseScenario(a.cfg.Demos, func(sc scenario.Scenario) tea.Cmd { return loadDemo(sc, open) },
+			a.pathAction(func(path string) tea.Cmd { return loadScenario(path, a.cfg.Open) }))
 	case key.Matches(msg, k.Save):
-		a.prompt = newPathPrompt(promptSave, "save scenario to", "scenario.toml")
+		a.prompt.AskPath("save scenario to", "scenario.toml",
+			a.pathAction(func(path string) tea.Cmd { return saveScenario(path, a.currentScenario()) }))
 	case key.Matches(msg, k.ExportChart):
-		a.prompt = newPathPrompt(promptExportChart, "export chart to (.svg or .png)", "cloudwind-chart.svg")
+		a.prompt.AskPath("export chart to (.svg or .png)", "cloudwind-chart.svg",
+			a.pathAction(func(path string) tea.Cmd { return exportChart(path, a.chart.Shown()) }))
 	case key.Matches(msg, k.ExportState):
-		a.prompt = newPathPrompt(promptExportState, "export state to", "cloudwind-state.json")
+		a.prompt.AskPath("export state to", "cloudwind-state.json", a.pathAction(func(path string) tea.Cmd {
+			return exportState(path, report.StateDocument(&a.res, a.cur.cooling, a.cur.cf, a.cfg.Version))
+		}))
 	case key.Matches(msg, k.Undo):
 		return a.undo()
 	case key.Matches(msg, k.ResetAll):
@@ -280,48 +246,31 @@ func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
 		if a.focus == focusInputs {
 			return a.updateInputs(msg)
 		}
-		a.moveSelection(msg)
+		return a.updateFocused(msg)
 	}
 	return nil
 }
 
-func onOff(b bool) string {
-	if b {
-		return "on"
-	}
-	return "off"
-}
-
-// moveSelection moves the selection of the derived or criteria pane.
-func (a *App) moveSelection(msg tea.KeyMsg) {
-	d := 0
-	switch {
-	case key.Matches(msg, a.keys.Up):
-		d = -1
-	case key.Matches(msg, a.keys.Down):
-		d = 1
-	default:
-		return
-	}
+// updateFocused forwards a key to the focused pane.
+func (a *App) updateFocused(msg tea.KeyMsg) tea.Cmd {
+	var cmd tea.Cmd
 	switch a.focus {
 	case focusInputs:
-		a.in.move(d)
+		a.in, cmd = a.in.Update(msg)
 	case focusDerived:
-		n := len(a.derived)
-		a.derivedSel = (a.derivedSel + d + n) % n
+		a.derived, cmd = a.derived.Update(msg)
 	case focusCriteria:
-		n := len(a.res.Criteria)
-		a.critSel = (a.critSel + d + n) % n
+		a.criteria, cmd = a.criteria.Update(msg)
 	}
+	return cmd
 }
 
-// updateInputs handles the inputs pane's keys.
+// updateInputs handles a key for the inputs pane: the keys that change a
+// value go through change, the others to the pane.
 func (a *App) updateInputs(msg tea.KeyMsg) tea.Cmd {
 	k := &a.keys
 	steps := 0
 	switch {
-	case key.Matches(msg, k.Up, k.Down):
-		a.moveSelection(msg)
 	case key.Matches(msg, k.Inc):
 		steps = 1
 	case key.Matches(msg, k.Dec):
@@ -330,28 +279,16 @@ func (a *App) updateInputs(msg tea.KeyMsg) tea.Cmd {
 		steps = coarseFactor
 	case key.Matches(msg, k.DecBig):
 		steps = -coarseFactor
-	case key.Matches(msg, k.Edit):
-		a.in.startEdit(&a.cur.params, a.cur.cooling.Spec)
-	case key.Matches(msg, k.Advanced):
-		a.in.advanced = !a.in.advanced
-		a.in.selected = 0
 	case key.Matches(msg, k.Reset):
-		in := a.in.current()
-		next := a.cur
-		switch {
-		case in.field == "cooling":
+		next, isCooling := a.in.Reset(a.cur.params, a.initial.params)
+		if isCooling {
 			return a.requestCooling(a.initial.cooling.Spec, a.initial.cooling.Table)
-		case in.isEnum():
-			in.setEnum(&next.params, in.getEnum(&a.initial.params))
-		default:
-			in.set(&next.params, in.get(&a.initial.params))
 		}
-		return a.change(next, "reset "+in.label)
+		return a.change(snapshot{next, a.cur.cooling, a.cur.cf}, "reset "+a.in.Current().label)
+	default:
+		return a.updateFocused(msg)
 	}
-	if steps == 0 {
-		return nil
-	}
-	p, coolingName := a.in.step(a.cur.params, steps, a.cur.cooling.Spec)
+	p, coolingName := a.in.Step(a.cur.params, steps, a.cur.cooling.Spec)
 	if coolingName != "" {
 		return a.requestCooling(coolingName, nil)
 	}
@@ -360,102 +297,62 @@ func (a *App) updateInputs(msg tea.KeyMsg) tea.Cmd {
 	return a.change(next, "")
 }
 
-// updateEdit handles keys while a value is typed.
-func (a *App) updateEdit(msg tea.KeyMsg) tea.Cmd {
-	switch {
-	case key.Matches(msg, a.keys.Cancel):
-		a.in.stopEdit()
-		return nil
-	case msg.Type == tea.KeyEnter:
-		p, spec, err := a.in.applyEdit(a.cur.params)
-		a.in.stopEdit()
-		if err != nil {
-			a.setStatus(err.Error(), true)
-			return nil
-		}
-		if spec != "" {
-			return a.requestCooling(spec, nil)
-		}
-		next := a.cur
-		next.params = p
-		return a.change(next, "")
-	}
-	var cmd tea.Cmd
-	a.in.edit, cmd = a.in.edit.Update(msg)
-	return cmd
-}
-
-// change applies a new snapshot if it is valid: the metallicity may need
-// a new cooling curve, and everything is re-evaluated. An invalid one is
-// refused with the reason in the status line and the last good state
-// stays.
-func (a *App) change(next snapshot, note string) tea.Cmd {
-	if next.cooling != a.cur.cooling || next.params.Metallicity != a.cur.params.Metallicity || next.cf == nil {
-		cf, err := next.cooling.Function(next.params.Metallicity)
-		if err != nil {
-			a.setStatus("Z: "+err.Error(), true)
-			return nil
-		}
-		next.cf = cf
-	}
-	var res model.Result
-	if err := res.Evaluate(next.params, next.cf, a.cfg.Criteria); err != nil {
-		a.setStatus(a.fieldMessage(err), true)
-		return nil
-	}
-	a.history = append(a.history, a.cur)
-	if len(a.history) > maxHistory {
-		a.history = a.history[1:]
-	}
-	a.cur, a.res = next, res
-	a.setStatus(note, false)
-	return a.requestChart()
-}
-
-// fieldMessage words a validation error with the input's label.
-func (a *App) fieldMessage(err error) string {
-	msg := err.Error()
-	for _, in := range a.in.all {
-		if strings.HasPrefix(msg, in.field+":") {
-			return in.label + msg[len(in.field):] + " — kept the last valid value"
-		}
-	}
-	return msg + " — kept the last valid value"
-}
-
-// undo returns to the previous snapshot.
-func (a *App) undo() tea.Cmd {
-	if len(a.history) == 0 {
-		a.setStatus("nothing to undo", false)
-		return nil
-	}
-	prev := a.history[len(a.history)-1]
-	a.history = a.history[:len(a.history)-1]
-	var res model.Result
-	if err := res.Evaluate(prev.params, prev.cf, a.cfg.Criteria); err != nil {
+// applyEdit takes the typed value (enter while typing).
+func (a *App) applyEdit() tea.Cmd {
+	p, spec, err := a.in.ApplyEdit(a.cur.params)
+	a.in.StopEdit()
+	if err != nil {
 		a.setStatus(err.Error(), true)
 		return nil
 	}
-	a.cur, a.res = prev, res
-	a.setStatus("undone", false)
-	return a.requestChart()
+	if spec != "" {
+		return a.requestCooling(spec, nil)
+	}
+	next := a.cur
+	next.params = p
+	return a.change(next, "")
+}
+
+// pathAction wraps what a path prompt does: an empty path is refused in
+// the status line.
+func (a *App) pathAction(f pathAction) pathAction {
+	return func(path string) tea.Cmd {
+		if path == "" {
+			a.setStatus("no file name given", true)
+			return nil
+		}
+		return f(path)
+	}
 }
 
 // setView switches the chart.
 func (a *App) setView(v viewKind) tea.Cmd {
-	a.view = v
+	a.chart.SetKind(v)
 	return a.requestChart()
 }
 
-func (a *App) setStatus(text string, isErr bool) { a.status = status{quantity.Sanitize(text), isErr} }
+// requestChart starts computing the chart of the current view from a
+// copy of the inputs; results of older requests are dropped.
+func (a *App) requestChart() tea.Cmd {
+	cw, ch := a.chartSize()
+	req := chartspec.Request{Params: a.cur.params, Cooling: a.cur.cf, Criteria: a.cfg.Criteria,
+		Selected: a.criteria.Selected(), Cols: cw, Rows: ch}
+	if a.pin != nil {
+		req.Pin = &chartspec.Inputs{Params: a.pin.params, Cooling: a.pin.cf}
+	}
+	return a.chart.Request(req)
+}
 
-// cloneResult copies a Result so that later evaluations do not share its
-// slices.
-func cloneResult(r *model.Result) model.Result {
-	c := *r
-	c.Outcomes = append([]model.Outcome(nil), r.Outcomes...)
-	c.Cautions = append([]model.Caution(nil), r.Cautions...)
-	return c
+// requestCooling resolves a cooling spec in a command (a table is a file).
+func (a *App) requestCooling(spec string, table []string) tea.Cmd {
+	return resolveCooling(spec, table, a.cfg.Open)
+}
+
+func onOff(b bool) string {
+	if b {
+		return "on"
+	}
+	return "off"
 }
 
 // Run starts the explorer on the terminal and returns when the user quits.

@@ -15,6 +15,7 @@ import (
 	"cloudwind/internal/quantity"
 	"cloudwind/internal/scenario"
 	"cloudwind/model"
+	"cloudwind/tui/internal/golden"
 )
 
 // fileOpener opens real files, as main does.
@@ -184,10 +185,10 @@ func TestStaleChartDropped(t *testing.T) {
 	old := a.requestChart()
 	fresh := a.requestChart()
 	drain(a, fresh)
-	got := a.chart
+	got := a.chart.shown
 	drain(a, old) // arrives late: its generation is stale
-	if a.chart.gen != got.gen || a.chart.gen != a.gen {
-		t.Errorf("a stale chart replaced the current one: gen %d, want %d", a.chart.gen, a.gen)
+	if a.chart.shown.gen != got.gen || a.chart.shown.gen != a.chart.gen {
+		t.Errorf("a stale chart replaced the current one: gen %d, want %d", a.chart.shown.gen, a.chart.gen)
 	}
 }
 
@@ -198,12 +199,12 @@ func TestViewsAndFocus(t *testing.T) {
 		if s := screen(a); !strings.Contains(s, want) {
 			t.Errorf("view %d: %q not on screen", i+1, want)
 		}
-		if a.chart.view != viewKind(i) {
-			t.Errorf("view %d: chart of view %d on screen", i+1, a.chart.view+1)
+		if a.chart.shown.view != viewKind(i) {
+			t.Errorf("view %d: chart of view %d on screen", i+1, a.chart.shown.view+1)
 		}
 	}
 	press(a, "tab", "tab", "down", "d")
-	if !a.showDetails || !strings.Contains(screen(a), "arXiv:1909.02632") {
+	if !a.details.Open() || !strings.Contains(screen(a), "arXiv:1909.02632") {
 		t.Errorf("details of li-2020 (second criterion) not shown:\n%s", screen(a))
 	}
 	press(a, "esc", "?")
@@ -235,7 +236,7 @@ func TestCompareMode(t *testing.T) {
 func TestAdvancedCooling(t *testing.T) {
 	a := newTestApp(t, 120, 40)
 	press(a, "a")
-	for a.in.current().field != "cooling" {
+	for a.in.Current().field != "cooling" {
 		press(a, "down")
 	}
 	press(a, "right") // the next named cooling function
@@ -291,6 +292,28 @@ func TestScenarioFiles(t *testing.T) {
 	}
 }
 
+// TestExportFromPrompt exports the chart and the state through their
+// prompts, and refuses an empty path.
+func TestExportFromPrompt(t *testing.T) {
+	a := newTestApp(t, 120, 40)
+	dir := t.TempDir()
+	svg, js := filepath.Join(dir, "c.svg"), filepath.Join(dir, "s.json")
+	press(a, "x", "ctrl+u")
+	typeText(a, svg)
+	press(a, "enter", "J", "ctrl+u")
+	typeText(a, js)
+	press(a, "enter")
+	for _, p := range []string{svg, js} {
+		if st, err := os.Stat(p); err != nil || st.Size() == 0 {
+			t.Errorf("export to %s: %v (status %+v)", p, err, a.status)
+		}
+	}
+	press(a, "s", "ctrl+u", "enter")
+	if !a.status.isErr || a.status.text != "no file name given" || a.prompt.Open() {
+		t.Errorf("empty path: status %+v, prompt open %v", a.status, a.prompt.Open())
+	}
+}
+
 // TestEverySize draws every view at every size from 0×0 to 130×45 (in
 // steps) and requires exactly the window's lines and widths, no panic.
 func TestEverySize(t *testing.T) {
@@ -326,14 +349,14 @@ func TestGoldenViews(t *testing.T) {
 		a := newTestApp(t, w, h)
 		for v := viewThreshold; v < viewCount; v++ {
 			press(a, string(rune('1'+int(v))))
-			checkChartGolden(t, "TestGoldenViews", goldenName(v, w, h), screen(a))
+			golden.Check(t, "TestGoldenViews", goldenName(v, w, h), screen(a))
 		}
 		press(a, "1", "tab", "tab", "d")
-		checkChartGolden(t, "TestGoldenViews", sizeName("details", w, h), screen(a))
+		golden.Check(t, "TestGoldenViews", sizeName("details", w, h), screen(a))
 		press(a, "esc", "?")
-		checkChartGolden(t, "TestGoldenViews", sizeName("help", w, h), screen(a))
+		golden.Check(t, "TestGoldenViews", sizeName("help", w, h), screen(a))
 		press(a, "esc", "tab", "p", "right", "right")
-		checkChartGolden(t, "TestGoldenViews", sizeName("compare", w, h), screen(a))
+		golden.Check(t, "TestGoldenViews", sizeName("compare", w, h), screen(a))
 	}
 }
 

@@ -1,104 +1,48 @@
 package tui
 
 import (
-	"fmt"
+	"strconv"
 	"strings"
 
 	"cloudwind/internal/quantity"
 	"cloudwind/internal/report"
-	"cloudwind/model"
 )
 
-// Layout constants: below minWidth×minHeight the explorer shows a note
-// instead of panes; from wideWidth the derived pane sits beside the chart.
-const (
-	minWidth   = 60
-	minHeight  = 16
-	wideWidth  = 100
-	leftNarrow = 30
-	leftWide   = 40
-)
-
-// layout is the geometry of one frame.
-type layout struct {
-	leftW, rightW     int
-	bodyH             int
-	inputsH, derivedH int
-	critH, chartH     int
-}
-
-// computeLayout splits the window. Every pane has a fixed place: nothing
-// overlaps at any size from minWidth×minHeight up.
-func (a *App) computeLayout() layout {
-	var l layout
-	l.bodyH = a.height - 3 // header, status and hint lines
-	l.leftW = leftNarrow
-	if a.width >= wideWidth {
-		l.leftW = leftWide
-	}
-	l.rightW = a.width - l.leftW
-	l.inputsH = min(len(a.in.visible())+3, l.bodyH-4)
-	if a.in.editing {
-		l.inputsH = min(l.inputsH+1, l.bodyH-4)
-	}
-	l.derivedH = l.bodyH - l.inputsH
-	l.critH = min(len(a.res.Criteria)+4, l.bodyH/2)
-	l.chartH = l.bodyH - l.critH
-	return l
-}
-
-// chartSize returns the chart's drawing area (inside its border).
-func (a *App) chartSize() (w, h int) {
-	if a.width < minWidth || a.height < minHeight {
-		return 0, 0
-	}
-	l := a.computeLayout()
-	return l.rightW - 2, l.chartH - 2
-}
-
-// View draws the frame.
+// View composes the frame: header, the panes (inputs and derived values
+// on the left, chart and criteria on the right), an overlay if one is
+// open, the status line and the key hint.
 func (a *App) View() string {
 	if a.width == 0 || a.height == 0 {
 		return ""
 	}
-	if a.width < minWidth || a.height < minHeight {
-		return strings.Join(a.tooSmall(), "\n")
+	if a.tooSmall() {
+		return strings.Join(a.tooSmallFrame(), "\n")
 	}
 	st := &a.styles
 	l := a.computeLayout()
-	left := append(
-		box("Inputs", a.inputLines(l.leftW-2), l.leftW, l.inputsH, a.focus == focusInputs, st),
-		box("Derived", a.derivedLines(l.leftW-2, l.derivedH-2), l.leftW, l.derivedH, a.focus == focusDerived, st)...)
-	critTitle := "Criteria"
-	if a.pin != nil {
-		critTitle = "Criteria — A pinned vs B now"
-	}
-	right := append(
-		box(a.chartTitle(), a.chartLines(l.rightW-2, l.chartH-2), l.rightW, l.chartH, false, st),
-		box(critTitle, a.criteriaLines(l.rightW-2), l.rightW, l.critH, a.focus == focusCriteria, st)...)
+	left := append(splitLines(a.in.View()), splitLines(a.derived.View())...)
+	right := append(splitLines(a.chart.View()), splitLines(a.criteria.View())...)
 	body := beside(left, right)
 	switch {
-	case a.prompt != nil:
-		body = overlay(body, a.promptView(a.width), a.width)
-	case a.showHelp:
-		body = overlay(body, a.helpView(), a.width)
-	case a.showDetails:
-		w := min(a.width-4, 90)
-		title, lines := a.detailsLines(w - 2)
-		body = overlay(body, box(title, lines, w, min(len(lines)+2, l.bodyH), true, st), a.width)
+	case a.prompt.Open():
+		body = overlay(body, splitLines(a.prompt.View()), a.width)
+	case a.help.Open():
+		body = overlay(body, splitLines(a.help.View()), a.width)
+	case a.details.Open():
+		body = overlay(body, splitLines(a.details.View()), a.width)
 	}
 	out := make([]string, 0, a.height)
 	out = append(out, fit(a.header(), a.width))
 	out = append(out, block(body, a.width, l.bodyH)...)
-	out = append(out, fit(a.statusLine(), a.width), fit(st.Help.Render(a.help.ShortHelpView(a.keys.ShortHelp())), a.width))
+	out = append(out, fit(a.statusLine(), a.width), fit(st.Help.Render(a.help.ShortView()), a.width))
 	return strings.Join(out, "\n")
 }
 
-// tooSmall is the frame for a window below the minimum.
-func (a *App) tooSmall() []string {
+// tooSmallFrame is the frame for a window below the minimum.
+func (a *App) tooSmallFrame() []string {
 	msg := []string{
 		"terminal too small",
-		fmt.Sprintf("need %d×%d, have %d×%d", minWidth, minHeight, a.width, a.height),
+		"need " + strconv.Itoa(minWidth) + "×" + strconv.Itoa(minHeight) + ", have " + strconv.Itoa(a.width) + "×" + strconv.Itoa(a.height),
 		"enlarge it, or q to quit",
 	}
 	lines := make([]string, a.height)
@@ -121,7 +65,7 @@ func (a *App) header() string {
 		parts = append(parts, quantity.Sanitize(a.scenario))
 	}
 	q := a.cur.params
-	parts = append(parts, fmt.Sprintf("f=%s 𝒩=%s", quantity.FormatSig(q.HeatCapacity.Factor(), 2), densityWord(q.DensityProduct)))
+	parts = append(parts, "f="+quantity.FormatSig(q.HeatCapacity.Factor(), 2)+" 𝒩="+densityWord(q.DensityProduct))
 	parts = append(parts, report.CoolingName(a.cur.cooling, a.cur.cf))
 	if a.pin != nil {
 		parts = append(parts, st.Warning.Render("compare: A pinned"))
@@ -133,109 +77,12 @@ func (a *App) header() string {
 func (a *App) statusLine() string {
 	st := &a.styles
 	if a.status.text == "" {
-		return st.Status.Render(" " + fmt.Sprintf("%d criteria · chart %d/%d: %s · ? help", len(a.res.Criteria), a.view+1, viewCount, a.view))
+		v := a.chart.Kind()
+		return st.Status.Render(" " + strconv.Itoa(len(a.res.Criteria)) + " criteria · chart " + strconv.Itoa(int(v)+1) + "/" +
+			strconv.Itoa(int(viewCount)) + ": " + v.String() + " · ? help")
 	}
 	if a.status.isErr {
 		return st.Error.Render(" ✗ " + a.status.text)
 	}
 	return st.Status.Render(" " + a.status.text)
-}
-
-// chartTitle names the chart pane.
-func (a *App) chartTitle() string {
-	t := fmt.Sprintf("%d %s", a.view+1, a.view)
-	if a.view == viewThreshold && a.family {
-		t += " (family)"
-	}
-	if a.view == viewRegime && a.mapMach {
-		t += " (χ × Mach)"
-	}
-	return t
-}
-
-// chartLines draws the latest chart, or a note while the first one is
-// computed.
-func (a *App) chartLines(w, h int) []string {
-	c := a.chart
-	var s string
-	switch {
-	case c.view != a.view || (c.line == nil && c.regime == nil && c.text == nil):
-		return block([]string{a.styles.Dim.Render("computing…")}, w, h)
-	case c.text != nil:
-		return block(a.wrapLines(c.text, w), w, h)
-	case c.line2 != nil:
-		top := h / 2
-		s = RenderLineChart(c.line, w, top, &a.styles) + "\n" + RenderLineChart(c.line2, w, h-top, &a.styles)
-	case c.line != nil:
-		s = RenderLineChart(c.line, w, h, &a.styles)
-	default:
-		s = RenderRegimeMap(c.regime, w, h, &a.styles)
-	}
-	return block(strings.Split(s, "\n"), w, h)
-}
-
-// helpView is the help overlay, generated from the keymap.
-func (a *App) helpView() []string {
-	var cols [][]string
-	for _, group := range a.keys.FullHelp() {
-		var col []string
-		for _, b := range group {
-			if !b.Enabled() {
-				continue
-			}
-			h := b.Help()
-			col = append(col, fmt.Sprintf("%-10s %s", h.Key, h.Desc))
-		}
-		cols = append(cols, col)
-	}
-	var lines []string
-	rows := 0
-	for _, c := range cols {
-		rows = max(rows, len(c))
-	}
-	colW := 30
-	if a.width < 100 {
-		colW = (a.width - 8) / 3
-	}
-	for i := 0; i < rows; i++ {
-		var b strings.Builder
-		for _, c := range cols {
-			cell := ""
-			if i < len(c) {
-				cell = c[i]
-			}
-			b.WriteString(fit(cell, colW))
-		}
-		lines = append(lines, b.String())
-	}
-	lines = append(lines, "", a.styles.Dim.Render("Units with typed values: 30 pc, 0.2 kpc, 2e4 K, 1 keV, 3e3 (K cm⁻³)."),
-		a.styles.Dim.Render("* unverified constant · ! outside calibrated range · ⚠ outside the cooling table"),
-		a.styles.Help.Render("? or esc close"))
-	w := min(a.width-2, 3*colW+4)
-	return box("Keys", lines, w, min(len(lines)+2, a.height-3), true, &a.styles)
-}
-
-// derivedValue is used by tests: the display text of a derived quantity.
-func (a *App) derivedValue(key string) string {
-	for _, q := range model.Quantities() {
-		if q.Key == key {
-			return quantity.Format(q.Dim, q.Value(&a.res.State))
-		}
-	}
-	return ""
-}
-
-// wrapLines wraps text lines to w cells, indenting continuations.
-func (a *App) wrapLines(lines []string, w int) []string {
-	var out []string
-	for _, l := range lines {
-		if visibleLen(l) <= w {
-			out = append(out, l)
-			continue
-		}
-		trimmed := strings.TrimLeft(l, " ")
-		indent := strings.Repeat(" ", len(l)-len(trimmed))
-		out = append(out, wrapText(indent, trimmed, w)...)
-	}
-	return out
 }

@@ -8,13 +8,14 @@ import (
 	"github.com/muesli/termenv"
 
 	"cloudwind/cooling"
+	"cloudwind/internal/chartspec"
 	"cloudwind/model"
 )
 
 // BenchmarkStepView measures one parameter step (→ on χ), the
 // re-evaluation it triggers and the next frame at 120×40 (the chart is
 // drawn from the last data; its own recomputation runs off the update
-// loop and is measured by BenchmarkChart*).
+// loop and is measured by the benchmarks of internal/chartspec).
 func BenchmarkStepView(b *testing.B) {
 	a := newTestApp(b, 120, 40)
 	right, left := tea.KeyMsg{Type: tea.KeyRight}, tea.KeyMsg{Type: tea.KeyLeft}
@@ -39,53 +40,12 @@ func BenchmarkFirstFrame(b *testing.B) {
 	}
 }
 
-// BenchmarkChartRegime200x100 computes a regime map of 200×100 cells.
-func BenchmarkChartRegime200x100(b *testing.B) {
+// BenchmarkPlanLines computes the plan view, comparison included.
+func BenchmarkPlanLines(b *testing.B) {
 	a := newTestApp(b, 120, 40)
-	req := chartRequest{view: viewRegime, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria(), cols: 200, rows: 100}
+	req := chartspec.Request{Params: a.cur.params, Cooling: a.cur.cf, Criteria: model.BuiltinCriteria()}
 	for b.Loop() {
-		m := computeChart(req).(chartMsg)
-		if m.regime.NX != 200 || m.regime.NY != 100 {
-			b.Fatal("wrong map size")
-		}
-	}
-}
-
-// BenchmarkChartRegimeMach200x100 is the χ × Mach map.
-func BenchmarkChartRegimeMach200x100(b *testing.B) {
-	a := newTestApp(b, 120, 40)
-	req := chartRequest{view: viewRegime, mapMach: true, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria(), cols: 200, rows: 100}
-	for b.Loop() {
-		computeChart(req)
-	}
-}
-
-// BenchmarkChartThresholdFamily computes the threshold chart with a family
-// of four Mach numbers.
-func BenchmarkChartThresholdFamily(b *testing.B) {
-	a := newTestApp(b, 120, 40)
-	req := chartRequest{view: viewThreshold, family: true, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria()}
-	for b.Loop() {
-		computeChart(req)
-	}
-}
-
-// BenchmarkChartEvolution computes the evolution view: one trajectory per
-// criterion to 100 t_cc.
-func BenchmarkChartEvolution(b *testing.B) {
-	a := newTestApp(b, 120, 40)
-	req := chartRequest{view: viewEvolution, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria()}
-	for b.Loop() {
-		computeChart(req)
-	}
-}
-
-// BenchmarkChartPlan computes the plan view, comparison included.
-func BenchmarkChartPlan(b *testing.B) {
-	a := newTestApp(b, 120, 40)
-	req := chartRequest{view: viewPlan, params: a.cur.params, cf: a.cur.cf, criteria: model.BuiltinCriteria()}
-	for b.Loop() {
-		computeChart(req)
+		planLines(req)
 	}
 }
 

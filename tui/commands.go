@@ -11,114 +11,51 @@ import (
 
 	"cloudwind/cooling"
 	"cloudwind/internal/atomicfile"
+	"cloudwind/internal/chartspec"
+	"cloudwind/internal/figure"
 	"cloudwind/internal/quantity"
 	"cloudwind/internal/scenario"
-	"cloudwind/model"
 )
 
-// Messages. Commands do the work that is not instant (charts, maps, files)
-// off the update loop and report back with one of these.
+// Commands: the tea.Cmd producers. Each does its work off the update
+// loop from copies of what it needs and reports back with a message
+// (msgs.go); files are opened only here, through the Opener main passes
+// in, and written atomically.
 
-// chartMsg carries a computed chart for request gen.
-type chartMsg struct {
-	gen    int
-	view   viewKind
-	line   *LineChart
-	line2  *LineChart
-	regime *RegimeMap
-	text   []string
+// computeChart builds the chart of view from req for request gen.
+func computeChart(gen int, view viewKind, req chartspec.Request) tea.Cmd {
+	return func() tea.Msg { return buildChart(gen, view, req) }
 }
 
-// statusMsg sets the status line.
-type statusMsg struct {
-	text  string
-	isErr bool
-}
-
-// coolingMsg carries a resolved cooling source (or the error).
-type coolingMsg struct {
-	src *cooling.Source
-	err error
-}
-
-// scenarioMsg carries a loaded scenario and its cooling source.
-type scenarioMsg struct {
-	sc  scenario.Scenario
-	src *cooling.Source
-	err error
-}
-
-// chartRequest is everything a chart computation reads: copies, so that
-// the command never touches the App.
-type chartRequest struct {
-	gen      int
-	view     viewKind
-	params   model.Params
-	cf       model.CoolingFunction
-	criteria []model.Criterion
-	pin      *snapshot
-	family   bool
-	mapMach  bool
-	selected int // criterion selected in the table (family mode)
-	cols     int // chart area, for the regime map's resolution
-	rows     int
-}
-
-// requestChart bumps the generation and starts computing the chart of the
-// current view; results of older generations are dropped when they arrive.
-func (a *App) requestChart() tea.Cmd {
-	a.gen++
-	cw, ch := a.chartSize()
-	req := chartRequest{gen: a.gen, view: a.view, params: a.cur.params, cf: a.cur.cf, criteria: a.cfg.Criteria,
-		family: a.family, mapMach: a.mapMach, selected: a.critSel, cols: cw, rows: ch}
-	if a.pin != nil {
-		p := a.pin.snapshot
-		req.pin = &p
-	}
-	return func() tea.Msg { return computeChart(req) }
-}
-
-// computeChart builds the chart of a request.
-func computeChart(r chartRequest) tea.Msg {
-	m := chartMsg{gen: r.gen, view: r.view}
-	switch r.view {
+// buildChart builds the chart of view from req.
+func buildChart(gen int, view viewKind, req chartspec.Request) chartMsg {
+	m := chartMsg{gen: gen, view: view}
+	switch view {
 	case viewThreshold:
-		m.line = thresholdChart(r)
+		m.line = chartspec.ThresholdChart(req)
 	case viewCooling:
-		m.line = coolingChart(r)
+		m.line = chartspec.CoolingChart(req)
 	case viewRatios:
-		m.line = ratioChart(r)
+		m.line = chartspec.RatioChart(req)
 	case viewRegime:
-		m.regime = regimeMap(r)
+		m.regime = chartspec.Regime(req)
 	case viewEvolution:
-		m.line, m.line2 = evolutionCharts(r)
+		m.line, m.line2 = chartspec.EvolutionCharts(req)
 	case viewPlan:
-		m.text = planLines(r)
+		m.text = planLines(req)
 	}
 	return m
 }
 
-// requestCooling resolves a cooling spec in a command (a table is a file).
-func (a *App) requestCooling(spec string, table []string) tea.Cmd {
-	open := a.cfg.Open
+// resolveCooling resolves a cooling spec (a table is a file).
+func resolveCooling(spec string, table []string, open cooling.Opener) tea.Cmd {
 	return func() tea.Msg {
 		src, err := cooling.Resolve("cooling", spec, table, open)
 		return coolingMsg{src, err}
 	}
 }
 
-// applyCooling switches to a resolved cooling source.
-func (a *App) applyCooling(m coolingMsg) tea.Cmd {
-	if m.err != nil {
-		a.setStatus(oneLine(m.err.Error()), true)
-		return nil
-	}
-	next := a.cur
-	next.cooling, next.cf = m.src, nil
-	return a.change(next, "cooling: "+m.src.Desc)
-}
-
-// loadScenario reads a scenario file in a command.
+// loadScenario reads a scenario file.
 func loadScenario(path string, open cooling.Opener) tea.Cmd {
 	return func() tea.Msg {
 		if open == nil {
@@ -137,6 +74,11 @@ func loadScenario(path string, open cooling.Opener) tea.Cmd {
 	}
 }
 
+// loadDemo resolves the cooling source of a demo scenario.
+func loadDemo(sc scenario.Scenario, open cooling.Opener) tea.Cmd {
+	return func() tea.Msg { return resolveScenario(sc, open, "") }
+}
+
 // resolveScenario resolves a scenario's cooling source; a relative table
 // path is taken relative to the scenario file's directory.
 func resolveScenario(sc scenario.Scenario, open cooling.Opener, dir string) scenarioMsg {
@@ -149,43 +91,8 @@ func resolveScenario(sc scenario.Scenario, open cooling.Opener, dir string) scen
 	return scenarioMsg{sc: sc, src: src, err: err}
 }
 
-// applyScenario switches to a loaded scenario; a bad one leaves the
-// current state and explains why.
-func (a *App) applyScenario(m scenarioMsg) tea.Cmd {
-	if m.err != nil {
-		a.setStatus(oneLine(m.err.Error())+" — the current state is kept", true)
-		return nil
-	}
-	next := snapshot{params: normalise(m.sc.Params), cooling: m.src}
-	before := a.scenario
-	a.scenario = m.sc.Name
-	cmd := a.change(next, "loaded "+scenarioLabel(m.sc))
-	if a.status.isErr {
-		a.scenario = before
-	}
-	return cmd
-}
-
-// scenarioLabel names a scenario for the status line and header.
-func scenarioLabel(sc scenario.Scenario) string {
-	name := quantity.Sanitize(sc.Name)
-	if name == "" {
-		name = "unnamed scenario"
-	}
-	return name
-}
-
-// currentScenario describes the current state as a scenario for saving.
-func (a *App) currentScenario() scenario.Scenario {
-	name := a.scenario
-	if name == "" {
-		name = "saved from the explorer"
-	}
-	return scenario.Scenario{Name: name, Params: a.cur.params, Cooling: a.cur.cooling.Spec, Table: a.cur.cooling.Table}
-}
-
-// saveScenario writes sc to path atomically in a command; a table path in
-// sc is rewritten relative to path's directory.
+// saveScenario writes sc to path atomically; a table path in sc is
+// rewritten relative to path's directory.
 func saveScenario(path string, sc scenario.Scenario) tea.Cmd {
 	return func() tea.Msg {
 		var err error
@@ -200,15 +107,15 @@ func saveScenario(path string, sc scenario.Scenario) tea.Cmd {
 	}
 }
 
-// exportChart writes the chart on screen to path in a command.
+// exportChart writes the chart on screen to path as a figure.
 func exportChart(path string, c chartState) tea.Cmd {
 	return func() tea.Msg {
 		var err error
 		switch {
 		case c.line != nil:
-			err = ExportLineChart(c.line, path)
+			err = figure.WriteLineChart(c.line, path)
 		case c.regime != nil:
-			err = ExportRegimeMap(c.regime, path)
+			err = figure.WriteRegimeMap(c.regime, path)
 		default:
 			err = fmt.Errorf("no chart yet")
 		}
@@ -220,7 +127,7 @@ func exportChart(path string, c chartState) tea.Cmd {
 }
 
 // exportState writes the evaluated state as JSON (the schema of cloudwind
-// eval --format json) in a command.
+// eval --format json).
 func exportState(path string, doc map[string]any) tea.Cmd {
 	return func() tea.Msg {
 		err := atomicfile.Write(path, func(w io.Writer) error {

@@ -1,11 +1,11 @@
 package tui
 
 import (
-	"fmt"
 	"math"
 	"strings"
 
-	"github.com/charmbracelet/x/ansi"
+	"github.com/charmbracelet/bubbles/key"
+	tea "github.com/charmbracelet/bubbletea"
 
 	"cloudwind/cooling"
 	"cloudwind/internal/quantity"
@@ -13,44 +13,107 @@ import (
 	"cloudwind/model"
 )
 
-// detailsLines explains the focused item: an input, a derived quantity or
-// a criterion, with its formula, citation, convention and verification
-// status.
-func (a *App) detailsLines(w int) (title string, lines []string) {
-	st := &a.styles
+// subject is what the details pane explains: the selected item of the
+// focused pane.
+type subject struct {
+	focus     focus
+	input     *input         // with focusInputs
+	quantity  model.Quantity // with focusDerived
+	criterion int            // with focusCriteria: an index into the result's criteria
+}
+
+// detailsPane is the details overlay: an input, a derived quantity or a
+// criterion explained with its formula, citation, convention and
+// verification status. Its keys close it; the App moves the selection
+// under it, so that it follows to the next item.
+type detailsPane struct {
+	styles        *Styles
+	keys          *KeyMap
+	width, height int // the box width and the most rows it may take
+	open          bool
+
+	about   subject
+	params  model.Params
+	cooling *cooling.Source
+	cf      model.CoolingFunction
+	res     *model.Result
+}
+
+func newDetailsPane(styles *Styles, keys *KeyMap) detailsPane {
+	return detailsPane{styles: styles, keys: keys}
+}
+
+// SetSize sets the box width and the most rows the box may take.
+func (d *detailsPane) SetSize(w, h int) { d.width, d.height = w, h }
+
+// SetState sets what is explained and the state it is explained in.
+func (d *detailsPane) SetState(about subject, p model.Params, src *cooling.Source, cf model.CoolingFunction, res *model.Result) {
+	d.about, d.params, d.cooling, d.cf, d.res = about, p, src, cf, res
+}
+
+// Show opens the overlay.
+func (d *detailsPane) Show() { d.open = true }
+
+// Open reports whether the overlay is shown.
+func (d *detailsPane) Open() bool { return d.open }
+
+// Update closes the overlay on its keys and quits on the quit key.
+func (d detailsPane) Update(msg tea.Msg) (detailsPane, tea.Cmd) {
+	k, ok := msg.(tea.KeyMsg)
+	if !ok {
+		return d, nil
+	}
+	switch {
+	case key.Matches(k, d.keys.Details, d.keys.Cancel, d.keys.Accept):
+		d.open = false
+	case key.Matches(k, d.keys.Quit):
+		return d, tea.Quit
+	}
+	return d, nil
+}
+
+// View draws the overlay box, as tall as its text allows.
+func (d detailsPane) View() string {
+	title, lines := d.body(d.width - 2)
+	return strings.Join(box(title, lines, d.width, min(len(lines)+2, d.height), true, d.styles), "\n")
+}
+
+// body returns the title and the lines of text for a body w cells wide.
+func (d detailsPane) body(w int) (title string, lines []string) {
+	st := d.styles
 	wrap := func(label, text string) {
 		lines = append(lines, wrapText(st.Dim.Render(label)+" ", quantity.Sanitize(text), w)...)
 	}
-	conv := fmt.Sprintf("f = %s (%s), 𝒩 = %s", quantity.FormatSig(a.cur.params.HeatCapacity.Factor(), 2), a.cur.params.HeatCapacity, densityWord(a.cur.params.DensityProduct))
-	switch a.focus {
+	conv := "f = " + quantity.FormatSig(d.params.HeatCapacity.Factor(), 2) + " (" + d.params.HeatCapacity.String() + "), 𝒩 = " + densityWord(d.params.DensityProduct)
+	switch d.about.focus {
 	case focusInputs:
-		in := a.in.current()
+		in := d.about.input
 		title = "input " + in.label
 		wrap("meaning:", in.about)
 		if !in.isEnum() && in.field != "cooling" {
-			wrap("value:", valueText(in, &a.cur.params, ""))
-			step := fmt.Sprintf("%s per step (×10 with shift)", quantity.FormatSig(in.fine, 2))
+			wrap("value:", valueText(in, &d.params, ""))
+			step := quantity.FormatSig(in.fine, 2) + " per step (×10 with shift)"
 			if in.log {
-				step = fmt.Sprintf("×%s per step (%s dex; ×10 with shift)", quantity.FormatSig(pow10(in.fine), 3), quantity.FormatSig(in.fine, 2))
+				step = "×" + quantity.FormatSig(pow10(in.fine), 3) + " per step (" + quantity.FormatSig(in.fine, 2) + " dex; ×10 with shift)"
 			}
 			wrap("step:", step)
 			wrap("typing:", "enter, then a number with an optional unit, e.g. "+typingExample(in.dim))
 		}
 		if in.field == "cooling" {
-			a.coolingDetails(wrap)
+			d.coolingDetails(wrap)
 		}
 	case focusDerived:
-		q := a.derived[a.derivedSel]
+		q := d.about.quantity
 		title = q.Symbol + " — " + q.Name
-		wrap("value:", quantity.Format(q.Dim, q.Value(&a.res.State)))
+		wrap("value:", quantity.Format(q.Dim, q.Value(&d.res.State)))
 		wrap("formula:", q.Formula)
 		wrap("source:", q.Source)
 		wrap("convention:", conv)
-		if note := tableStatus(a.cur.cf, q.Key, &a.res.State); note != "" {
+		if note := tableStatus(d.cf, q.Key, &d.res.State); note != "" {
 			wrap("caution:", "this temperature lies "+note+" of the cooling function")
 		}
 	case focusCriteria:
-		c, o := &a.res.Criteria[a.critSel], a.res.Outcomes[a.critSel]
+		c, o := &d.res.Criteria[d.about.criterion], d.res.Outcomes[d.about.criterion]
 		title = quantity.Sanitize(c.Label) + " (" + quantity.Sanitize(c.ID) + ")"
 		wrap("criterion:", "survives and grows when "+c.Formula())
 		wrap("citation:", c.Citation.String())
@@ -61,11 +124,11 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 		if !c.Verified {
 			verified = "NOT verified"
 		}
-		wrap("constants:", fmt.Sprintf("α = %s, β = %s — %s: %s", quantity.FormatSig(c.Alpha, 3), quantity.FormatSig(c.Beta, 3), verified, c.Status))
+		wrap("constants:", "α = "+quantity.FormatSig(c.Alpha, 3)+", β = "+quantity.FormatSig(c.Beta, 3)+" — "+verified+": "+c.Status)
 		if c.Cool != model.CoolNone {
-			wrap("now:", fmt.Sprintf("%s/%s = %s (limit %s), r_crit = %s, margin r_cl/r_crit = %s → %s",
-				c.Cool.Symbol(), c.Dyn, quantity.FormatSig(o.Ratio, 3), quantity.FormatSig(o.Threshold, 3),
-				quantity.Format(model.DimLength, float64(o.RCrit)), quantity.FormatSig(o.Margin, 3), o.Verdict))
+			wrap("now:", c.Cool.Symbol()+"/"+c.Dyn.String()+" = "+quantity.FormatSig(o.Ratio, 3)+" (limit "+quantity.FormatSig(o.Threshold, 3)+
+				"), r_crit = "+quantity.Format(model.DimLength, float64(o.RCrit))+", margin r_cl/r_crit = "+quantity.FormatSig(o.Margin, 3)+
+				" → "+o.Verdict.String())
 		}
 		wrap("calibrated:", rangeText(c.Range))
 		if !o.InRange() {
@@ -79,9 +142,9 @@ func (a *App) detailsLines(w int) (title string, lines []string) {
 }
 
 // coolingDetails describes the cooling function in use.
-func (a *App) coolingDetails(wrap func(label, text string)) {
-	wrap("in use:", report.CoolingName(a.cur.cooling, a.cur.cf))
-	p, ok := a.cur.cf.(*cooling.PowerLaw)
+func (d detailsPane) coolingDetails(wrap func(label, text string)) {
+	wrap("in use:", report.CoolingName(d.cooling, d.cf))
+	p, ok := d.cf.(*cooling.PowerLaw)
 	if !ok {
 		wrap("form:", "analytic, per n_H²")
 		return
@@ -89,8 +152,8 @@ func (a *App) coolingDetails(wrap func(label, text string)) {
 	m := p.Meta()
 	lo, hi := p.ValidRange()
 	wrap("source:", m.Citation)
-	wrap("table:", fmt.Sprintf("%s – %s, stored per n_H² (source per %s), He/H = %s", quantity.Format(model.DimTemperature, float64(lo)),
-		quantity.Format(model.DimTemperature, float64(hi)), m.Normalisation.Symbol(), quantity.FormatSig(m.HeliumRatio, 3)))
+	wrap("table:", quantity.Format(model.DimTemperature, float64(lo))+" – "+quantity.Format(model.DimTemperature, float64(hi))+
+		", stored per n_H² (source per "+m.Normalisation.Symbol()+"), He/H = "+quantity.FormatSig(m.HeliumRatio, 3))
 	for _, c := range m.Caveats {
 		wrap("caveat:", c)
 	}
@@ -120,9 +183,6 @@ func typingExample(d model.Dimension) string {
 
 func pow10(x float64) float64 { return math.Pow(10, x) }
 
-// visibleLen is the width of s in cells, ignoring styling.
-func visibleLen(s string) int { return ansi.StringWidth(s) }
-
 // rangeText describes a calibrated range.
 func rangeText(c model.Calibration) string {
 	var parts []string
@@ -130,7 +190,7 @@ func rangeText(c model.Calibration) string {
 		if i.IsUnbounded() {
 			return
 		}
-		parts = append(parts, fmt.Sprintf("%s %s–%s%s", name, quantity.FormatSig(i.Min, 3), quantity.FormatSig(i.Max, 3), unit))
+		parts = append(parts, name+" "+quantity.FormatSig(i.Min, 3)+"–"+quantity.FormatSig(i.Max, 3)+unit)
 	}
 	add("χ", c.Chi, "")
 	add("M", c.Mach, "")
@@ -139,24 +199,4 @@ func rangeText(c model.Calibration) string {
 		return "no limits known (" + c.Status + ")"
 	}
 	return strings.Join(parts, ", ") + " (" + c.Status + ")"
-}
-
-// wrapText wraps text after a styled label to width w (label on the first
-// line, continuation lines indented).
-func wrapText(label, text string, w int) []string {
-	words := strings.Fields(text)
-	var lines []string
-	line := label
-	indent := "  "
-	for _, wd := range words {
-		if visibleLen(line)+len([]rune(wd))+1 > w && visibleLen(line) > len(indent) {
-			lines = append(lines, line)
-			line = indent
-		}
-		if !strings.HasSuffix(line, " ") && line != indent {
-			line += " "
-		}
-		line += wd
-	}
-	return append(lines, line)
 }

@@ -1,104 +1,36 @@
 package tui
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/cursor"
+	"github.com/charmbracelet/bubbles/key"
 	"github.com/charmbracelet/bubbles/textinput"
+	tea "github.com/charmbracelet/bubbletea"
 
 	"cloudwind/cooling"
 	"cloudwind/internal/quantity"
 	"cloudwind/model"
 )
 
-// An input is one editable setting of the inputs pane.
-type input struct {
-	label    string          // as shown, e.g. "χ"
-	field    string          // model.Field… (or "cooling")
-	dim      model.Dimension // unit for display and typing
-	advanced bool            // shown behind the Advanced key
-	log      bool            // steps multiply (fine and coarse in dex) instead of add
-	fine     float64         // one step: dex when log, else an absolute amount in display units
-	options  []string        // an enumeration: cycled by the step keys
-	getEnum  func(p *model.Params) int
-	setEnum  func(p *model.Params, i int)
-	about    string // one line for the details pane
-}
-
-// get returns the numeric input's value in CGS.
-func (in *input) get(p *model.Params) float64 {
-	v, _ := p.Field(in.field)
-	return v
-}
-
-// set sets the numeric input's value in CGS.
-func (in *input) set(p *model.Params, v float64) { p.SetField(in.field, v) }
-
-// isEnum reports whether the input cycles through options.
-func (in *input) isEnum() bool { return in.options != nil }
-
-// coarseFactor is how many fine steps one coarse step makes.
-const coarseFactor = 10
-
-// inputs returns the inputs in pane order.
-func inputs() []input {
-	mixtures := model.Mixtures()
-	var mixNames []string
-	for _, m := range mixtures {
-		mixNames = append(mixNames, m.Name)
-	}
-	return []input{
-		{label: "χ", field: model.FieldChi, dim: model.Dimensionless, log: true, fine: 0.05,
-			about: "density contrast ρ_cl/ρ_hot; T_hot = χ T_cl μ_hot/μ_cl"},
-		{label: "Mach", field: model.FieldMach, dim: model.Dimensionless, fine: 0.05,
-			about: "wind Mach number against the adiabatic sound speed of the hot gas"},
-		{label: "P/k_B", field: model.FieldPressure, dim: model.DimPressure, log: true, fine: 0.05,
-			about: "thermal pressure over Boltzmann's constant, the same in cloud and wind"},
-		{label: "Z", field: model.FieldMetallicity, dim: model.DimMetallicity, log: true, fine: 0.05,
-			about: "metallicity in solar units; scales the metal part of the cooling function"},
-		{label: "T_cl", field: model.FieldTCloud, dim: model.DimTemperature, log: true, fine: 0.02,
-			about: "cloud temperature (the cooling floor follows it unless T_floor is set)"},
-		{label: "r_cl", field: model.FieldRCloud, dim: model.DimLength, log: true, fine: 0.05,
-			about: "cloud radius"},
-		{label: "γ", field: model.FieldGamma, dim: model.Dimensionless, advanced: true, fine: 0.01,
-			about: "adiabatic index (default 5/3)"},
-		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, fine: 0.01,
-			about: "mean molecular weight of the cloud (default 0.6, as most simulations use for both phases)"},
-		{label: "μ_hot", field: model.FieldMuHot, dim: model.Dimensionless, advanced: true, fine: 0.01,
-			about: "mean molecular weight of the wind (default 0.6)"},
-		{label: "X", field: model.FieldHydrogenFraction, dim: model.Dimensionless, advanced: true, fine: 0.005,
-			about: "hydrogen mass fraction, for n_H = X ρ/m_H (default: that of the mixture)"},
-		{label: "mixture", field: "mixture", advanced: true, options: mixNames,
-			getEnum: func(p *model.Params) int {
-				for i, m := range mixtures {
-					if m.Name == p.Mixture.Name {
-						return i
-					}
-				}
-				return 0
-			},
-			setEnum: func(p *model.Params, i int) { p.Mixture, p.HydrogenFraction = mixtures[i], mixtures[i].X },
-			about:   "solar mixture of X, Y, Z (Asplund et al. 2021 Table 4 values)"},
-		{label: "T_floor", field: model.FieldTFloor, dim: model.DimTemperature, advanced: true, log: true, fine: 0.02,
-			about: "cooling floor: Λ = 0 below it (default: the cloud temperature)"},
-		{label: "f", field: model.FieldHeatCapacity, advanced: true, options: []string{"3/2 isochoric", "5/2 isobaric"},
-			getEnum: func(p *model.Params) int { return int(p.HeatCapacity) },
-			setEnum: func(p *model.Params, i int) { p.HeatCapacity = model.HeatCapacity(i) },
-			about:   "heat capacity in t_cool = f n k_B T/(𝒩 Λ)"},
-		{label: "n×n", field: model.FieldDensityProduct, advanced: true, options: []string{"n_H²", "n² (total)"},
-			getEnum: func(p *model.Params) int { return int(p.DensityProduct) },
-			setEnum: func(p *model.Params, i int) { p.DensityProduct = model.DensityProduct(i) },
-			about:   "density product in t_cool: n_H² (physical for Λ per n_H²) or n² (simplified form)"},
-		{label: "cooling", field: "cooling", advanced: true,
-			about: "cooling function: step through the named ones, or type a name, const:Λ, powerlaw:L0,T0,S or a table path"},
-	}
-}
-
-// inputsPane lists the inputs; one is selected, and one may be edited as
-// text.
+// inputsPane lists the inputs (inputdefs.go); one is selected, and one
+// may be edited as text. It moves the selection, shows the advanced
+// inputs and opens, types into and closes the text field itself; a new
+// value goes through App.change, which asks the pane for it (Step,
+// ApplyEdit, Reset) so that it is evaluated before it is taken.
 type inputsPane struct {
+	styles        *Styles
+	keys          *KeyMap
+	width, height int
+	focused       bool
+
+	params      model.Params // the values shown
+	coolingSpec string       // the cooling spec in use, for typing and stepping
+	coolingName string       // its display name
+
 	all      []input
 	selected int // index into visible()
 	advanced bool
@@ -106,13 +38,84 @@ type inputsPane struct {
 	edit     textinput.Model
 }
 
-func newInputsPane() inputsPane {
+func newInputsPane(styles *Styles, keys *KeyMap) inputsPane {
 	ti := textinput.New()
 	ti.Prompt = "> "
 	ti.Cursor.SetMode(cursor.CursorStatic) // no blinking: fewer redraws over SSH
 	ti.CharLimit = 120
-	return inputsPane{all: inputs(), edit: ti}
+	return inputsPane{styles: styles, keys: keys, all: inputs(), edit: ti}
 }
+
+// SetSize sets the pane's size, border included.
+func (ip *inputsPane) SetSize(w, h int) { ip.width, ip.height = w, h }
+
+// SetFocused says whether the pane has the focus (shows the selection).
+func (ip *inputsPane) SetFocused(f bool) { ip.focused = f }
+
+// SetValues sets the inputs shown and the cooling function in use.
+func (ip *inputsPane) SetValues(p model.Params, coolingSpec, coolingName string) {
+	ip.params, ip.coolingSpec, ip.coolingName = p, coolingSpec, coolingName
+}
+
+// Update handles the pane's own keys: selection, more inputs, and the
+// text field (open, type, esc to close).
+func (ip inputsPane) Update(msg tea.Msg) (inputsPane, tea.Cmd) {
+	k, ok := msg.(tea.KeyMsg)
+	if !ok {
+		return ip, nil
+	}
+	if ip.editing {
+		if key.Matches(k, ip.keys.Cancel) {
+			ip.StopEdit()
+			return ip, nil
+		}
+		var cmd tea.Cmd
+		ip.edit, cmd = ip.edit.Update(k)
+		return ip, cmd
+	}
+	switch {
+	case key.Matches(k, ip.keys.Up):
+		ip.move(-1)
+	case key.Matches(k, ip.keys.Down):
+		ip.move(1)
+	case key.Matches(k, ip.keys.Edit):
+		ip.startEdit()
+	case key.Matches(k, ip.keys.Advanced):
+		ip.advanced = !ip.advanced
+		ip.selected = 0
+	}
+	return ip, nil
+}
+
+// View draws the pane in its border.
+func (ip inputsPane) View() string {
+	st := ip.styles
+	var body []string
+	for i, in := range ip.visible() {
+		label := fit(in.label, 9)
+		val := valueText(in, &ip.params, ip.coolingName)
+		if ip.focused && i == ip.selected {
+			body = append(body, st.Selected.Render("▸ "+label)+st.Value.Render(val))
+		} else {
+			body = append(body, st.Label.Render("  "+label)+st.Value.Render(val))
+		}
+		if ip.editing && i == ip.selected {
+			body = append(body, "  "+ip.edit.View())
+		}
+	}
+	more := "a: more inputs"
+	if ip.advanced {
+		more = "a: fewer inputs"
+	}
+	body = append(body, st.Dim.Render(more))
+	return strings.Join(box("Inputs", body, ip.width, ip.height, ip.focused, st), "\n")
+}
+
+// Rows returns how many inputs are shown now.
+func (ip *inputsPane) Rows() int { return len(ip.visible()) }
+
+// Editing reports whether a value is being typed.
+func (ip *inputsPane) Editing() bool { return ip.editing }
 
 // visible returns the inputs shown now.
 func (ip *inputsPane) visible() []*input {
@@ -125,8 +128,8 @@ func (ip *inputsPane) visible() []*input {
 	return out
 }
 
-// current returns the selected input.
-func (ip *inputsPane) current() *input {
+// Current returns the selected input.
+func (ip *inputsPane) Current() *input {
 	vis := ip.visible()
 	ip.selected = max(0, min(ip.selected, len(vis)-1))
 	return vis[ip.selected]
@@ -138,11 +141,11 @@ func (ip *inputsPane) move(d int) {
 	ip.selected = ((ip.selected+d)%n + n) % n
 }
 
-// step returns p with the selected input stepped by n fine steps (n may be
+// Step returns p with the selected input stepped by n fine steps (n may be
 // negative; coarse steps pass ±coarseFactor). For the cooling input it
 // returns the name to switch to instead.
-func (ip *inputsPane) step(p model.Params, n int, coolingSpec string) (model.Params, string) {
-	in := ip.current()
+func (ip *inputsPane) Step(p model.Params, n int, coolingSpec string) (model.Params, string) {
+	in := ip.Current()
 	switch {
 	case in.field == "cooling":
 		names := cooling.Names()
@@ -180,44 +183,52 @@ func (ip *inputsPane) step(p model.Params, n int, coolingSpec string) (model.Par
 	return p, ""
 }
 
-// roundTo rounds v to a multiple of step/1000, removing float noise from
-// repeated additions.
-func roundTo(v, step float64) float64 {
-	q := step / 1000
-	return math.Round(v/q) * q
+// Reset returns p with the selected input set to its value in initial;
+// for the cooling input it reports cooling instead, and p is unchanged.
+func (ip *inputsPane) Reset(p, initial model.Params) (next model.Params, isCooling bool) {
+	in := ip.Current()
+	switch {
+	case in.field == "cooling":
+		return p, true
+	case in.isEnum():
+		in.setEnum(&p, in.getEnum(&initial))
+	default:
+		in.set(&p, in.get(&initial))
+	}
+	return p, false
 }
 
 // startEdit opens the text field for the selected input with its value.
-func (ip *inputsPane) startEdit(p *model.Params, coolingSpec string) {
-	in := ip.current()
+func (ip *inputsPane) startEdit() {
+	in := ip.Current()
 	ip.editing = true
 	switch {
 	case in.field == "cooling":
-		ip.edit.SetValue(coolingSpec)
+		ip.edit.SetValue(ip.coolingSpec)
 	case in.isEnum():
-		ip.edit.SetValue(in.options[in.getEnum(p)])
+		ip.edit.SetValue(in.options[in.getEnum(&ip.params)])
 	default:
-		ip.edit.SetValue(strings.TrimSpace(quantity.Number(in.dim, in.get(p))))
+		ip.edit.SetValue(strings.TrimSpace(quantity.Number(in.dim, in.get(&ip.params))))
 	}
 	ip.edit.CursorEnd()
 	ip.edit.Focus()
 }
 
-// stopEdit closes the text field.
-func (ip *inputsPane) stopEdit() {
+// StopEdit closes the text field.
+func (ip *inputsPane) StopEdit() {
 	ip.editing = false
 	ip.edit.Blur()
 }
 
-// applyEdit parses the typed text into p. For the cooling input it returns
-// the spec to resolve instead.
-func (ip *inputsPane) applyEdit(p model.Params) (model.Params, string, error) {
-	in := ip.current()
+// ApplyEdit parses the typed text into p. For the cooling input it
+// returns the spec to resolve instead.
+func (ip *inputsPane) ApplyEdit(p model.Params) (model.Params, string, error) {
+	in := ip.Current()
 	text := strings.TrimSpace(ip.edit.Value())
 	switch {
 	case in.field == "cooling":
 		if text == "" {
-			return p, "", fmt.Errorf("cooling: empty")
+			return p, "", errors.New("cooling: empty")
 		}
 		return p, text, nil
 	case in.isEnum():
@@ -237,15 +248,13 @@ func (ip *inputsPane) applyEdit(p model.Params) (model.Params, string, error) {
 	return p, "", nil
 }
 
-// valueText formats the value of in for the pane.
-func valueText(in *input, p *model.Params, coolingName string) string {
-	switch {
-	case in.field == "cooling":
-		return coolingName
-	case in.isEnum():
-		return in.options[in.getEnum(p)]
-	case in.field == model.FieldTFloor && p.TFloor == 0:
-		return "= T_cl"
+// FieldMessage words a validation error with the input's label.
+func (ip *inputsPane) FieldMessage(err error) string {
+	msg := err.Error()
+	for _, in := range ip.all {
+		if strings.HasPrefix(msg, in.field+":") {
+			return in.label + msg[len(in.field):] + " — kept the last valid value"
+		}
 	}
-	return quantity.Format(in.dim, in.get(p))
+	return msg + " — kept the last valid value"
 }

@@ -30,6 +30,7 @@ type KeyMap struct {
 	Palette           key.Binding
 	Help              key.Binding
 	Quit              key.Binding
+	ForceQuit         key.Binding // ctrl+c, also while typing (not in help: Quit lists it)
 	Accept, Cancel    key.Binding // in prompts and overlays
 	PromptUp, PromDwn key.Binding // in the scenario menu
 }
@@ -72,6 +73,7 @@ func DefaultKeyMap() KeyMap {
 		Palette:     b("t", "light/dark palette", "t"),
 		Help:        b("?", "help", "?"),
 		Quit:        b("q", "quit", "q", "ctrl+c"),
+		ForceQuit:   b("ctrl+c", "quit", "ctrl+c"),
 		Accept:      b("enter", "accept", "enter"),
 		Cancel:      b("esc", "cancel", "esc"),
 		PromptUp:    b("↑", "previous", "up"),

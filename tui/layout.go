@@ -1,120 +1,66 @@
 package tui
 
-import (
-	"strings"
-
-	"github.com/charmbracelet/lipgloss"
-	"github.com/charmbracelet/x/ansi"
+// Layout constants: below minWidth×minHeight the explorer shows a note
+// instead of panes; from wideWidth the derived pane sits beside the chart.
+const (
+	minWidth   = 60
+	minHeight  = 16
+	wideWidth  = 100
+	leftNarrow = 30
+	leftWide   = 40
 )
 
-// fit returns s cut with "…" or padded with spaces to exactly w cells.
-func fit(s string, w int) string {
-	if w <= 0 {
-		return ""
-	}
-	n := ansi.StringWidth(s)
-	if n > w {
-		s = ansi.Truncate(s, w, "…")
-		n = ansi.StringWidth(s)
-	}
-	return s + strings.Repeat(" ", w-n)
+// layout is the geometry of one frame.
+type layout struct {
+	leftW, rightW     int
+	bodyH             int
+	inputsH, derivedH int
+	critH, chartH     int
 }
 
-// block returns lines as exactly h lines of exactly w cells.
-func block(lines []string, w, h int) []string {
-	out := make([]string, h)
-	for i := range out {
-		if i < len(lines) {
-			out[i] = fit(lines[i], w)
-		} else {
-			out[i] = strings.Repeat(" ", max(w, 0))
-		}
+// computeLayout splits the window. Every pane has a fixed place: nothing
+// overlaps at any size from minWidth×minHeight up.
+func (a *App) computeLayout() layout {
+	var l layout
+	l.bodyH = a.height - 3 // header, status and hint lines
+	l.leftW = leftNarrow
+	if a.width >= wideWidth {
+		l.leftW = leftWide
 	}
-	return out
+	l.rightW = a.width - l.leftW
+	l.inputsH = min(a.in.Rows()+3, l.bodyH-4)
+	if a.in.Editing() {
+		l.inputsH = min(l.inputsH+1, l.bodyH-4)
+	}
+	l.derivedH = l.bodyH - l.inputsH
+	l.critH = min(len(a.res.Criteria)+4, l.bodyH/2)
+	l.chartH = l.bodyH - l.critH
+	return l
 }
 
-// box draws a bordered pane of exactly w×h cells with title in the top
-// border; body lines are cut or padded to fit. Below 4×3 it returns blanks.
-func box(title string, body []string, w, h int, focused bool, st *Styles) []string {
-	if w < 4 || h < 3 {
-		return block(nil, w, h)
+// tooSmall reports whether the window is below the minimum.
+func (a *App) tooSmall() bool { return a.width < minWidth || a.height < minHeight }
+
+// chartSize returns the chart's drawing area (inside its border).
+func (a *App) chartSize() (w, h int) {
+	if a.tooSmall() {
+		return 0, 0
 	}
-	b := lipgloss.NormalBorder()
-	if st.ASCII {
-		b = asciiBorder()
-	}
-	edge := st.Border
-	if focused {
-		edge = st.Focused
-	}
-	color := func(s string) string {
-		return lipgloss.NewStyle().Foreground(edge.GetBorderTopForeground()).Render(s)
-	}
-	if !st.Color {
-		color = func(s string) string { return s }
-	}
-	t := ""
-	if title != "" {
-		t = " " + title + " "
-		if focused && !st.Color {
-			t = "[" + title + "]"
-		}
-	}
-	t = fit(t, max(0, min(ansi.StringWidth(t), w-4)))
-	tStyled := st.Title.Render(t)
-	if !focused {
-		tStyled = st.Label.Render(t)
-	}
-	top := color(b.TopLeft+b.Top) + tStyled + color(strings.Repeat(b.Top, w-3-ansi.StringWidth(t))+b.TopRight)
-	out := []string{top}
-	for _, l := range block(body, w-2, h-2) {
-		out = append(out, color(b.Left)+l+color(b.Right))
-	}
-	out = append(out, color(b.BottomLeft+strings.Repeat(b.Bottom, w-2)+b.BottomRight))
-	return out
+	l := a.computeLayout()
+	return l.rightW - 2, l.chartH - 2
 }
 
-// beside joins blocks of equal height side by side.
-func beside(cols ...[]string) []string {
-	if len(cols) == 0 {
-		return nil
+// resize gives every pane its size in the current layout.
+func (a *App) resize() {
+	a.help.SetSize(a.width, a.height)
+	a.prompt.SetSize(a.width, a.height)
+	if a.tooSmall() {
+		return
 	}
-	h := 0
-	for _, c := range cols {
-		h = max(h, len(c))
-	}
-	out := make([]string, h)
-	for i := range out {
-		var b strings.Builder
-		for _, c := range cols {
-			if i < len(c) {
-				b.WriteString(c[i])
-			}
-		}
-		out[i] = b.String()
-	}
-	return out
-}
-
-// overlay draws the lines of top centred over base (both w wide).
-func overlay(base, top []string, w int) []string {
-	out := append([]string(nil), base...)
-	h := len(base)
-	tw := 0
-	for _, l := range top {
-		tw = max(tw, ansi.StringWidth(l))
-	}
-	x := max(0, (w-tw)/2)
-	y := max(0, (h-len(top))/2)
-	for i, l := range top {
-		if y+i >= h {
-			break
-		}
-		row := out[y+i]
-		left := ansi.Truncate(row, x, "")
-		left += strings.Repeat(" ", x-ansi.StringWidth(left))
-		right := ansi.TruncateLeft(row, x+ansi.StringWidth(l), "")
-		out[y+i] = fit(left+l+right, w)
-	}
-	return out
+	l := a.computeLayout()
+	a.in.SetSize(l.leftW, l.inputsH)
+	a.derived.SetSize(l.leftW, l.derivedH)
+	a.chart.SetSize(l.rightW, l.chartH)
+	a.criteria.SetSize(l.rightW, l.critH)
+	a.details.SetSize(min(a.width-4, 90), l.bodyH)
 }

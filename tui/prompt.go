@@ -9,31 +9,48 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 
 	"cloudwind/internal/quantity"
-	"cloudwind/internal/report"
 	"cloudwind/internal/scenario"
 )
 
-// promptKind says what a prompt is for.
-type promptKind int
+// A pathAction is what a path prompt does with the path typed (trimmed;
+// possibly empty) when it is accepted.
+type pathAction func(path string) tea.Cmd
 
-const (
-	promptSave promptKind = iota
-	promptExportChart
-	promptExportState
-	promptLoad
-	promptScenarios // a menu: demos and "load a file…"
-)
-
-// prompt is a one-line question for a path, or the scenario menu.
+// prompt is the one-line question for a path, or the scenario menu, drawn
+// over the panes while open. The App opens it with the action to take;
+// the prompt runs the action when the answer is accepted, so that the
+// action reads the state at that moment.
 type prompt struct {
-	kind     promptKind
+	styles *Styles
+	keys   *KeyMap
+	width  int
+	open   bool
+
 	question string
 	input    textinput.Model
-	demos    []scenario.Scenario
-	choice   int // in the menu: index into demos, or len(demos) for "load a file…"
+	act      pathAction
+
+	menu   bool // the scenario menu: demos and "load a file…"
+	demos  []scenario.Scenario
+	choice int // in the menu: index into demos, or len(demos) for "load a file…"
+	onDemo func(scenario.Scenario) tea.Cmd
+	onLoad pathAction
 }
 
-func newPathPrompt(kind promptKind, question, suggestion string) *prompt {
+func newPrompt(styles *Styles, keys *KeyMap) prompt {
+	return prompt{styles: styles, keys: keys}
+}
+
+// SetSize sets the width the prompt is centred in; the box is at most 76
+// cells wide.
+func (p *prompt) SetSize(w, _ int) { p.width = w }
+
+// Open reports whether the prompt is shown.
+func (p *prompt) Open() bool { return p.open }
+
+// AskPath opens a question for a path, suggesting suggestion; act runs
+// on enter.
+func (p *prompt) AskPath(question, suggestion string, act pathAction) {
 	ti := textinput.New()
 	ti.Prompt = "> "
 	ti.Cursor.SetMode(cursor.CursorStatic) // no blinking: fewer redraws over SSH
@@ -41,74 +58,67 @@ func newPathPrompt(kind promptKind, question, suggestion string) *prompt {
 	ti.SetValue(suggestion)
 	ti.CursorEnd()
 	ti.Focus()
-	return &prompt{kind: kind, question: question, input: ti}
+	*p = prompt{styles: p.styles, keys: p.keys, width: p.width, open: true, question: question, input: ti, act: act}
 }
 
-func newScenarioMenu(demos []scenario.Scenario) *prompt {
-	return &prompt{kind: promptScenarios, question: "open a scenario", demos: demos}
+// ChooseScenario opens the scenario menu: onDemo runs for a chosen demo;
+// "load a file…" asks for a path and runs onLoad with it.
+func (p *prompt) ChooseScenario(demos []scenario.Scenario, onDemo func(scenario.Scenario) tea.Cmd, onLoad pathAction) {
+	*p = prompt{styles: p.styles, keys: p.keys, width: p.width, open: true, question: "open a scenario", menu: true,
+		demos: demos, onDemo: onDemo, onLoad: onLoad}
 }
 
-// updatePrompt handles keys while a prompt is open.
-func (a *App) updatePrompt(msg tea.KeyMsg) tea.Cmd {
-	p := a.prompt
-	if key.Matches(msg, a.keys.Cancel) {
-		a.prompt = nil
-		return nil
+// Update handles keys while the prompt is open: esc cancels, enter
+// accepts, ctrl+c quits; the menu moves its choice, the path prompt
+// edits its text.
+func (p prompt) Update(msg tea.Msg) (prompt, tea.Cmd) {
+	k, ok := msg.(tea.KeyMsg)
+	if !ok || !p.open {
+		return p, nil
 	}
-	if p.kind == promptScenarios {
+	if key.Matches(k, p.keys.Cancel) {
+		p.open = false
+		return p, nil
+	}
+	if p.menu {
 		n := len(p.demos) + 1
 		switch {
-		case key.Matches(msg, a.keys.PromptUp, a.keys.Up):
+		case key.Matches(k, p.keys.PromptUp, p.keys.Up):
 			p.choice = (p.choice + n - 1) % n
-		case key.Matches(msg, a.keys.PromDwn, a.keys.Down):
+		case key.Matches(k, p.keys.PromDwn, p.keys.Down):
 			p.choice = (p.choice + 1) % n
-		case key.Matches(msg, a.keys.Accept):
-			a.prompt = nil
+		case key.Matches(k, p.keys.Accept):
+			p.open = false
 			if p.choice == len(p.demos) {
-				a.prompt = newPathPrompt(promptLoad, "load scenario from", "scenario.toml")
-				return nil
+				p.AskPath("load scenario from", "scenario.toml", p.onLoad)
+				return p, nil
 			}
-			sc := p.demos[p.choice]
-			open := a.cfg.Open
-			return func() tea.Msg { return resolveScenario(sc, open, "") }
-		case key.Matches(msg, a.keys.Quit) && msg.String() == "ctrl+c":
-			return tea.Quit
+			return p, p.onDemo(p.demos[p.choice])
+		case key.Matches(k, p.keys.ForceQuit):
+			return p, tea.Quit
 		}
-		return nil
+		return p, nil
 	}
-	if msg.Type == tea.KeyEnter {
-		path := strings.TrimSpace(p.input.Value())
-		a.prompt = nil
-		if path == "" {
-			a.setStatus("no file name given", true)
-			return nil
-		}
-		switch p.kind {
-		case promptSave:
-			return saveScenario(path, a.currentScenario())
-		case promptExportChart:
-			return exportChart(path, a.chart)
-		case promptExportState:
-			return exportState(path, report.StateDocument(&a.res, a.cur.cooling, a.cur.cf, a.cfg.Version))
-		case promptLoad:
-			return loadScenario(path, a.cfg.Open)
-		}
-		return nil
+	if k.Type == tea.KeyEnter {
+		p.open = false
+		return p, p.act(strings.TrimSpace(p.input.Value()))
 	}
-	if msg.String() == "ctrl+c" {
-		return tea.Quit
+	if key.Matches(k, p.keys.ForceQuit) {
+		return p, tea.Quit
 	}
 	var cmd tea.Cmd
-	p.input, cmd = p.input.Update(msg)
-	return cmd
+	p.input, cmd = p.input.Update(k)
+	return p, cmd
 }
 
-// promptView draws the prompt as an overlay box.
-func (a *App) promptView(w int) []string {
-	p := a.prompt
-	st := &a.styles
+// View draws the prompt's box, or nothing when it is closed.
+func (p prompt) View() string {
+	if !p.open {
+		return ""
+	}
+	st := p.styles
 	var body []string
-	if p.kind == promptScenarios {
+	if p.menu {
 		for i, d := range p.demos {
 			line := "  " + quantity.Sanitize(d.Name)
 			if i == p.choice {
@@ -127,6 +137,6 @@ func (a *App) promptView(w int) []string {
 	} else {
 		body = []string{p.input.View(), "", st.Help.Render("enter accept · esc cancel")}
 	}
-	bw := min(w-4, 76)
-	return box(p.question, body, bw, len(body)+2, true, st)
+	bw := min(p.width-4, 76)
+	return strings.Join(box(p.question, body, bw, len(body)+2, true, st), "\n")
 }

@@ -1,12 +1,14 @@
 package tui
 
 import (
-	"fmt"
+	"math"
 	"strings"
+
+	"github.com/charmbracelet/bubbles/key"
+	tea "github.com/charmbracelet/bubbletea"
 
 	"cloudwind/cooling"
 	"cloudwind/internal/quantity"
-	"cloudwind/internal/report"
 	"cloudwind/model"
 )
 
@@ -58,31 +60,83 @@ func tableStatus(cf model.CoolingFunction, key string, s *model.State) string {
 	return ""
 }
 
-// derivedLines renders the derived pane's body: symbol, value with unit,
-// and in compare mode the ratio B/A.
-func (a *App) derivedLines(w, h int) []string {
-	st := &a.styles
-	rows := a.derived
-	lines := make([]string, 0, len(rows))
+// readout is the derived-values pane: symbol, value with unit, and in
+// compare mode the ratio B/A, with a mark on temperatures outside the
+// cooling table and the cautions of the evaluation under them.
+type readout struct {
+	styles        *Styles
+	keys          *KeyMap
+	width, height int
+	focused       bool
+
+	rows     []model.Quantity // fixed at start
+	selected int
+	res      *model.Result // the current evaluation
+	pin      *model.Result // the pinned scenario A's, or nil
+	cf       model.CoolingFunction
+}
+
+func newReadout(styles *Styles, keys *KeyMap) readout {
+	return readout{styles: styles, keys: keys, rows: derivedRows()}
+}
+
+// SetSize sets the pane's size, border included.
+func (r *readout) SetSize(w, h int) { r.width, r.height = w, h }
+
+// SetFocused says whether the pane has the focus (shows the selection).
+func (r *readout) SetFocused(f bool) { r.focused = f }
+
+// SetResult sets the evaluation shown, the pinned one (nil for none) and
+// the cooling function it used.
+func (r *readout) SetResult(res, pin *model.Result, cf model.CoolingFunction) {
+	r.res, r.pin, r.cf = res, pin, cf
+}
+
+// Update moves the selection.
+func (r readout) Update(msg tea.Msg) (readout, tea.Cmd) {
+	if k, ok := msg.(tea.KeyMsg); ok {
+		n := len(r.rows)
+		switch {
+		case key.Matches(k, r.keys.Up):
+			r.selected = (r.selected - 1 + n) % n
+		case key.Matches(k, r.keys.Down):
+			r.selected = (r.selected + 1 + n) % n
+		}
+	}
+	return r, nil
+}
+
+// Selected returns the selected quantity.
+func (r *readout) Selected() model.Quantity { return r.rows[r.selected] }
+
+// View draws the pane in its border.
+func (r readout) View() string {
+	return strings.Join(box("Derived", r.body(r.width-2, r.height-2), r.width, r.height, r.focused, r.styles), "\n")
+}
+
+// body renders the rows for a body of w×h cells.
+func (r readout) body(w, h int) []string {
+	st := r.styles
+	lines := make([]string, 0, len(r.rows))
 	symW := 18
 	if w < 36 {
 		symW = 16
 	}
-	for i, q := range rows {
-		v := q.Value(&a.res.State)
+	for i, q := range r.rows {
+		v := q.Value(&r.res.State)
 		val := quantity.Format(q.Dim, v)
 		cell := st.Value.Render(val)
-		if a.pin != nil {
-			va := q.Value(&a.pin.res.State)
-			if r := v / va; isFiniteValue(r) && va != 0 {
-				cell += st.Dim.Render("  B/A " + quantity.FormatSig(r, 3))
+		if r.pin != nil {
+			va := q.Value(&r.pin.State)
+			if ratio := v / va; isFiniteValue(ratio) && va != 0 {
+				cell += st.Dim.Render("  B/A " + quantity.FormatSig(ratio, 3))
 			}
 		}
-		if note := tableStatus(a.cur.cf, q.Key, &a.res.State); note != "" {
+		if note := tableStatus(r.cf, q.Key, &r.res.State); note != "" {
 			cell += " " + st.OutOfTable.Render("⚠ "+note)
 		}
-		label := fit(q.Symbol, symW)
-		if a.focus == focusDerived && i == a.derivedSel {
+		var label string
+		if r.focused && i == r.selected {
 			label = st.Selected.Render(fit("▸ "+q.Symbol, symW))
 		} else {
 			label = st.Label.Render(fit("  "+q.Symbol, symW))
@@ -90,154 +144,11 @@ func (a *App) derivedLines(w, h int) []string {
 		lines = append(lines, label+cell)
 	}
 	// The cold-gas line carries the caution when T_cl leaves the table.
-	for _, c := range a.res.Cautions {
+	for _, c := range r.res.Cautions {
 		lines = append(lines, st.Warning.Render("⚠ "+quantity.Sanitize(c.Message)))
 	}
-	return scrollWindow(lines, a.derivedSel, h, a.focus == focusDerived)
+	return scrollWindow(lines, r.selected, h, r.focused)
 }
 
-// scrollWindow keeps the selected line visible in h lines.
-func scrollWindow(lines []string, sel, h int, follow bool) []string {
-	if len(lines) <= h || h <= 0 {
-		return lines
-	}
-	start := 0
-	if follow && sel >= h {
-		start = sel - h + 1
-	}
-	end := min(len(lines), start+h)
-	out := lines[start:end]
-	if end < len(lines) {
-		out[len(out)-1] = fmt.Sprintf("  … %d more (tab to this pane, ↓)", len(lines)-end+1)
-	}
-	return out
-}
-
-// verdictText is the verdict as glyph and word, never colour alone.
-func (a *App) verdictText(v model.Verdict, short bool) string {
-	st := &a.styles
-	if v == model.Survives {
-		if short {
-			return st.Survives.Render("✓ grows")
-		}
-		return st.Survives.Render("✓ survives")
-	}
-	if short {
-		return st.Destroyed.Render("✗ dest.")
-	}
-	return st.Destroyed.Render("✗ destroyed")
-}
-
-// criteriaLines renders the criteria table: ratio, limit, r_crit, margin
-// and verdict per criterion; with a pinned A, r_crit of A and B, B/A and
-// the verdicts A→B. Marks: * constants not verified, ! inputs outside the
-// calibrated range.
-func (a *App) criteriaLines(w int) []string {
-	st := &a.styles
-	compact := w < 70
-	idW := 21
-	if compact {
-		idW = 17
-	}
-	var head string
-	switch {
-	case a.pin != nil:
-		head = fit("  criterion", idW) + fmt.Sprintf("%-11s%-11s%-7s%s", "r_crit A", "r_crit B", "B/A", "A → B")
-	case compact:
-		head = fit("  criterion", idW) + fmt.Sprintf("%-11s%-8s%s", "r_crit", "margin", "verdict")
-	default:
-		head = fit("  criterion", idW) + fmt.Sprintf("%-9s%-7s%-11s%-8s%s", "ratio", "limit", "r_crit", "margin", "verdict")
-	}
-	lines := []string{st.Dim.Render(head)}
-	anyUnverified, anyOut := false, false
-	for i := range a.res.Criteria {
-		c, o := &a.res.Criteria[i], a.res.Outcomes[i]
-		name := fit(quantity.Sanitize(c.ID), idW-3) + " "
-		if a.focus == focusCriteria && i == a.critSel {
-			name = st.Selected.Render("▸ " + name)
-		} else {
-			name = st.Label.Render("  " + name)
-		}
-		rc := "none"
-		if o.HasThreshold() {
-			rc = quantity.Format(model.DimLength, float64(o.RCrit))
-		}
-		var row string
-		switch {
-		case a.pin != nil:
-			oa := a.pin.res.Outcomes[i]
-			rca := "none"
-			if oa.HasThreshold() {
-				rca = quantity.Format(model.DimLength, float64(oa.RCrit))
-			}
-			ratio := "—"
-			if o.HasThreshold() && oa.HasThreshold() {
-				ratio = quantity.FormatSig(float64(o.RCrit/oa.RCrit), 3)
-			}
-			row = name + fit(rca, 10) + " " + fit(rc, 10) + " " + fit(ratio, 6) + " " +
-				verdictGlyph(oa.Verdict) + "→" + a.verdictText(o.Verdict, true)
-		case compact:
-			row = name + fit(rc, 10) + " " + fit(quantity.FormatSig(o.Margin, 3), 7) + " " + a.verdictText(o.Verdict, true)
-		default:
-			limit := quantity.FormatSig(o.Threshold, 3)
-			if c.Cool == model.CoolNone {
-				limit = "—"
-			}
-			row = name + fit(quantity.FormatSig(o.Ratio, 3), 8) + " " + fit(limit, 6) + " " + fit(rc, 10) + " " +
-				fit(quantity.FormatSig(o.Margin, 3), 7) + " " + a.verdictText(o.Verdict, false)
-		}
-		marks := ""
-		if !c.Verified {
-			marks += st.Unverified.Render(" *")
-			anyUnverified = true
-		}
-		if !o.InRange() {
-			marks += st.Warning.Render(" !" + strings.Join(o.Leaves.Names(), ","))
-			anyOut = true
-		}
-		lines = append(lines, row+marks)
-	}
-	var legend []string
-	if anyUnverified {
-		legend = append(legend, st.Unverified.Render("*")+" unverified constant")
-	}
-	if anyOut {
-		legend = append(legend, st.Warning.Render("!")+" outside calibrated range")
-	}
-	legend = append(legend, "d details")
-	lines = append(lines, st.Dim.Render(strings.Join(legend, " · ")))
-	return lines
-}
-
-// verdictGlyph is a one-glyph verdict for compact cells.
-func verdictGlyph(v model.Verdict) string {
-	if v == model.Survives {
-		return "✓"
-	}
-	return "✗"
-}
-
-// inputLines renders the inputs pane.
-func (a *App) inputLines(w int) []string {
-	st := &a.styles
-	var lines []string
-	coolName := report.CoolingName(a.cur.cooling, a.cur.cf)
-	for i, in := range a.in.visible() {
-		label := fit(in.label, 9)
-		val := valueText(in, &a.cur.params, coolName)
-		if a.focus == focusInputs && i == a.in.selected {
-			lines = append(lines, st.Selected.Render("▸ "+label)+st.Value.Render(val))
-		} else {
-			lines = append(lines, st.Label.Render("  "+label)+st.Value.Render(val))
-		}
-		if a.in.editing && i == a.in.selected {
-			lines = append(lines, "  "+a.in.edit.View())
-		}
-	}
-	more := "a: more inputs"
-	if a.in.advanced {
-		more = "a: fewer inputs"
-	}
-	lines = append(lines, st.Dim.Render(more))
-	return lines
-}
+// isFiniteValue reports whether v is neither NaN nor ±Inf.
+func isFiniteValue(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }

@@ -1,6 +1,10 @@
 package tui
 
-import "github.com/charmbracelet/lipgloss"
+import (
+	"github.com/charmbracelet/lipgloss"
+
+	"cloudwind/tui/chart"
+)
 
 // A Palette is a set of colours for one kind of screen. Meaning never
 // rests on colour alone: verdicts carry a word and a glyph, curves a glyph
@@ -49,32 +53,29 @@ func LightPalette() Palette {
 
 // Styles are the interface's styles, named by meaning. There is one
 // Styles value per App, built by NewStyles and passed down; nothing is
-// global.
+// global. Chart holds the chart renderers' styles, derived from the same
+// palette.
 type Styles struct {
-	Palette     Palette
-	Color       bool // false under NO_COLOR: every style below is colourless
-	ASCII       bool // no braille glyphs: charts draw with plain runes
-	Title       lipgloss.Style
-	Border      lipgloss.Style // a pane
-	Focused     lipgloss.Style // the focused pane
-	Label       lipgloss.Style
-	Value       lipgloss.Style
-	Unit        lipgloss.Style
-	Dim         lipgloss.Style
-	Selected    lipgloss.Style // the selected row
-	Survives    lipgloss.Style
-	Destroyed   lipgloss.Style
-	Warning     lipgloss.Style // cautions, out-of-range marks
-	Unverified  lipgloss.Style // the mark on unverified constants
-	OutOfTable  lipgloss.Style // temperatures outside the cooling table
-	Status      lipgloss.Style
-	Error       lipgloss.Style
-	AxisLabel   lipgloss.Style
-	Legend      lipgloss.Style
-	Help        lipgloss.Style
-	Series      []lipgloss.Style // one per curve
-	Heat        []lipgloss.Style // regime map shades
-	SeriesGlyph []rune           // one glyph per curve, for the legend and rune mode
+	Palette    Palette
+	Color      bool // false under NO_COLOR: every style below is colourless
+	ASCII      bool // no braille glyphs: charts draw with plain runes
+	Title      lipgloss.Style
+	Border     lipgloss.Style // a pane
+	Focused    lipgloss.Style // the focused pane
+	Label      lipgloss.Style
+	Value      lipgloss.Style
+	Unit       lipgloss.Style
+	Dim        lipgloss.Style
+	Selected   lipgloss.Style // the selected row
+	Survives   lipgloss.Style
+	Destroyed  lipgloss.Style
+	Warning    lipgloss.Style // cautions, out-of-range marks
+	Unverified lipgloss.Style // the mark on unverified constants
+	OutOfTable lipgloss.Style // temperatures outside the cooling table
+	Status     lipgloss.Style
+	Error      lipgloss.Style
+	Help       lipgloss.Style
+	Chart      chart.Styles // axes, curves (one style and glyph each), map shades
 }
 
 // NewStyles builds the styles of a palette. With color false (NO_COLOR)
@@ -107,25 +108,24 @@ func NewStyles(p Palette, color, ascii bool) Styles {
 		OutOfTable: fg(p.Warning),
 		Status:     fg(p.Dim),
 		Error:      fg(p.Error).Bold(true),
-		AxisLabel:  fg(p.Dim),
-		Legend:     fg(p.Text),
 		Help:       fg(p.Dim),
 	}
 	if !color {
 		s.Selected = lipgloss.NewStyle().Reverse(true)
 		s.Title = lipgloss.NewStyle().Bold(true)
 	}
+	s.Chart = chart.Styles{Color: color, ASCII: ascii, Title: s.Title, AxisLabel: fg(p.Dim), Dim: s.Dim, Warning: s.Warning,
+		Legend: fg(p.Text), Glyphs: chart.DefaultGlyphs()}
 	for _, c := range p.Series {
-		s.Series = append(s.Series, fg(c))
+		s.Chart.Series = append(s.Chart.Series, fg(c))
 	}
 	for _, c := range p.Heat {
 		if color {
-			s.Heat = append(s.Heat, lipgloss.NewStyle().Background(c).Foreground(p.Text))
+			s.Chart.Heat = append(s.Chart.Heat, lipgloss.NewStyle().Background(c).Foreground(p.Text))
 		} else {
-			s.Heat = append(s.Heat, lipgloss.NewStyle())
+			s.Chart.Heat = append(s.Chart.Heat, lipgloss.NewStyle())
 		}
 	}
-	s.SeriesGlyph = []rune{'*', '+', 'o', 'x', '#', '.', '%', '@'}
 	return s
 }
 
@@ -141,14 +141,3 @@ func borderColor(c lipgloss.TerminalColor, color bool) lipgloss.TerminalColor {
 func asciiBorder() lipgloss.Border {
 	return lipgloss.Border{Top: "-", Bottom: "-", Left: "|", Right: "|", TopLeft: "+", TopRight: "+", BottomLeft: "+", BottomRight: "+"}
 }
-
-// SeriesStyle returns the style of curve i (cycling).
-func (s *Styles) SeriesStyle(i int) lipgloss.Style {
-	if len(s.Series) == 0 {
-		return lipgloss.NewStyle()
-	}
-	return s.Series[i%len(s.Series)]
-}
-
-// Glyph returns the glyph of curve i (cycling).
-func (s *Styles) Glyph(i int) rune { return s.SeriesGlyph[i%len(s.SeriesGlyph)] }

@@ -1,79 +1,17 @@
-package tui
+package chart
 
 import (
-	"flag"
 	"math"
-	"os"
-	"path/filepath"
-	"regexp"
 	"strings"
 	"testing"
 
 	"github.com/charmbracelet/lipgloss"
+
+	"cloudwind/internal/chartspec"
+	"cloudwind/tui/internal/golden"
 )
 
 // Helpers and fixtures of the chart and regime-map tests.
-
-// The -update flag rewrites golden files. It is registered here unless
-// another test file of the package has registered it already (package
-// variables are initialised before init functions run), so that a shared
-// `var update = flag.Bool("update", …)` elsewhere does not clash.
-func init() {
-	if flag.Lookup("update") == nil {
-		flag.Bool("update", false, "rewrite golden files")
-	}
-}
-
-// updateChartGolden reports whether -update was given.
-func updateChartGolden() bool {
-	f := flag.Lookup("update")
-	if f == nil {
-		return false
-	}
-	g, ok := f.Value.(flag.Getter)
-	if !ok {
-		return false
-	}
-	b, _ := g.Get().(bool)
-	return b
-}
-
-// chartANSISeq matches the SGR escape sequences lipgloss writes.
-var chartANSISeq = regexp.MustCompile("\x1b\\[[0-9;]*m")
-
-// checkChartGolden compares got, ANSI removed, with
-// testdata/<test>/<name>.golden, or rewrites the file under -update.
-func checkChartGolden(t *testing.T, test, name, got string) {
-	t.Helper()
-	got = chartANSISeq.ReplaceAllString(got, "")
-	path := filepath.Join("testdata", test, name+".golden")
-	if updateChartGolden() {
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, []byte(got+"\n"), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test ./tui -run %s -update)", err, test)
-	}
-	wl, gl := strings.Split(strings.TrimSuffix(string(want), "\n"), "\n"), strings.Split(got, "\n")
-	for i := 0; i < max(len(wl), len(gl)); i++ {
-		var w, g string
-		if i < len(wl) {
-			w = wl[i]
-		}
-		if i < len(gl) {
-			g = gl[i]
-		}
-		if w != g {
-			t.Fatalf("%s line %d:\n got %q\nwant %q\nfull output:\n%s", path, i+1, g, w, got)
-		}
-	}
-}
 
 // checkChartBlock fails unless out is exactly h lines of exactly w cells.
 func checkChartBlock(t *testing.T, what, out string, w, h int) {
@@ -95,12 +33,32 @@ func checkChartBlock(t *testing.T, what, out string, w, h int) {
 	}
 }
 
-// chartTestStyles returns the colourless, ASCII and braille style sets.
+// chartTestStyles returns the colourless, ASCII and braille style sets:
+// what the explorer's styles give without colour, with --ascii and with
+// colour (here with the dark palette's series colours, ANSI 256-colour
+// indices).
 func chartTestStyles() map[string]*Styles {
-	plain := NewStyles(DarkPalette(), false, false)
-	ascii := NewStyles(DarkPalette(), false, true)
-	braille := NewStyles(DarkPalette(), true, false)
+	plain := DefaultStyles()
+	ascii := DefaultStyles()
+	ascii.ASCII = true
+	braille := colourStyles(lipgloss.NewStyle)
 	return map[string]*Styles{"plain": &plain, "ascii": &ascii, "braille": &braille}
+}
+
+// colourStyles returns coloured braille styles made by newStyle.
+func colourStyles(newStyle func() lipgloss.Style) Styles {
+	st := DefaultStyles()
+	st.Color = true
+	fg := func(c string) lipgloss.Style { return newStyle().Foreground(lipgloss.Color(c)) }
+	st.Title, st.AxisLabel, st.Dim, st.Warning, st.Legend = fg("212").Bold(true), fg("245"), fg("245"), fg("214"), fg("252")
+	st.Series = nil
+	for _, c := range []string{"39", "214", "170", "42", "203", "250", "226", "51"} {
+		st.Series = append(st.Series, fg(c))
+	}
+	for _, c := range []string{"52", "94", "136", "142", "71", "35", "42"} {
+		st.Heat = append(st.Heat, newStyle().Background(lipgloss.Color(c)).Foreground(lipgloss.Color("252")))
+	}
+	return st
 }
 
 // syntheticThresholds returns the (a, b) of the synthetic threshold radii
@@ -122,19 +80,19 @@ type syntheticThreshold struct {
 // synthThresholdChart returns r_crit vs χ on log–log axes: six synthetic
 // curves of n points, a VLine at the current χ = 100 and an HLine at the
 // current r_cl = 1 pc.
-func synthThresholdChart(n int) *LineChart {
-	c := &LineChart{
+func synthThresholdChart(n int) *chartspec.LineChart {
+	c := &chartspec.LineChart{
 		Title: "threshold radius vs χ (synthetic)",
-		X:     Axis{Label: "χ = ρ_cl/ρ_hot", Log: true, Min: 1, Max: 4},
-		Y:     Axis{Label: "r_crit (pc)", Log: true, Min: -3, Max: 3},
-		Markers: []Marker{
-			{Kind: VLine, X: 2, Label: "χ=100"},
-			{Kind: HLine, Y: 0, Label: "r_cl=1 pc"},
+		X:     chartspec.Axis{Label: "χ = ρ_cl/ρ_hot", Log: true, Min: 1, Max: 4},
+		Y:     chartspec.Axis{Label: "r_crit (pc)", Log: true, Min: -3, Max: 3},
+		Markers: []chartspec.Marker{
+			{Kind: chartspec.VLine, X: 2, Label: "χ=100"},
+			{Kind: chartspec.HLine, Y: 0, Label: "r_cl=1 pc"},
 		},
 		Note: "synthetic data r_crit = a χ^b, for layout tests only",
 	}
 	for i, p := range syntheticThresholds() {
-		s := Series{Name: p.name, Index: i}
+		s := chartspec.Series{Name: p.name, Index: i}
 		for k := range n {
 			lx := 1 + 3*float64(k)/float64(n-1)
 			s.X = append(s.X, lx)
@@ -150,9 +108,9 @@ func synthThresholdChart(n int) *LineChart {
 // low-temperature bump, a floor and a T^{1/2} tail; shapes and numbers
 // are chosen for layout tests, not taken from a table. The VLines mark
 // T_floor, T_cl, T_mix and T_hot, the last outside the table (Warn).
-func synthCoolingChart() *LineChart {
+func synthCoolingChart() *chartspec.LineChart {
 	g := func(x, mu, sigma float64) float64 { return math.Exp(-(x - mu) * (x - mu) / (2 * sigma * sigma)) }
-	s := Series{Name: "Λ(T) synthetic"}
+	s := chartspec.Series{Name: "Λ(T) synthetic"}
 	for k := range 301 {
 		lt := 1.5 + 7*float64(k)/300
 		step := 1 / (1 + math.Exp(-(lt-4.3)*10))
@@ -161,16 +119,16 @@ func synthCoolingChart() *LineChart {
 		s.X = append(s.X, lt)
 		s.Y = append(s.Y, math.Log10(lam))
 	}
-	return &LineChart{
+	return &chartspec.LineChart{
 		Title:  "cooling function (synthetic)",
-		X:      Axis{Label: "T (K)", Log: true, Min: 1, Max: 9},
-		Y:      Axis{Label: "Λ (erg cm³ s⁻¹)", Log: true, Min: -28, Max: -21},
-		Series: []Series{s},
-		Markers: []Marker{
-			{Kind: VLine, X: 3.7, Label: "T_floor"},
-			{Kind: VLine, X: 4.0, Label: "T_cl"},
-			{Kind: VLine, X: 5.5, Label: "T_mix"},
-			{Kind: VLine, X: 8.7, Label: "T_hot", Warn: true},
+		X:      chartspec.Axis{Label: "T (K)", Log: true, Min: 1, Max: 9},
+		Y:      chartspec.Axis{Label: "Λ (erg cm³ s⁻¹)", Log: true, Min: -28, Max: -21},
+		Series: []chartspec.Series{s},
+		Markers: []chartspec.Marker{
+			{Kind: chartspec.VLine, X: 3.7, Label: "T_floor"},
+			{Kind: chartspec.VLine, X: 4.0, Label: "T_cl"},
+			{Kind: chartspec.VLine, X: 5.5, Label: "T_mix"},
+			{Kind: chartspec.VLine, X: 8.7, Label: "T_hot", Warn: true},
 		},
 		Note: "synthetic curve; T_hot lies above the table's last node (1e8.5 K)",
 	}
@@ -179,7 +137,7 @@ func synthCoolingChart() *LineChart {
 // chartGrid splits a rendered, colourless block into rows of runes.
 func chartGrid(out string) [][]rune {
 	var g [][]rune
-	for _, l := range strings.Split(chartANSISeq.ReplaceAllString(out, ""), "\n") {
+	for _, l := range strings.Split(golden.SGR.ReplaceAllString(out, ""), "\n") {
 		g = append(g, []rune(l))
 	}
 	return g

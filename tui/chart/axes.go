@@ -1,13 +1,12 @@
-package tui
+package chart
 
 import (
 	"iter"
 	"math"
 	"strconv"
 
+	"cloudwind/internal/chartspec"
 	"cloudwind/internal/quantity"
-
-	"github.com/NimbleMarkets/ntcharts/canvas/runes"
 )
 
 // axisRange returns the visible range [lo, hi] of a: a.Min and a.Max when
@@ -15,7 +14,7 @@ import (
 // [dataLo, dataHi]; a single value v becomes [v−d, v+d] with d = 0.5 axis
 // units (half a decade on a log axis) or 10⁻³|v| if larger. ok is false,
 // and [0, 1] is returned, when neither gives a usable range.
-func axisRange(a Axis, dataLo, dataHi float64) (lo, hi float64, ok bool) {
+func axisRange(a chartspec.Axis, dataLo, dataHi float64) (lo, hi float64, ok bool) {
 	lo, hi = a.Min, a.Max
 	if !isFiniteValue(lo) || !isFiniteValue(hi) {
 		lo, hi = dataLo, dataHi
@@ -65,8 +64,8 @@ func areaCell(v, lo, hi float64, n int) int {
 	return min(max(c, 0), n-1)
 }
 
-// A chartTick is a labelled value on an axis, in axis units.
-type chartTick struct {
+// A tick is a labelled value on an axis, in axis units.
+type tick struct {
 	v     float64
 	label []rune
 }
@@ -77,7 +76,7 @@ type chartTick struct {
 // 10th, …), preceded for ranges of two decades or less by 1-2-5 mantissas
 // ("2e1"); on a linear axis multiples of 1, 2 and 5 × 10ⁿ. The last set
 // yielded has at most one tick.
-func tickSets(lo, hi float64, log bool, maxTicks int) iter.Seq[[]chartTick] {
+func tickSets(lo, hi float64, log bool, maxTicks int) iter.Seq[[]tick] {
 	maxTicks = max(maxTicks, 1)
 	if log {
 		return logTickSets(lo, hi, maxTicks)
@@ -89,8 +88,8 @@ func tickSets(lo, hi float64, log bool, maxTicks int) iter.Seq[[]chartTick] {
 const tickEps = 1e-9
 
 // logTickSets yields the candidate tick sets of a log axis.
-func logTickSets(lo, hi float64, maxTicks int) iter.Seq[[]chartTick] {
-	return func(yield func([]chartTick) bool) {
+func logTickSets(lo, hi float64, maxTicks int) iter.Seq[[]tick] {
+	return func(yield func([]tick) bool) {
 		if math.Abs(lo) > 1e6 || math.Abs(hi) > 1e6 { // 10^(10^6): nothing sensible to label
 			return
 		}
@@ -102,12 +101,12 @@ func logTickSets(lo, hi float64, maxTicks int) iter.Seq[[]chartTick] {
 				mants = mants[1:]
 			}
 			for _, ms := range mants {
-				var set []chartTick
+				var set []tick
 				for k := int(math.Floor(lo)) - 1; k <= int(math.Ceil(hi)); k++ {
 					for _, m := range ms {
 						v := float64(k) + math.Log10(float64(m))
 						if v >= lo-tickEps && v <= hi+tickEps {
-							set = append(set, chartTick{v, decadeLabel(m, k)})
+							set = append(set, tick{v, decadeLabel(m, k)})
 						}
 					}
 				}
@@ -117,9 +116,9 @@ func logTickSets(lo, hi float64, maxTicks int) iter.Seq[[]chartTick] {
 			}
 		}
 		for step := decadeStepAtLeast((nd + maxTicks - 1) / maxTicks); ; step = nextDecadeStep(step) {
-			var set []chartTick
+			var set []tick
 			for k := ceilMultiple(kmin, step); k <= kmax; k += step {
-				set = append(set, chartTick{float64(k), decadeLabel(1, k)})
+				set = append(set, tick{float64(k), decadeLabel(1, k)})
 			}
 			if !yield(set) || len(set) <= 1 {
 				return
@@ -171,8 +170,8 @@ func ceilMultiple(k, step int) int {
 }
 
 // linearTickSets yields the candidate tick sets of a linear axis.
-func linearTickSets(lo, hi float64, maxTicks int) iter.Seq[[]chartTick] {
-	return func(yield func([]chartTick) bool) {
+func linearTickSets(lo, hi float64, maxTicks int) iter.Seq[[]tick] {
+	return func(yield func([]tick) bool) {
 		e := int(math.Floor(math.Log10((hi - lo) / float64(maxTicks))))
 		mant := 1
 		for range 60 {
@@ -182,13 +181,13 @@ func linearTickSets(lo, hi float64, maxTicks int) iter.Seq[[]chartTick] {
 				maxAbs := math.Max(math.Abs(lo), math.Abs(hi))
 				sig := int(math.Floor(math.Log10(maxAbs))) - int(math.Floor(math.Log10(step))) + 1
 				sig = min(max(sig, 1), 15)
-				var set []chartTick
+				var set []tick
 				for k := k0; k <= k1; k++ {
 					v := k * step
 					if math.Abs(v) < step*1e-6 {
 						v = 0
 					}
-					set = append(set, chartTick{v, []rune(quantity.FormatSig(v, sig))})
+					set = append(set, tick{v, []rune(quantity.FormatSig(v, sig))})
 				}
 				if !yield(set) || len(set) <= 1 {
 					return
@@ -208,8 +207,8 @@ func linearTickSets(lo, hi float64, maxTicks int) iter.Seq[[]chartTick] {
 
 // pickTicks returns the densest set with at least two ticks that fits,
 // else the densest set that fits, else nil.
-func pickTicks(sets iter.Seq[[]chartTick], fits func([]chartTick) bool) []chartTick {
-	var fallback []chartTick
+func pickTicks(sets iter.Seq[[]tick], fits func([]tick) bool) []tick {
+	var fallback []tick
 	for set := range sets {
 		if !fits(set) {
 			continue
@@ -245,8 +244,8 @@ func spreadX(cols []int, labels [][]rune, w, gap int) ([]int, bool) {
 
 // pickXTicks chooses the densest tick set whose labels, centred on the
 // columns col(v), fit in w columns with two blank cells between them.
-func pickXTicks(sets iter.Seq[[]chartTick], col func(float64) int, w int) []placedTick {
-	place := func(ts []chartTick) ([]placedTick, bool) {
+func pickXTicks(sets iter.Seq[[]tick], col func(float64) int, w int) []placedTick {
+	place := func(ts []tick) ([]placedTick, bool) {
 		cols, labels := make([]int, len(ts)), make([][]rune, len(ts))
 		for i, t := range ts {
 			cols[i], labels[i] = col(t.v), t.label
@@ -258,18 +257,16 @@ func pickXTicks(sets iter.Seq[[]chartTick], col func(float64) int, w int) []plac
 		}
 		return pts, ok
 	}
-	ticks := pickTicks(sets, func(ts []chartTick) bool { _, ok := place(ts); return ok })
+	ticks := pickTicks(sets, func(ts []tick) bool { _, ok := place(ts); return ok })
 	pts, _ := place(ticks)
 	return pts
 }
 
-// rowsApart reports whether consecutive rows differ by at least 2, so
-// that y-axis labels keep a blank row between them.
 // placeYTicks chooses the y-axis ticks of a plot ph rows high over
 // [lo, hi] that fit without touching, and places them with row; margin is
 // the width of the longest label plus one, where the plot starts.
 func placeYTicks(lo, hi float64, log bool, ph int, row func(float64) int) (ticks []placedTick, margin int) {
-	chosen := pickTicks(tickSets(lo, hi, log, ph/2+1), func(ts []chartTick) bool {
+	chosen := pickTicks(tickSets(lo, hi, log, ph/2+1), func(ts []tick) bool {
 		rows := make([]int, len(ts))
 		for i, t := range ts {
 			rows[i] = row(t.v)
@@ -283,6 +280,8 @@ func placeYTicks(lo, hi float64, log bool, ph int, row func(float64) int) (ticks
 	return ticks, margin + 1
 }
 
+// rowsApart reports whether consecutive rows differ by at least 2, so
+// that y-axis labels keep a blank row between them.
 func rowsApart(rows []int) bool {
 	for i := 1; i < len(rows); i++ {
 		if d := rows[i] - rows[i-1]; d < 2 && d > -2 {
@@ -290,178 +289,4 @@ func rowsApart(rows []int) bool {
 		}
 	}
 	return true
-}
-
-// A chartFrame is the vertical layout of a chart block: the row of each part
-// around the plot, −1 for a part left out for lack of room.
-type chartFrame struct {
-	title, ylabel int // title and y-axis title rows
-	top, ph       int // first plot row and number of plot rows
-	axis, ticks   int // x-axis row and x tick-label row
-	xtitle        int // x-axis title row
-	legend, nleg  int // first legend row and number of legend rows
-	note          int // note row
-}
-
-// minPlotRows is the fewest plot rows worth drawing.
-const minPlotRows = 3
-
-// layoutFrame divides h rows between the plot and the parts around it,
-// giving up parts in reverse order of importance (title, note, extra
-// legend rows, x-axis title, first legend row, y-axis title) while the
-// plot keeps enough rows. ok is false when not even minPlotRows fit.
-func layoutFrame(h int, title, ylabel, xtitle, note bool, legendRows int) (f chartFrame, ok bool) {
-	r := h - 2 // the axis and tick-label rows are always drawn
-	if r < minPlotRows {
-		return chartFrame{}, false
-	}
-	take := func(want bool, minPlot int) bool {
-		if want && r-1 >= minPlot {
-			r--
-			return true
-		}
-		return false
-	}
-	hasY := take(ylabel, 3)
-	nleg := 0
-	if take(legendRows > 0, 3) {
-		nleg = 1
-	}
-	hasX := take(xtitle, 4)
-	for nleg < legendRows && take(true, 6) {
-		nleg++
-	}
-	hasNote := take(note, 6)
-	hasTitle := take(title, 8)
-
-	f = chartFrame{title: -1, ylabel: -1, xtitle: -1, note: -1}
-	row := 0
-	if hasTitle {
-		f.title, row = row, row+1
-	}
-	if hasY {
-		f.ylabel, row = row, row+1
-	}
-	f.top, f.ph = row, r
-	row += r
-	f.axis, f.ticks = row, row+1
-	row += 2
-	if hasX {
-		f.xtitle, row = row, row+1
-	}
-	f.legend, f.nleg = row, nleg
-	row += nleg
-	if hasNote {
-		f.note = row
-	}
-	return f, true
-}
-
-// axisGlyphs are the runes of the axes.
-type axisGlyphs struct{ vert, horiz, corner, ytick, xtick rune }
-
-// axesGlyphs returns box-drawing axes (ntcharts' runes) or ASCII ones.
-func axesGlyphs(ascii bool) axisGlyphs {
-	if ascii {
-		return axisGlyphs{'|', '-', '+', '+', '+'}
-	}
-	return axisGlyphs{runes.LineVertical, runes.LineHorizontal, runes.LineUpRight, runes.LineVerticalLeft, runes.LineHorizontalDown}
-}
-
-// A placedTick is a tick label at a cell: pos is a column on the x axis
-// (start is the label's first column) or a row on the y axis.
-type placedTick struct {
-	pos, start int
-	label      []rune
-}
-
-// drawAxes draws the y axis in column x0−1 beside the plot rows, the x
-// axis along row f.axis, their tick marks and the tick labels: y labels
-// right-aligned against the axis, x labels on row f.ticks.
-func drawAxes(s *chartSurface, f chartFrame, x0, pw int, xt, yt []placedTick, g axisGlyphs, id uint8) {
-	ax := x0 - 1
-	for y := f.top; y < f.top+f.ph; y++ {
-		s.put(ax, y, g.vert, id, kindGuide)
-	}
-	s.put(ax, f.axis, g.corner, id, kindGuide)
-	for x := x0; x < x0+pw; x++ {
-		s.put(x, f.axis, g.horiz, id, kindGuide)
-	}
-	for _, t := range yt {
-		s.put(ax, t.pos, g.ytick, id, kindGuide)
-		s.write(ax-len(t.label), t.pos, t.label, id, kindText)
-	}
-	for _, t := range xt {
-		s.put(t.pos, f.axis, g.xtick, id, kindGuide)
-		s.write(t.start, f.ticks, t.label, id, kindText)
-	}
-}
-
-// A legendItem is one legend entry: a key (a glyph or swatch) and a text.
-type legendItem struct {
-	key, text     []rune
-	keyID, textID uint8
-}
-
-// width returns the cells the item takes: key, a space, text.
-func (it legendItem) width() int {
-	if len(it.text) == 0 {
-		return len(it.key)
-	}
-	return len(it.key) + 1 + len(it.text)
-}
-
-// legendGap is the blank cells between legend items on a row.
-const legendGap = 3
-
-// packLegend splits items into rows at most w cells wide, in order.
-func packLegend(items []legendItem, w int) [][]legendItem {
-	var rows [][]legendItem
-	used := 0
-	for _, it := range items {
-		n := it.width()
-		if len(rows) == 0 || used+legendGap+n > w {
-			rows = append(rows, nil)
-			used = n
-		} else {
-			used += legendGap + n
-		}
-		rows[len(rows)-1] = append(rows[len(rows)-1], it)
-	}
-	return rows
-}
-
-// drawLegend draws the first n rows of a packed legend from row y, each
-// item clipped to the width left; with rows left over, the last drawn
-// row ends in an ellipsis.
-func drawLegend(s *chartSurface, rows [][]legendItem, y, n int, ascii bool) {
-	for r := 0; r < n && r < len(rows); r++ {
-		x := 0
-		for i, it := range rows[r] {
-			if i > 0 {
-				x += legendGap
-			}
-			key := clipRunes(it.key, s.w-x, ascii)
-			s.write(x, y+r, key, it.keyID, kindText)
-			x += len(key)
-			if len(it.text) > 0 && x+1 < s.w {
-				text := clipRunes(it.text, s.w-x-1, ascii)
-				s.write(x+1, y+r, text, it.textID, kindText)
-				x += 1 + len(text)
-			}
-		}
-		if r == n-1 && n < len(rows) {
-			ell := []rune("…")
-			if ascii {
-				ell = []rune("...")
-			}
-			s.write(min(x+1, s.w-len(ell)), y+r, ell, rows[r][0].textID, kindText)
-		}
-	}
-}
-
-// writeCentred writes rs centred in [x0, x0+n) on row y, clipped to n.
-func writeCentred(s *chartSurface, x0, n, y int, rs []rune, id uint8, ascii bool) {
-	rs = clipRunes(rs, n, ascii)
-	s.write(x0+(n-len(rs))/2, y, rs, id, kindText)
 }

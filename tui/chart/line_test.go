@@ -1,4 +1,4 @@
-package tui
+package chart
 
 import (
 	"iter"
@@ -8,25 +8,27 @@ import (
 	"strings"
 	"testing"
 
-	"cloudwind/internal/quantity"
-
 	"github.com/NimbleMarkets/ntcharts/canvas"
 	"github.com/NimbleMarkets/ntcharts/canvas/graph"
 	"github.com/charmbracelet/lipgloss"
 	"github.com/muesli/termenv"
+
+	"cloudwind/internal/chartspec"
+	"cloudwind/internal/quantity"
+	"cloudwind/tui/internal/golden"
 )
 
 func TestChartGolden(t *testing.T) {
 	sts := chartTestStyles()
-	charts := map[string]*LineChart{"threshold": synthThresholdChart(200), "cooling": synthCoolingChart()}
+	charts := map[string]*chartspec.LineChart{"threshold": synthThresholdChart(200), "cooling": synthCoolingChart()}
 	for name, c := range charts {
 		for _, sz := range [][2]int{{80, 24}, {120, 40}} {
 			for _, mode := range []string{"plain", "ascii", "braille"} {
 				sub := name + "_" + mode + "_" + strconv.Itoa(sz[0]) + "x" + strconv.Itoa(sz[1])
 				t.Run(sub, func(t *testing.T) {
-					out := RenderLineChart(c, sz[0], sz[1], sts[mode])
+					out := RenderLine(c, sz[0], sz[1], sts[mode])
 					checkChartBlock(t, sub, out, sz[0], sz[1])
-					checkChartGolden(t, "TestChartGolden", sub, out)
+					golden.Check(t, "TestChartGolden", sub, out)
 				})
 			}
 		}
@@ -34,19 +36,19 @@ func TestChartGolden(t *testing.T) {
 }
 
 // degenerateLineCharts returns charts that must render without panicking.
-func degenerateLineCharts() map[string]*LineChart {
+func degenerateLineCharts() map[string]*chartspec.LineChart {
 	nan := math.NaN()
-	return map[string]*LineChart{
+	return map[string]*chartspec.LineChart{
 		"threshold": synthThresholdChart(50),
 		"nil":       nil,
 		"empty":     {},
-		"noseries":  {X: Axis{Label: "x", Min: 0, Max: 1}, Y: Axis{Label: "y", Min: 0, Max: 1}, Title: "t", Note: "n"},
-		"minmax":    {X: Axis{Min: 2, Max: 2, Log: true}, Y: Axis{Min: -1, Max: -1}, Series: []Series{{Name: "s", X: []float64{2}, Y: []float64{-1}}}},
-		"nanrange":  {X: Axis{Min: nan, Max: nan}, Y: Axis{Min: math.Inf(-1), Max: math.Inf(1)}, Series: []Series{{Name: "s", X: []float64{1, 2}, Y: []float64{3, 4}}}},
-		"allnan":    {X: Axis{Min: nan, Max: nan}, Y: Axis{Min: nan, Max: nan}, Series: []Series{{Name: "s", X: []float64{nan, nan}, Y: []float64{nan, math.Inf(1)}}}},
-		"single":    {Series: []Series{{Name: "p", X: []float64{1}, Y: []float64{2}}}},
-		"reversed":  {X: Axis{Min: 5, Max: -5}, Y: Axis{Min: 1e300, Max: -1e300}, Series: []Series{{X: []float64{-1e308, 1e308}, Y: []float64{0, 1}}}, Markers: []Marker{{Kind: Point, X: 0, Y: 0, Label: "p"}}},
-		"ragged":    {X: Axis{Min: 0, Max: 1}, Y: Axis{Min: 0, Max: 1}, Series: []Series{{Name: strings.Repeat("long ", 40), X: []float64{0, 1, 2}, Y: []float64{0}, Index: -3, Dashed: true}}},
+		"noseries":  {X: chartspec.Axis{Label: "x", Min: 0, Max: 1}, Y: chartspec.Axis{Label: "y", Min: 0, Max: 1}, Title: "t", Note: "n"},
+		"minmax":    {X: chartspec.Axis{Min: 2, Max: 2, Log: true}, Y: chartspec.Axis{Min: -1, Max: -1}, Series: []chartspec.Series{{Name: "s", X: []float64{2}, Y: []float64{-1}}}},
+		"nanrange":  {X: chartspec.Axis{Min: nan, Max: nan}, Y: chartspec.Axis{Min: math.Inf(-1), Max: math.Inf(1)}, Series: []chartspec.Series{{Name: "s", X: []float64{1, 2}, Y: []float64{3, 4}}}},
+		"allnan":    {X: chartspec.Axis{Min: nan, Max: nan}, Y: chartspec.Axis{Min: nan, Max: nan}, Series: []chartspec.Series{{Name: "s", X: []float64{nan, nan}, Y: []float64{nan, math.Inf(1)}}}},
+		"single":    {Series: []chartspec.Series{{Name: "p", X: []float64{1}, Y: []float64{2}}}},
+		"reversed":  {X: chartspec.Axis{Min: 5, Max: -5}, Y: chartspec.Axis{Min: 1e300, Max: -1e300}, Series: []chartspec.Series{{X: []float64{-1e308, 1e308}, Y: []float64{0, 1}}}, Markers: []chartspec.Marker{{Kind: chartspec.Point, X: 0, Y: 0, Label: "p"}}},
+		"ragged":    {X: chartspec.Axis{Min: 0, Max: 1}, Y: chartspec.Axis{Min: 0, Max: 1}, Series: []chartspec.Series{{Name: strings.Repeat("long ", 40), X: []float64{0, 1, 2}, Y: []float64{0}, Index: -3, Dashed: true}}},
 	}
 }
 
@@ -55,37 +57,37 @@ func TestChartEverySize(t *testing.T) {
 		for mode, st := range chartTestStyles() {
 			for w := 0; w <= 60; w++ {
 				for h := 0; h <= 20; h++ {
-					checkChartBlock(t, name+"/"+mode, RenderLineChart(c, w, h, st), w, h)
+					checkChartBlock(t, name+"/"+mode, RenderLine(c, w, h, st), w, h)
 				}
 			}
 			for _, sz := range [][2]int{{300, 100}, {300, 6}, {20, 100}, {61, 21}} {
-				checkChartBlock(t, name+"/"+mode, RenderLineChart(c, sz[0], sz[1], st), sz[0], sz[1])
+				checkChartBlock(t, name+"/"+mode, RenderLine(c, sz[0], sz[1], st), sz[0], sz[1])
 			}
 		}
 	}
-	checkChartBlock(t, "nil styles", RenderLineChart(synthThresholdChart(10), 80, 24, nil), 80, 24)
+	checkChartBlock(t, "nil styles", RenderLine(synthThresholdChart(10), 80, 24, nil), 80, 24)
 }
 
 func TestChartTooSmall(t *testing.T) {
 	st := chartTestStyles()["plain"]
-	if out := RenderLineChart(synthThresholdChart(10), 19, 6, st); !strings.Contains(out, "too small") {
-		t.Errorf("RenderLineChart at 19×6 = %q, want a \"too small\" note", out)
+	if out := RenderLine(synthThresholdChart(10), 19, 6, st); !strings.Contains(out, "too small") {
+		t.Errorf("RenderLine at 19×6 = %q, want a \"too small\" note", out)
 	}
-	if out := RenderLineChart(synthThresholdChart(10), 8, 3, st); strings.TrimSpace(out) != "" {
-		t.Errorf("RenderLineChart at 8×3 = %q, want blank", out)
+	if out := RenderLine(synthThresholdChart(10), 8, 3, st); strings.TrimSpace(out) != "" {
+		t.Errorf("RenderLine at 8×3 = %q, want blank", out)
 	}
 }
 
 func TestChartPointLandsInCell(t *testing.T) {
 	nan := math.NaN()
-	c := &LineChart{
-		X:      Axis{Label: "x", Min: 0, Max: 10},
-		Y:      Axis{Label: "y", Min: 0, Max: 10},
-		Series: []Series{{Name: "pts", X: []float64{0, nan, 10, nan, 5}, Y: []float64{0, nan, 10, nan, 5}}},
+	c := &chartspec.LineChart{
+		X:      chartspec.Axis{Label: "x", Min: 0, Max: 10},
+		Y:      chartspec.Axis{Label: "y", Min: 0, Max: 10},
+		Series: []chartspec.Series{{Name: "pts", X: []float64{0, nan, 10, nan, 5}, Y: []float64{0, nan, 10, nan, 5}}},
 	}
 	for _, mode := range []string{"plain", "ascii"} {
 		st := chartTestStyles()[mode]
-		g := chartGrid(RenderLineChart(c, 60, 20, st))
+		g := chartGrid(RenderLine(c, 60, 20, st))
 		x0, top, pw, ph := chartPlotRect(t, g, st.ASCII)
 		glyph := st.Glyph(0)
 		// The point mapping is the one of ntcharts' BrailleGrid with one
@@ -109,12 +111,12 @@ func TestChartPointLandsInCell(t *testing.T) {
 
 func TestChartOutsideRangeDrawsNothing(t *testing.T) {
 	st := chartTestStyles()["plain"]
-	c := &LineChart{
-		X:      Axis{Label: "x", Min: 0, Max: 1},
-		Y:      Axis{Label: "y", Min: 0, Max: 1},
-		Series: []Series{{Name: "away", Index: 0, X: []float64{2, 3, 4}, Y: []float64{0.5, 0.5, 0.5}}},
+	c := &chartspec.LineChart{
+		X:      chartspec.Axis{Label: "x", Min: 0, Max: 1},
+		Y:      chartspec.Axis{Label: "y", Min: 0, Max: 1},
+		Series: []chartspec.Series{{Name: "away", Index: 0, X: []float64{2, 3, 4}, Y: []float64{0.5, 0.5, 0.5}}},
 	}
-	out := RenderLineChart(c, 60, 16, st)
+	out := RenderLine(c, 60, 16, st)
 	g := chartGrid(out)
 	x0, top, pw, ph := chartPlotRect(t, g, false)
 	for y := top; y < top+ph; y++ {
@@ -130,16 +132,16 @@ func TestChartOutsideRangeDrawsNothing(t *testing.T) {
 func TestChartClipsToPlot(t *testing.T) {
 	// A line from inside to far outside, and one crossing the plot
 	// through two edges, in both modes: nothing may land outside the plot.
-	c := &LineChart{
-		X: Axis{Label: "x", Min: 0, Max: 1},
-		Y: Axis{Label: "y", Min: 0, Max: 1},
-		Series: []Series{
+	c := &chartspec.LineChart{
+		X: chartspec.Axis{Label: "x", Min: 0, Max: 1},
+		Y: chartspec.Axis{Label: "y", Min: 0, Max: 1},
+		Series: []chartspec.Series{
 			{Name: "out", Index: 0, X: []float64{0.5, 1e9}, Y: []float64{0.5, -3e9}},
 			{Name: "through", Index: 1, X: []float64{-1, 2}, Y: []float64{-0.5, 1.5}},
 		},
 	}
 	for mode, st := range chartTestStyles() {
-		out := RenderLineChart(c, 50, 14, st)
+		out := RenderLine(c, 50, 14, st)
 		g := chartGrid(out)
 		x0, top, pw, ph := chartPlotRect(t, g, st.ASCII)
 		for y := range g {
@@ -160,12 +162,12 @@ func TestChartClipsToPlot(t *testing.T) {
 
 func TestChartNaNBreaksLine(t *testing.T) {
 	st := chartTestStyles()["plain"]
-	c := &LineChart{
-		X:      Axis{Label: "x", Min: 0, Max: 4},
-		Y:      Axis{Label: "y", Min: 0, Max: 4},
-		Series: []Series{{Name: "s", X: []float64{0, 1, 2, 3, 4}, Y: []float64{0, 1, math.NaN(), 3, 4}}},
+	c := &chartspec.LineChart{
+		X:      chartspec.Axis{Label: "x", Min: 0, Max: 4},
+		Y:      chartspec.Axis{Label: "y", Min: 0, Max: 4},
+		Series: []chartspec.Series{{Name: "s", X: []float64{0, 1, 2, 3, 4}, Y: []float64{0, 1, math.NaN(), 3, 4}}},
 	}
-	g := chartGrid(RenderLineChart(c, 70, 20, st))
+	g := chartGrid(RenderLine(c, 70, 20, st))
 	x0, top, pw, ph := chartPlotRect(t, g, false)
 	col := func(v float64) int { return x0 + int(math.Round(v*float64(pw-1)/4)) }
 	for x := col(1) + 1; x < col(3); x++ {
@@ -181,7 +183,7 @@ func TestChartLegendAndSanitize(t *testing.T) {
 	c := synthThresholdChart(20)
 	c.Series[0].Name = "evil\x1b[2Jname"
 	for mode, st := range chartTestStyles() {
-		out := RenderLineChart(c, 120, 40, st)
+		out := RenderLine(c, 120, 40, st)
 		if strings.Contains(out, "\x1b[2J") {
 			t.Errorf("%s: an escape sequence from a series name reached the output", mode)
 		}
@@ -196,7 +198,7 @@ func TestChartLegendAndSanitize(t *testing.T) {
 
 func TestChartBrailleTagsCurves(t *testing.T) {
 	st := chartTestStyles()["braille"]
-	out := chartANSISeq.ReplaceAllString(RenderLineChart(synthThresholdChart(100), 100, 30, st), "")
+	out := golden.SGR.ReplaceAllString(RenderLine(synthThresholdChart(100), 100, 30, st), "")
 	g := chartGrid(out)
 	x0, top, pw, ph := chartPlotRect(t, g, false)
 	var plot strings.Builder
@@ -232,9 +234,9 @@ func TestChartTickUnderMarker(t *testing.T) {
 	// A VLine at a decade sits in the column of that decade's tick mark,
 	// and the decade's label is centred there.
 	c := synthThresholdChart(10)
-	c.Markers = []Marker{{Kind: VLine, X: 2}}
+	c.Markers = []chartspec.Marker{{Kind: chartspec.VLine, X: 2}}
 	for mode, st := range chartTestStyles() {
-		g := chartGrid(RenderLineChart(c, 80, 24, st))
+		g := chartGrid(RenderLine(c, 80, 24, st))
 		x0, top, _, ph := chartPlotRect(t, g, st.ASCII)
 		x := -1
 		for i, r := range g[top] {
@@ -258,8 +260,8 @@ func TestChartTickUnderMarker(t *testing.T) {
 func TestChartMarkers(t *testing.T) {
 	st := chartTestStyles()["ascii"]
 	c := synthCoolingChart()
-	c.Markers = append(c.Markers, Marker{Kind: Point, X: 5.35, Y: -21.7, Label: "peak"})
-	out := RenderLineChart(c, 100, 30, st)
+	c.Markers = append(c.Markers, chartspec.Marker{Kind: chartspec.Point, X: 5.35, Y: -21.7, Label: "peak"})
+	out := RenderLine(c, 100, 30, st)
 	if !strings.ContainsRune(out, pointRuneASCII) {
 		t.Errorf("cooling chart lacks the point marker %q:\n%s", pointRuneASCII, out)
 	}
@@ -273,9 +275,9 @@ func TestChartMarkers(t *testing.T) {
 func TestChartDashedIsSparser(t *testing.T) {
 	st := chartTestStyles()["plain"]
 	count := func(dashed bool) int {
-		c := &LineChart{X: Axis{Min: 0, Max: 1}, Y: Axis{Min: 0, Max: 1},
-			Series: []Series{{X: []float64{0, 1}, Y: []float64{0.5, 0.5}, Dashed: dashed}}}
-		return strings.Count(RenderLineChart(c, 60, 12, st), string(st.Glyph(0)))
+		c := &chartspec.LineChart{X: chartspec.Axis{Min: 0, Max: 1}, Y: chartspec.Axis{Min: 0, Max: 1},
+			Series: []chartspec.Series{{X: []float64{0, 1}, Y: []float64{0.5, 0.5}, Dashed: dashed}}}
+		return strings.Count(RenderLine(c, 60, 12, st), string(st.Glyph(0)))
 	}
 	solid, dashed := count(false), count(true)
 	if dashed < solid/3 || dashed > 2*solid/3 {
@@ -306,7 +308,7 @@ func TestClipSegment(t *testing.T) {
 }
 
 // firstTickSet returns the i-th set a tick-set sequence yields.
-func firstTickSet(sets iter.Seq[[]chartTick], i int) []chartTick {
+func firstTickSet(sets iter.Seq[[]tick], i int) []tick {
 	for set := range sets {
 		if i == 0 {
 			return set
@@ -317,7 +319,7 @@ func firstTickSet(sets iter.Seq[[]chartTick], i int) []chartTick {
 }
 
 func TestTickSets(t *testing.T) {
-	labels := func(ts []chartTick) string {
+	labels := func(ts []tick) string {
 		var out []string
 		for _, tk := range ts {
 			out = append(out, string(tk.label))
@@ -340,7 +342,7 @@ func TestTickSets(t *testing.T) {
 			t.Errorf("crowded labels %q and %q overlap", string(pts[i-1].label), string(pts[i].label))
 		}
 	}
-	if got := labels(pickTicks(tickSets(0, 1, false, 20), func(ts []chartTick) bool { return len(ts) <= 6 })); got != "0 0.2 0.4 0.6 0.8 1" {
+	if got := labels(pickTicks(tickSets(0, 1, false, 20), func(ts []tick) bool { return len(ts) <= 6 })); got != "0 0.2 0.4 0.6 0.8 1" {
 		t.Errorf("linear ticks of [0, 1] = %q", got)
 	}
 }
@@ -350,25 +352,21 @@ func TestChartANSIWidth(t *testing.T) {
 	// global state changes) must not change the measured width.
 	r := lipgloss.NewRenderer(os.Stdout)
 	r.SetColorProfile(termenv.ANSI256)
-	st := NewStyles(DarkPalette(), true, false)
-	for i := range st.Series {
-		st.Series[i] = r.NewStyle().Foreground(DarkPalette().Series[i])
-	}
-	st.AxisLabel = r.NewStyle().Foreground(lipgloss.Color("245"))
-	out := RenderLineChart(synthThresholdChart(200), 80, 24, &st)
+	st := colourStyles(r.NewStyle)
+	out := RenderLine(synthThresholdChart(200), 80, 24, &st)
 	if !strings.Contains(out, "\x1b[") {
 		t.Fatalf("no escape sequences in coloured output")
 	}
 	checkChartBlock(t, "coloured", out, 80, 24)
 }
 
-func BenchmarkRenderLineChart(b *testing.B) {
+func BenchmarkRenderLine(b *testing.B) {
 	c := synthThresholdChart(200)
 	for mode, st := range chartTestStyles() {
 		b.Run(mode, func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
-				RenderLineChart(c, 80, 20, st)
+				RenderLine(c, 80, 20, st)
 			}
 		})
 	}

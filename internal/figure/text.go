@@ -1,4 +1,4 @@
-package tui
+package figure
 
 import (
 	"slices"
@@ -10,9 +10,9 @@ import (
 // Text of exported figures: the embedded fonts of gonum/plot lack Greek
 // letters, superscripts and other symbols, so labels are spelt in ASCII.
 
-// figASCII spells in ASCII the characters of cloudwind's labels that the
+// asciiSpelling spells in ASCII the characters of cloudwind's labels that the
 // fonts embedded in gonum/plot cannot draw, or that are clearer spelt out.
-var figASCII = map[rune]string{
+var asciiSpelling = map[rune]string{
 	'χ': "chi", 'Λ': "Lambda", 'λ': "lambda", 'μ': "mu", 'γ': "gamma", 'α': "alpha", 'β': "beta",
 	'τ': "tau", 'ρ': "rho", 'σ': "sigma", 'Δ': "Delta", 'δ': "delta", 'π': "pi", 'θ': "theta",
 	'ν': "nu", 'ε': "eps", 'η': "eta", 'κ': "kappa", 'ω': "omega", 'φ': "phi", 'ξ': "xi",
@@ -21,9 +21,9 @@ var figASCII = map[rune]string{
 	'→': "->", '‘': "'", '’': "'", '“': `"`, '”': `"`, '\u00a0': " ", 'é': "e", 'è': "e", 'ö': "o", 'ü': "u",
 }
 
-// figScriptChar returns the ASCII character of a superscript (kind 1) or
+// scriptChar returns the ASCII character of a superscript (kind 1) or
 // subscript (kind 2) digit or sign, or kind 0 for any other rune.
-func figScriptChar(r rune) (byte, int) {
+func scriptChar(r rune) (byte, int) {
 	for kind, set := range [...]string{"⁰¹²³⁴⁵⁶⁷⁸⁹⁺⁻", "₀₁₂₃₄₅₆₇₈₉₊₋"} {
 		if i := slices.Index([]rune(set), r); i >= 0 {
 			return "0123456789+-"[i], kind + 1
@@ -32,15 +32,15 @@ func figScriptChar(r rune) (byte, int) {
 	return 0, 0
 }
 
-// figText returns s in ASCII for the figure fonts: control characters
+// asciiText returns s in ASCII for the figure fonts: control characters
 // removed (Sanitize), a run of superscripts written "^-3", of subscripts
-// "_2", the characters of figASCII spelt out (χ → chi, ☉ → sun), and any
+// "_2", the characters of asciiSpelling spelt out (χ → chi, ☉ → sun), and any
 // other non-ASCII rune replaced by '?'.
-func figText(s string) string {
+func asciiText(s string) string {
 	var b strings.Builder
 	run := 0
 	for _, r := range quantity.Sanitize(s) {
-		if c, kind := figScriptChar(r); kind != 0 {
+		if c, kind := scriptChar(r); kind != 0 {
 			if kind != run {
 				b.WriteString([...]string{"", "^", "_"}[kind])
 			}
@@ -49,7 +49,7 @@ func figText(s string) string {
 			continue
 		}
 		run = 0
-		if name, ok := figASCII[r]; ok {
+		if name, ok := asciiSpelling[r]; ok {
 			b.WriteString(name)
 		} else if r < 0x80 {
 			b.WriteRune(r)

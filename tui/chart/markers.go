@@ -1,12 +1,16 @@
-package tui
+package chart
 
-import "github.com/NimbleMarkets/ntcharts/canvas"
+import (
+	"github.com/NimbleMarkets/ntcharts/canvas"
+
+	"cloudwind/internal/chartspec"
+)
 
 // Markers of a line chart: dotted lines under the series, point glyphs
 // over them, and labels placed where they cover the least.
 
 // markerStyleID returns the style of a marker: warning or dim.
-func (lc *lineRender) markerStyleID(m *Marker) uint8 {
+func (lc *lineRender) markerStyleID(m *chartspec.Marker) uint8 {
 	if m.Warn {
 		return lc.warnID
 	}
@@ -15,23 +19,23 @@ func (lc *lineRender) markerStyleID(m *Marker) uint8 {
 
 // drawMarkerLine draws a VLine or HLine marker as a dotted line across
 // the plot, under the series.
-func (lc *lineRender) drawMarkerLine(m *Marker) {
+func (lc *lineRender) drawMarkerLine(m *chartspec.Marker) {
 	id := lc.markerStyleID(m)
 	switch {
-	case m.Kind == VLine && isFiniteValue(m.X) && lc.xs.contains(m.X):
+	case m.Kind == chartspec.VLine && isFiniteValue(m.X) && lc.xs.contains(m.X):
 		x := lc.col(m.X)
 		for y := lc.f.top; y < lc.f.top+lc.f.ph; y++ {
 			lc.s.put(x, y, vlineRune, id, kindGuide)
 		}
 		lc.drawn = true
-	case m.Kind == HLine && isFiniteValue(m.Y) && lc.ys.contains(m.Y):
+	case m.Kind == chartspec.HLine && isFiniteValue(m.Y) && lc.ys.contains(m.Y):
 		y, r := lc.row(m.Y), hlineRune
 		if lc.st.ASCII {
 			r = hlineRuneASCII
 		}
 		for x := lc.x0; x < lc.x0+lc.pw; x++ {
 			if c := lc.s.at(x, y); c.kind == kindNone {
-				*c = chartCell{r: r, s: id, kind: kindGuide}
+				*c = cell{r: r, s: id, kind: kindGuide}
 			}
 		}
 		lc.drawn = true
@@ -39,12 +43,12 @@ func (lc *lineRender) drawMarkerLine(m *Marker) {
 }
 
 // pointVisible reports whether a Point marker lies in the plot range.
-func (lc *lineRender) pointVisible(m *Marker) bool {
-	return m.Kind == Point && isFiniteValue(m.X) && isFiniteValue(m.Y) && lc.xs.contains(m.X) && lc.ys.contains(m.Y)
+func (lc *lineRender) pointVisible(m *chartspec.Marker) bool {
+	return m.Kind == chartspec.Point && isFiniteValue(m.X) && isFiniteValue(m.Y) && lc.xs.contains(m.X) && lc.ys.contains(m.Y)
 }
 
 // drawMarkerPoint draws a Point marker's glyph over the series.
-func (lc *lineRender) drawMarkerPoint(m *Marker) {
+func (lc *lineRender) drawMarkerPoint(m *chartspec.Marker) {
 	if !lc.pointVisible(m) {
 		return
 	}
@@ -59,7 +63,7 @@ func (lc *lineRender) drawMarkerPoint(m *Marker) {
 // labelMarker writes a marker's label beside it where it covers the
 // fewest curve cells, never over another label; a Warn label starts
 // with "!" so that the warning survives without colour.
-func (lc *lineRender) labelMarker(m *Marker) {
+func (lc *lineRender) labelMarker(m *chartspec.Marker) {
 	text := textRunes(m.Label)
 	if len(text) == 0 {
 		return
@@ -71,12 +75,12 @@ func (lc *lineRender) labelMarker(m *Marker) {
 	n, top, bottom, right := len(text), lc.f.top, lc.f.top+lc.f.ph-1, lc.x0+lc.pw
 	var cands []canvas.Point
 	switch {
-	case m.Kind == VLine && isFiniteValue(m.X) && lc.xs.contains(m.X):
+	case m.Kind == chartspec.VLine && isFiniteValue(m.X) && lc.xs.contains(m.X):
 		x := lc.col(m.X)
 		for y := top; y <= bottom; y++ {
 			cands = append(cands, canvas.Point{X: x + 1, Y: y}, canvas.Point{X: x - n, Y: y})
 		}
-	case m.Kind == HLine && isFiniteValue(m.Y) && lc.ys.contains(m.Y):
+	case m.Kind == chartspec.HLine && isFiniteValue(m.Y) && lc.ys.contains(m.Y):
 		y := lc.row(m.Y)
 		for x := right - n; x >= lc.x0; x-- {
 			cands = append(cands, canvas.Point{X: x, Y: y - 1}, canvas.Point{X: x, Y: y + 1})

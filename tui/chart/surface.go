@@ -1,4 +1,4 @@
-package tui
+package chart
 
 import (
 	"math"
@@ -10,19 +10,19 @@ import (
 	"github.com/charmbracelet/lipgloss"
 )
 
-// A chartSurface is the cell grid the chart renderers draw on: one rune, one
+// A surface is the cell grid the chart renderers draw on: one rune, one
 // style and one occupancy kind per terminal cell. It plays the part of
 // ntcharts' canvas.Model, whose 560-byte cells and per-cell Render calls
 // cost about 2 ms per frame at 120×40 (measured), and it renders runs of
 // equally styled cells with one escape sequence each.
-type chartSurface struct {
+type surface struct {
 	w, h   int
-	cells  []chartCell
+	cells  []cell
 	styles []lipgloss.Style // by style id; id 0 is unstyled
 }
 
-// A chartCell is one terminal cell of a surface.
-type chartCell struct {
+// A cell is one terminal cell of a surface.
+type cell struct {
 	r    rune  // the glyph; 0 is blank
 	s    uint8 // style id, an index into surface.styles
 	kind uint8 // what occupies the cell, used to place labels
@@ -37,14 +37,14 @@ const (
 )
 
 // newSurface returns a blank w×h surface (w, h ≥ 0).
-func newSurface(w, h int) *chartSurface {
+func newSurface(w, h int) *surface {
 	w, h = max(w, 0), max(h, 0)
-	return &chartSurface{w: w, h: h, cells: make([]chartCell, w*h), styles: []lipgloss.Style{{}}}
+	return &surface{w: w, h: h, cells: make([]cell, w*h), styles: []lipgloss.Style{{}}}
 }
 
 // addStyle registers st and returns its id (0, unstyled, once 255 styles
 // are registered).
-func (s *chartSurface) addStyle(st lipgloss.Style) uint8 {
+func (s *surface) addStyle(st lipgloss.Style) uint8 {
 	if len(s.styles) >= 255 {
 		return 0
 	}
@@ -53,7 +53,7 @@ func (s *chartSurface) addStyle(st lipgloss.Style) uint8 {
 }
 
 // at returns the cell at column x, row y, or nil outside the surface.
-func (s *chartSurface) at(x, y int) *chartCell {
+func (s *surface) at(x, y int) *cell {
 	if x < 0 || y < 0 || x >= s.w || y >= s.h {
 		return nil
 	}
@@ -61,14 +61,14 @@ func (s *chartSurface) at(x, y int) *chartCell {
 }
 
 // put sets the cell at (x, y); positions outside the surface are ignored.
-func (s *chartSurface) put(x, y int, r rune, id, kind uint8) {
+func (s *surface) put(x, y int, r rune, id, kind uint8) {
 	if c := s.at(x, y); c != nil {
-		*c = chartCell{r: r, s: id, kind: kind}
+		*c = cell{r: r, s: id, kind: kind}
 	}
 }
 
 // write puts rs from (x, y) rightwards, clipped to the surface.
-func (s *chartSurface) write(x, y int, rs []rune, id, kind uint8) {
+func (s *surface) write(x, y int, rs []rune, id, kind uint8) {
 	for i, r := range rs {
 		s.put(x+i, y, r, id, kind)
 	}
@@ -76,7 +76,7 @@ func (s *chartSurface) write(x, y int, rs []rune, id, kind uint8) {
 
 // String renders the surface: exactly h lines of exactly w cells joined
 // by "\n", each run of equally styled cells wrapped in its style once.
-func (s *chartSurface) String() string {
+func (s *surface) String() string {
 	if s.h == 0 {
 		return ""
 	}
@@ -151,11 +151,6 @@ func clipRunes(rs []rune, n int, ascii bool) []rune {
 	return append(out, ell)
 }
 
-// blankBlock returns h lines of w spaces (nothing for h ≤ 0).
-func blankBlock(w, h int) string {
-	return newSurface(w, h).String()
-}
-
 // tooSmallBlock returns a w×h block holding the note "too small", or a
 // blank block when even that does not fit.
 func tooSmallBlock(w, h int, st *Styles) string {
@@ -167,27 +162,13 @@ func tooSmallBlock(w, h int, st *Styles) string {
 	return s.String()
 }
 
-// stylesOrDefault returns st, or colourless Unicode styles when st is nil.
+// stylesOrDefault returns st, or DefaultStyles when st is nil.
 func stylesOrDefault(st *Styles) *Styles {
 	if st != nil {
 		return st
 	}
-	d := NewStyles(DarkPalette(), false, false)
+	d := DefaultStyles()
 	return &d
-}
-
-// seriesGlyph returns the glyph of curve i, tolerating styles without
-// glyphs; negative indices count as 0.
-func seriesGlyph(st *Styles, i int) rune {
-	if len(st.SeriesGlyph) == 0 {
-		return '*'
-	}
-	return st.Glyph(max(i, 0))
-}
-
-// seriesStyle returns the style of curve i; negative indices count as 0.
-func seriesStyle(st *Styles, i int) lipgloss.Style {
-	return st.SeriesStyle(max(i, 0))
 }
 
 // isFiniteValue reports whether v is neither NaN nor ±Inf.

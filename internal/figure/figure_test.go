@@ -1,4 +1,4 @@
-package tui
+package figure
 
 import (
 	"encoding/xml"
@@ -11,47 +11,49 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"cloudwind/internal/chartspec"
 )
 
-// Expected values in this file are rules of export.go (file formats, the
+// Expected values in this file are rules of this package (file formats, the
 // 6 × 4 in size at 300 dpi, the ASCII spelling of labels) unless a comment
 // names another source. The charts are synthetic: their numbers mean
 // nothing.
 
 // testLineChart returns a chart that uses every feature: log axes, Unicode
 // labels, a series broken by NaN, a dashed series, markers of each kind.
-func testLineChart() *LineChart {
+func testLineChart() *chartspec.LineChart {
 	xs := []float64{0, 0.5, 1, 1.5, 2, 2.5, 3}
-	return &LineChart{
+	return &chartspec.LineChart{
 		Title: "r_crit vs χ (P/k_B = 10³ K cm⁻³)",
-		X:     Axis{Label: "χ", Log: true, Min: 0, Max: 3},
-		Y:     Axis{Label: "r_crit (pc)", Log: true, Min: -2, Max: 2},
-		Series: []Series{
+		X:     chartspec.Axis{Label: "χ", Log: true, Min: 0, Max: 3},
+		Y:     chartspec.Axis{Label: "r_crit (pc)", Log: true, Min: -2, Max: 2},
+		Series: []chartspec.Series{
 			{Name: "Gronke & Oh 2018", X: xs, Y: []float64{-1, -0.5, 0, 0.5, 1, 1.5, 2.5}, Index: 0},
 			{Name: "Λ-weighted μ M☉", X: xs, Y: []float64{1, math.NaN(), 0, math.Inf(1), -1, -1.5, -2}, Index: 1},
 			{Name: "pinned A", X: xs, Y: []float64{0, 0, 0, 0, 0, 0, 0}, Index: 1, Dashed: true},
 			{Name: "beyond the float range", X: []float64{0, 1}, Y: []float64{400, -400}, Index: 9},
 		},
-		Markers: []Marker{
-			{Kind: VLine, X: 2, Label: "χ = 100"},
-			{Kind: HLine, Y: 0, Label: "r_cl = 1 pc"},
-			{Kind: Point, X: 1, Y: 1, Label: "now", Warn: true},
-			{Kind: VLine, X: 7, Label: "off the chart"},
+		Markers: []chartspec.Marker{
+			{Kind: chartspec.VLine, X: 2, Label: "χ = 100"},
+			{Kind: chartspec.HLine, Y: 0, Label: "r_cl = 1 pc"},
+			{Kind: chartspec.Point, X: 1, Y: 1, Label: "now", Warn: true},
+			{Kind: chartspec.VLine, X: 7, Label: "off the chart"},
 		},
 		Note: "T_mix outside the cooling table — caution",
 	}
 }
 
 // testRegimeMap returns a 4×3 map over log axes with a marked point.
-func testRegimeMap() *RegimeMap {
-	return &RegimeMap{
+func testRegimeMap() *chartspec.RegimeMap {
+	return &chartspec.RegimeMap{
 		Title: "Regime map",
-		X:     Axis{Label: "χ", Log: true, Min: 1, Max: 3},
-		Y:     Axis{Label: "r_cl (pc)", Log: true, Min: -1, Max: 2},
+		X:     chartspec.Axis{Label: "χ", Log: true, Min: 1, Max: 3},
+		Y:     chartspec.Axis{Label: "r_cl (pc)", Log: true, Min: -1, Max: 2},
 		NX:    4, NY: 3,
 		Counts: []int{0, 1, 2, 3, 1, 2, 3, 4, 2, 3, 5, 6},
 		Total:  6,
-		Mark:   &Marker{Kind: Point, X: 2, Y: 0.5, Label: "current"},
+		Mark:   &chartspec.Marker{Kind: chartspec.Point, X: 2, Y: 0.5, Label: "current"},
 		Note:   "6 criteria",
 	}
 }
@@ -107,12 +109,12 @@ func checkPNG(t *testing.T, path string) {
 	}
 }
 
-func TestExportLineChart(t *testing.T) {
+func TestWriteLineChart(t *testing.T) {
 	dir := t.TempDir()
 	svg, pngPath := filepath.Join(dir, "chart.svg"), filepath.Join(dir, "chart.PNG")
 	for _, p := range []string{svg, pngPath} {
-		if err := ExportLineChart(testLineChart(), p); err != nil {
-			t.Fatalf("ExportLineChart(%s): %v", p, err)
+		if err := WriteLineChart(testLineChart(), p); err != nil {
+			t.Fatalf("WriteLineChart(%s): %v", p, err)
 		}
 	}
 	texts := svgTexts(t, svg)
@@ -143,12 +145,12 @@ func TestExportLineChart(t *testing.T) {
 	}
 }
 
-func TestExportRegimeMap(t *testing.T) {
+func TestWriteRegimeMap(t *testing.T) {
 	dir := t.TempDir()
 	svg, pngPath := filepath.Join(dir, "map.svg"), filepath.Join(dir, "map.png")
 	for _, p := range []string{svg, pngPath} {
-		if err := ExportRegimeMap(testRegimeMap(), p); err != nil {
-			t.Fatalf("ExportRegimeMap(%s): %v", p, err)
+		if err := WriteRegimeMap(testRegimeMap(), p); err != nil {
+			t.Fatalf("WriteRegimeMap(%s): %v", p, err)
 		}
 	}
 	texts := svgTexts(t, svg)
@@ -170,35 +172,35 @@ func TestExportRegimeMap(t *testing.T) {
 	checkPNG(t, pngPath)
 }
 
-func TestExportErrors(t *testing.T) {
+func TestWriteErrors(t *testing.T) {
 	dir := t.TempDir()
 	for _, name := range []string{"chart.pdf", "chart", "chart.svg.txt"} {
 		p := filepath.Join(dir, name)
-		err := ExportLineChart(testLineChart(), p)
-		if !errors.Is(err, ErrExportFormat) || !strings.Contains(err.Error(), p) {
-			t.Errorf("ExportLineChart(%s) = %v, want an ErrExportFormat error naming the path", name, err)
+		err := WriteLineChart(testLineChart(), p)
+		if !errors.Is(err, ErrFormat) || !strings.Contains(err.Error(), p) {
+			t.Errorf("WriteLineChart(%s) = %v, want an ErrFormat error naming the path", name, err)
 		}
 	}
-	bad := []*RegimeMap{
+	bad := []*chartspec.RegimeMap{
 		{NX: 2, NY: 2, Counts: []int{1, 2, 3}, Total: 3},
 		{NX: 2, NY: 1, Counts: []int{1, 2, 3}, Total: 3},
 		{NX: 0, NY: 0},
 		nil,
 	}
 	for i, m := range bad {
-		if err := ExportRegimeMap(m, filepath.Join(dir, "map.svg")); err == nil {
-			t.Errorf("ExportRegimeMap(bad map %d) = nil, want an error", i)
+		if err := WriteRegimeMap(m, filepath.Join(dir, "map.svg")); err == nil {
+			t.Errorf("WriteRegimeMap(bad map %d) = nil, want an error", i)
 		}
 	}
-	if err := ExportLineChart(nil, filepath.Join(dir, "x.svg")); err == nil {
-		t.Error("ExportLineChart(nil) = nil, want an error")
+	if err := WriteLineChart(nil, filepath.Join(dir, "x.svg")); err == nil {
+		t.Error("WriteLineChart(nil) = nil, want an error")
 	}
 	if entries, _ := os.ReadDir(dir); len(entries) != 0 {
 		t.Errorf("failed exports left %d files", len(entries))
 	}
 }
 
-func TestExportFailedWriteLeavesNoFile(t *testing.T) {
+func TestWriteFailedLeavesNoFile(t *testing.T) {
 	dir := t.TempDir()
 	// A directory in the way: the rename over it fails after the figure was
 	// written to a temporary file, which must then be removed.
@@ -209,45 +211,45 @@ func TestExportFailedWriteLeavesNoFile(t *testing.T) {
 	if err := os.WriteFile(filepath.Join(target, "keep"), nil, 0o644); err != nil {
 		t.Fatal(err)
 	}
-	err := ExportLineChart(testLineChart(), target)
+	err := WriteLineChart(testLineChart(), target)
 	if err == nil || !strings.Contains(err.Error(), target) {
-		t.Fatalf("ExportLineChart over a directory = %v, want an error naming %s", err, target)
+		t.Fatalf("WriteLineChart over a directory = %v, want an error naming %s", err, target)
 	}
 	if entries, _ := os.ReadDir(dir); len(entries) != 1 {
 		t.Errorf("directory holds %d entries after the failed export, want only the directory in the way", len(entries))
 	}
 	missing := filepath.Join(dir, "no-such-dir", "map.png")
-	if err := ExportRegimeMap(testRegimeMap(), missing); err == nil || !strings.Contains(err.Error(), missing) {
-		t.Errorf("ExportRegimeMap into a missing directory = %v, want an error naming %s", err, missing)
+	if err := WriteRegimeMap(testRegimeMap(), missing); err == nil || !strings.Contains(err.Error(), missing) {
+		t.Errorf("WriteRegimeMap into a missing directory = %v, want an error naming %s", err, missing)
 	}
 }
 
-func TestExportDegenerateCharts(t *testing.T) {
+func TestWriteDegenerateCharts(t *testing.T) {
 	// Charts with nothing drawable must still export, not panic.
 	dir := t.TempDir()
-	charts := []*LineChart{
+	charts := []*chartspec.LineChart{
 		{},
-		{X: Axis{Log: true, Min: 3, Max: 1}, Y: Axis{Log: true, Min: math.NaN(), Max: math.Inf(1)}},
-		{X: Axis{Log: true}, Y: Axis{Log: true}, Series: []Series{{Name: "one point", X: []float64{1}, Y: []float64{1}}}},
-		{X: Axis{Log: true, Min: -500, Max: 500}, Y: Axis{Min: 1, Max: 1},
-			Series: []Series{{X: []float64{-400, 0, 1}, Y: []float64{1, 1, 1, 1}}}, Markers: []Marker{{Kind: Point, X: math.NaN()}}},
+		{X: chartspec.Axis{Log: true, Min: 3, Max: 1}, Y: chartspec.Axis{Log: true, Min: math.NaN(), Max: math.Inf(1)}},
+		{X: chartspec.Axis{Log: true}, Y: chartspec.Axis{Log: true}, Series: []chartspec.Series{{Name: "one point", X: []float64{1}, Y: []float64{1}}}},
+		{X: chartspec.Axis{Log: true, Min: -500, Max: 500}, Y: chartspec.Axis{Min: 1, Max: 1},
+			Series: []chartspec.Series{{X: []float64{-400, 0, 1}, Y: []float64{1, 1, 1, 1}}}, Markers: []chartspec.Marker{{Kind: chartspec.Point, X: math.NaN()}}},
 	}
 	for i, c := range charts {
-		if err := ExportLineChart(c, filepath.Join(dir, "c.svg")); err != nil {
-			t.Errorf("ExportLineChart(degenerate chart %d) = %v, want nil", i, err)
+		if err := WriteLineChart(c, filepath.Join(dir, "c.svg")); err != nil {
+			t.Errorf("WriteLineChart(degenerate chart %d) = %v, want nil", i, err)
 		}
 	}
-	m := &RegimeMap{X: Axis{Log: true, Min: math.NaN()}, NX: 1, NY: 1, Counts: []int{0}}
-	if err := ExportRegimeMap(m, filepath.Join(dir, "m.svg")); err != nil {
-		t.Errorf("ExportRegimeMap(1 cell, no criteria) = %v, want nil", err)
+	m := &chartspec.RegimeMap{X: chartspec.Axis{Log: true, Min: math.NaN()}, NX: 1, NY: 1, Counts: []int{0}}
+	if err := WriteRegimeMap(m, filepath.Join(dir, "m.svg")); err != nil {
+		t.Errorf("WriteRegimeMap(1 cell, no criteria) = %v, want nil", err)
 	}
-	// Negative counts are cells without a valid state (chartspec.go), drawn
+	// Negative counts are cells without a valid state (chartspec.RegimeMap), drawn
 	// blank; a count above Total is drawn "?".
 	m = testRegimeMap()
 	m.Counts[0], m.Counts[11] = -1, 7
 	p := filepath.Join(dir, "holes.svg")
-	if err := ExportRegimeMap(m, p); err != nil {
-		t.Fatalf("ExportRegimeMap(map with blank cells) = %v, want nil", err)
+	if err := WriteRegimeMap(m, p); err != nil {
+		t.Fatalf("WriteRegimeMap(map with blank cells) = %v, want nil", err)
 	}
 	texts := svgTexts(t, p)
 	if !slices.Contains(texts, "no data") || !slices.Contains(texts, "?") || slices.Contains(texts, "-1") {
@@ -255,10 +257,10 @@ func TestExportDegenerateCharts(t *testing.T) {
 	}
 }
 
-func TestFigLogTicks(t *testing.T) {
+func TestLogTicks(t *testing.T) {
 	labels := func(lo, hi float64) []string {
 		var out []string
-		for _, tk := range figLogTicks(lo, hi) {
+		for _, tk := range logTicks(lo, hi) {
 			if tk.Label != "" && tk.Value >= lo && tk.Value <= hi {
 				out = append(out, tk.Label)
 			}
@@ -276,15 +278,15 @@ func TestFigLogTicks(t *testing.T) {
 	}
 	for _, c := range cases {
 		if got := labels(c.lo, c.hi); !slices.Equal(got, c.want) {
-			t.Errorf("figLogTicks(%g, %g) labels %q, want %q", c.lo, c.hi, got, c.want)
+			t.Errorf("logTicks(%g, %g) labels %q, want %q", c.lo, c.hi, got, c.want)
 		}
 	}
-	if got := figLogTicks(0, 1); got != nil {
-		t.Errorf("figLogTicks(0, 1) = %v, want nil (log axes need positive ranges)", got)
+	if got := logTicks(0, 1); got != nil {
+		t.Errorf("logTicks(0, 1) = %v, want nil (log axes need positive ranges)", got)
 	}
 }
 
-func TestFigText(t *testing.T) {
+func TestASCIIText(t *testing.T) {
 	cases := map[string]string{
 		"K cm⁻³":              "K cm^-3",
 		"χ":                   "chi",
@@ -303,13 +305,13 @@ func TestFigText(t *testing.T) {
 		"plain ASCII 1e-2":    "plain ASCII 1e-2",
 	}
 	for in, want := range cases {
-		if got := figText(in); got != want {
-			t.Errorf("figText(%q) = %q, want %q", in, got, want)
+		if got := asciiText(in); got != want {
+			t.Errorf("asciiText(%q) = %q, want %q", in, got, want)
 		}
 	}
-	for r := range figASCII {
-		if s := figText(string(r)); strings.ContainsFunc(s, func(r rune) bool { return r >= 0x80 }) {
-			t.Errorf("figText(%q) = %q is not ASCII", r, s)
+	for r := range asciiSpelling {
+		if s := asciiText(string(r)); strings.ContainsFunc(s, func(r rune) bool { return r >= 0x80 }) {
+			t.Errorf("asciiText(%q) = %q is not ASCII", r, s)
 		}
 	}
 }

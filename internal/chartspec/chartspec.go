@@ -1,14 +1,23 @@
-package tui
-
-// Chart data, independent of how it is drawn: the explorer's chart pane
-// renders it in the terminal (chart.go) and export writes it to SVG and PNG
-// (export.go). Coordinates on a log axis are log10 values.
+// Package chartspec builds the explorer's charts as data: curves, markers
+// and regime-map cells computed from cloudwind/model and cloudwind/cooling,
+// independent of how they are drawn. The explorer draws them in the
+// terminal (cloudwind/tui/chart) and exports them with gonum/plot
+// (cloudwind/internal/figure); a script can build the same figures from a
+// Request without the explorer.
+//
+// # Conventions
+//
+// Coordinates on a log axis are log10 values (log10 χ, log10 of r in pc,
+// log10 of T in K, log10 of Λ in erg cm³ s⁻¹). NaN or ±Inf in a series
+// breaks the curve: the builders never fail, and a point that cannot be
+// evaluated is NaN.
+package chartspec
 
 // A Series is one curve.
 type Series struct {
 	Name   string    // legend text
 	X, Y   []float64 // points, in axis units (log10 on log axes); NaN or ±Inf breaks the line
-	Index  int       // style and glyph index (criterion order), see Styles.SeriesStyle
+	Index  int       // style and glyph index (criterion order), see chart.Styles.SeriesStyle
 	Dashed bool      // drawn lighter/dotted: e.g. the pinned scenario A in compare mode
 }
 

@@ -1,4 +1,4 @@
-package tui
+package chart
 
 import (
 	"math"
@@ -6,6 +6,8 @@ import (
 	"github.com/NimbleMarkets/ntcharts/canvas"
 	"github.com/NimbleMarkets/ntcharts/canvas/graph"
 	"github.com/NimbleMarkets/ntcharts/canvas/runes"
+
+	"cloudwind/internal/chartspec"
 )
 
 // Smallest blocks the renderers draw a chart in; smaller ones get a
@@ -25,7 +27,7 @@ const (
 	pointRuneASCII = 'X'
 )
 
-// RenderLineChart draws c in a block of exactly w columns and h rows: h
+// RenderLine draws c in a block of exactly w columns and h rows: h
 // lines joined by "\n", each w cells wide as lipgloss.Width measures.
 // The block holds the axes with their titles, decade tick labels on log
 // axes ("1e-2", "1e0", "1e3") and a few round ticks on linear ones, the
@@ -39,13 +41,13 @@ const (
 // Everything is clipped to the plot area; NaN and ±Inf points break a
 // line. Blocks smaller than 20×6 hold only the note "too small"; a nil
 // chart or one without data shows "no data". It never panics.
-func RenderLineChart(c *LineChart, w, h int, st *Styles) string {
+func RenderLine(c *chartspec.LineChart, w, h int, st *Styles) string {
 	st = stylesOrDefault(st)
 	if w < minChartWidth || h < minChartHeight {
 		return tooSmallBlock(w, h, st)
 	}
 	if c == nil {
-		c = &LineChart{}
+		c = &chartspec.LineChart{}
 	}
 	lc := lineRender{c: c, st: st, braille: st.Color && !st.ASCII, s: newSurface(w, h)}
 	if !lc.layout() {
@@ -55,14 +57,14 @@ func RenderLineChart(c *LineChart, w, h int, st *Styles) string {
 	return lc.s.String()
 }
 
-// A lineRender is the state of one RenderLineChart call.
+// A lineRender is the state of one RenderLine call.
 type lineRender struct {
-	c       *LineChart
+	c       *chartspec.LineChart
 	st      *Styles
-	s       *chartSurface
+	s       *surface
 	braille bool
 
-	f      chartFrame
+	f      frame
 	x0, pw int      // first plot column, plot columns
 	sx, sy int      // dots per cell across and down: 2×4 braille, 1×1 runes
 	xs, ys dotScale // axis value → dot; ys counts dots up from the bottom
@@ -95,7 +97,7 @@ func (lc *lineRender) layout() bool {
 		if len(name) == 0 {
 			name = []rune("(unnamed)")
 		}
-		it := legendItem{key: []rune{seriesGlyph(st, sr.Index)}, text: name, keyID: lc.sid[i], textID: legendID}
+		it := legendItem{key: []rune{st.Glyph(sr.Index)}, text: name, keyID: lc.sid[i], textID: legendID}
 		if sr.Dashed {
 			it.textID = lc.dimID
 		}
@@ -131,7 +133,7 @@ func (lc *lineRender) layout() bool {
 // extent returns the smallest and largest finite coordinate of all
 // series along x (or y), or NaN when there is none; it returns a's range
 // untouched when that is finite, the data being needed only without it.
-func (lc *lineRender) extent(a Axis, x bool) (lo, hi float64) {
+func (lc *lineRender) extent(a chartspec.Axis, x bool) (lo, hi float64) {
 	if isFiniteValue(a.Min) && isFiniteValue(a.Max) {
 		return a.Min, a.Max
 	}
@@ -168,8 +170,8 @@ func (lc *lineRender) inPlot(x, y int) bool {
 
 // seriesStyleID registers the style of a series: its palette colour,
 // faint when dashed.
-func (lc *lineRender) seriesStyleID(sr *Series) uint8 {
-	style := seriesStyle(lc.st, sr.Index)
+func (lc *lineRender) seriesStyleID(sr *chartspec.Series) uint8 {
+	style := lc.st.SeriesStyle(sr.Index)
 	if sr.Dashed {
 		if !lc.st.Color {
 			return lc.s.addStyle(lc.st.Dim)
@@ -246,7 +248,7 @@ func (lc *lineRender) drawTitle(ylabel []rune) {
 // eachSegment calls seg with every visible piece of sr's polyline,
 // clipped to the axis ranges; an isolated finite point inside them comes
 // as a segment of zero length. NaN and ±Inf points break the line.
-func (lc *lineRender) eachSegment(sr *Series, seg func(x0, y0, x1, y1 float64)) {
+func (lc *lineRender) eachSegment(sr *chartspec.Series, seg func(x0, y0, x1, y1 float64)) {
 	n := min(len(sr.X), len(sr.Y))
 	ok := func(k int) bool { return k >= 0 && k < n && isFiniteValue(sr.X[k]) && isFiniteValue(sr.Y[k]) }
 	for k := 0; k < n; k++ {
@@ -303,7 +305,7 @@ func clipSegment(x0, y0, x1, y1, xlo, xhi, ylo, yhi float64) (ax, ay, bx, by flo
 // into the surface (dots of earlier series kept, the last style winning,
 // as ntcharts' DrawBrailleRune does). Dashed series draw 3 dots of every
 // 6. It returns the cells of the segment ends in data order.
-func (lc *lineRender) drawBraille(sr *Series, id uint8) []canvas.Point {
+func (lc *lineRender) drawBraille(sr *chartspec.Series, id uint8) []canvas.Point {
 	g := graph.NewBrailleGrid(lc.pw, lc.f.ph, lc.xs.lo, lc.xs.hi, lc.ys.lo, lc.ys.hi)
 	var ends []canvas.Point
 	n := 0
@@ -339,7 +341,7 @@ func (lc *lineRender) drawBraille(sr *Series, id uint8) []canvas.Point {
 			if runes.IsBraillePattern(c.r) {
 				r = runes.CombineBraillePatterns(c.r, r)
 			}
-			*c = chartCell{r: r, s: id, kind: kindCurve}
+			*c = cell{r: r, s: id, kind: kindCurve}
 		}
 	}
 	return ends
@@ -348,8 +350,8 @@ func (lc *lineRender) drawBraille(sr *Series, id uint8) []canvas.Point {
 // drawRunes draws sr with its glyph in every cell its line passes
 // through; dashed series skip every other cell. It returns the cells of
 // the segment ends in data order.
-func (lc *lineRender) drawRunes(sr *Series, id uint8) []canvas.Point {
-	glyph := seriesGlyph(lc.st, sr.Index)
+func (lc *lineRender) drawRunes(sr *chartspec.Series, id uint8) []canvas.Point {
+	glyph := lc.st.Glyph(sr.Index)
 	var ends []canvas.Point
 	prev := canvas.Point{X: -1, Y: -1}
 	n := 0
@@ -363,7 +365,7 @@ func (lc *lineRender) drawRunes(sr *Series, id uint8) []canvas.Point {
 			return
 		}
 		if c := lc.s.at(p.X, p.Y); c != nil && c.kind != kindText && lc.inPlot(p.X, p.Y) {
-			*c = chartCell{r: glyph, s: id, kind: kindCurve}
+			*c = cell{r: glyph, s: id, kind: kindCurve}
 		}
 	}
 	lc.eachSegment(sr, func(x0, y0, x1, y1 float64) {
@@ -403,11 +405,11 @@ func appendCell(ps []canvas.Point, p canvas.Point) []canvas.Point {
 // tag writes the glyph of a braille series on its last visible cell not
 // yet holding a label or another tag, so that curves can be told apart
 // without colour.
-func (lc *lineRender) tag(sr *Series, id uint8, ends []canvas.Point) {
+func (lc *lineRender) tag(sr *chartspec.Series, id uint8, ends []canvas.Point) {
 	for i := len(ends) - 1; i >= 0; i-- {
 		p := ends[i]
 		if c := lc.s.at(p.X, p.Y); c != nil && c.kind != kindText && lc.inPlot(p.X, p.Y) {
-			*c = chartCell{r: seriesGlyph(lc.st, sr.Index), s: id, kind: kindText}
+			*c = cell{r: lc.st.Glyph(sr.Index), s: id, kind: kindText}
 			return
 		}
 	}

@@ -1,10 +1,13 @@
-package tui
+package chart
 
 import (
 	"math"
 	"strconv"
 	"strings"
 	"testing"
+
+	"cloudwind/internal/chartspec"
+	"cloudwind/tui/internal/golden"
 )
 
 // synthRegimeMap returns an nx×ny map over χ = 10…10⁴ and r_cl =
@@ -12,13 +15,13 @@ import (
 // thresholds r_crit = a χ^b (see syntheticThresholds) lie below r_cl: a
 // boundary that moves with χ. The mark is the current point χ = 100,
 // r_cl = 1 pc.
-func synthRegimeMap(nx, ny int) *RegimeMap {
-	m := &RegimeMap{
+func synthRegimeMap(nx, ny int) *chartspec.RegimeMap {
+	m := &chartspec.RegimeMap{
 		Title: "criteria predicting survival (synthetic)",
-		X:     Axis{Label: "χ = ρ_cl/ρ_hot", Log: true, Min: 1, Max: 4},
-		Y:     Axis{Label: "r_cl (pc)", Log: true, Min: -2, Max: 3},
+		X:     chartspec.Axis{Label: "χ = ρ_cl/ρ_hot", Log: true, Min: 1, Max: 4},
+		Y:     chartspec.Axis{Label: "r_cl (pc)", Log: true, Min: -2, Max: 3},
 		NX:    nx, NY: ny, Counts: make([]int, nx*ny),
-		Mark: &Marker{Kind: Point, X: 2, Y: 0, Label: "current χ, r_cl"},
+		Mark: &chartspec.Marker{Kind: chartspec.Point, X: 2, Y: 0, Label: "current χ, r_cl"},
 		Note: "synthetic counts from r_crit = a χ^b, for layout tests only",
 	}
 	th := syntheticThresholds()
@@ -46,7 +49,7 @@ func TestRegimeMapGolden(t *testing.T) {
 			t.Run(sub, func(t *testing.T) {
 				out := RenderRegimeMap(m, sz[0], sz[1], sts[mode])
 				checkChartBlock(t, sub, out, sz[0], sz[1])
-				checkChartGolden(t, "TestRegimeMapGolden", sub, out)
+				golden.Check(t, "TestRegimeMapGolden", sub, out)
 			})
 		}
 	}
@@ -58,23 +61,23 @@ func TestRegimeMapGolden(t *testing.T) {
 	}
 	out := RenderRegimeMap(many, 80, 24, sts["plain"])
 	checkChartBlock(t, "shades", out, 80, 24)
-	checkChartGolden(t, "TestRegimeMapGolden", "regime_shades_80x24", out)
+	golden.Check(t, "TestRegimeMapGolden", "regime_shades_80x24", out)
 }
 
 // degenerateRegimeMaps returns maps that must render without panicking.
-func degenerateRegimeMaps() map[string]*RegimeMap {
+func degenerateRegimeMaps() map[string]*chartspec.RegimeMap {
 	nan := math.NaN()
-	return map[string]*RegimeMap{
+	return map[string]*chartspec.RegimeMap{
 		"synthetic": synthRegimeMap(20, 10),
 		"nil":       nil,
 		"empty":     {},
-		"nocells":   {X: Axis{Label: "x", Min: 0, Max: 1}, Y: Axis{Label: "y", Min: 0, Max: 1}, Total: 3, Title: "t", Note: "n"},
-		"minmax":    {X: Axis{Min: 1, Max: 1, Log: true}, Y: Axis{Min: 2, Max: 2}, NX: 1, NY: 1, Counts: []int{1}, Total: 1},
-		"nanrange":  {X: Axis{Min: nan, Max: nan}, Y: Axis{Min: nan, Max: 1}, NX: 2, NY: 2, Counts: []int{0, 1, 2, 3}, Total: 3},
-		"short":     {X: Axis{Min: 0, Max: 1}, Y: Axis{Min: 0, Max: 1}, NX: 5, NY: 5, Counts: []int{1, 2}, Total: 2, Mark: &Marker{Kind: Point, X: nan, Y: 0}},
-		"wild":      {X: Axis{Min: 0, Max: 1}, Y: Axis{Min: 0, Max: 1}, NX: 2, NY: 1, Counts: []int{-5, 99}, Total: -1, Mark: &Marker{Kind: HLine, Y: 0.5, Warn: true}},
-		"huge":      {X: Axis{Min: 0, Max: 1}, Y: Axis{Min: 0, Max: 1}, NX: 1 << 40, NY: 1 << 40, Counts: []int{1}, Total: 1},
-		"single":    {X: Axis{Min: 0, Max: 1}, Y: Axis{Min: 0, Max: 1}, NX: 1, NY: 1, Counts: []int{4}, Total: 40, Mark: &Marker{Kind: VLine, X: 0.5}},
+		"nocells":   {X: chartspec.Axis{Label: "x", Min: 0, Max: 1}, Y: chartspec.Axis{Label: "y", Min: 0, Max: 1}, Total: 3, Title: "t", Note: "n"},
+		"minmax":    {X: chartspec.Axis{Min: 1, Max: 1, Log: true}, Y: chartspec.Axis{Min: 2, Max: 2}, NX: 1, NY: 1, Counts: []int{1}, Total: 1},
+		"nanrange":  {X: chartspec.Axis{Min: nan, Max: nan}, Y: chartspec.Axis{Min: nan, Max: 1}, NX: 2, NY: 2, Counts: []int{0, 1, 2, 3}, Total: 3},
+		"short":     {X: chartspec.Axis{Min: 0, Max: 1}, Y: chartspec.Axis{Min: 0, Max: 1}, NX: 5, NY: 5, Counts: []int{1, 2}, Total: 2, Mark: &chartspec.Marker{Kind: chartspec.Point, X: nan, Y: 0}},
+		"wild":      {X: chartspec.Axis{Min: 0, Max: 1}, Y: chartspec.Axis{Min: 0, Max: 1}, NX: 2, NY: 1, Counts: []int{-5, 99}, Total: -1, Mark: &chartspec.Marker{Kind: chartspec.HLine, Y: 0.5, Warn: true}},
+		"huge":      {X: chartspec.Axis{Min: 0, Max: 1}, Y: chartspec.Axis{Min: 0, Max: 1}, NX: 1 << 40, NY: 1 << 40, Counts: []int{1}, Total: 1},
+		"single":    {X: chartspec.Axis{Min: 0, Max: 1}, Y: chartspec.Axis{Min: 0, Max: 1}, NX: 1, NY: 1, Counts: []int{4}, Total: 40, Mark: &chartspec.Marker{Kind: chartspec.VLine, X: 0.5}},
 	}
 }
 
@@ -97,7 +100,7 @@ func TestRegimeMapEverySize(t *testing.T) {
 func TestRegimeMapCells(t *testing.T) {
 	// Two map cells side by side, counts 0 and 3: the left half of the
 	// plot shows '0', the right half '3', on every row.
-	m := &RegimeMap{X: Axis{Label: "x", Min: 0, Max: 1}, Y: Axis{Label: "y", Min: 0, Max: 1}, NX: 2, NY: 1, Counts: []int{0, 3}, Total: 3}
+	m := &chartspec.RegimeMap{X: chartspec.Axis{Label: "x", Min: 0, Max: 1}, Y: chartspec.Axis{Label: "y", Min: 0, Max: 1}, NX: 2, NY: 1, Counts: []int{0, 3}, Total: 3}
 	st := chartTestStyles()["plain"]
 	out := RenderRegimeMap(m, 60, 16, st)
 	g := chartGrid(out)
@@ -116,8 +119,8 @@ func TestRegimeMapCells(t *testing.T) {
 func TestRegimeMapMark(t *testing.T) {
 	// The mark at the centre of the top-right quarter lands in the plot
 	// cell covering it.
-	m := &RegimeMap{X: Axis{Min: 0, Max: 1}, Y: Axis{Min: 0, Max: 1}, NX: 2, NY: 2, Counts: []int{0, 1, 1, 2}, Total: 2,
-		Mark: &Marker{Kind: Point, X: 0.75, Y: 0.75, Label: "now"}}
+	m := &chartspec.RegimeMap{X: chartspec.Axis{Min: 0, Max: 1}, Y: chartspec.Axis{Min: 0, Max: 1}, NX: 2, NY: 2, Counts: []int{0, 1, 1, 2}, Total: 2,
+		Mark: &chartspec.Marker{Kind: chartspec.Point, X: 0.75, Y: 0.75, Label: "now"}}
 	for _, mode := range []string{"plain", "ascii"} {
 		st := chartTestStyles()[mode]
 		out := RenderRegimeMap(m, 50, 14, st)

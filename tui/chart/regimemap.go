@@ -1,8 +1,10 @@
-package tui
+package chart
 
 import (
 	"math"
 	"strconv"
+
+	"cloudwind/internal/chartspec"
 )
 
 // Shade ramps for maps counting more than 9 criteria, from "none" to "all";
@@ -23,13 +25,13 @@ const (
 // a legend "0 1 … N of N criteria predict survival" and m.Note when room
 // allows. Blocks smaller than 20×6 hold only the note "too small". It
 // never panics.
-func RenderRegimeMap(m *RegimeMap, w, h int, st *Styles) string {
+func RenderRegimeMap(m *chartspec.RegimeMap, w, h int, st *Styles) string {
 	st = stylesOrDefault(st)
 	if w < minChartWidth || h < minChartHeight {
 		return tooSmallBlock(w, h, st)
 	}
 	if m == nil {
-		m = &RegimeMap{}
+		m = &chartspec.RegimeMap{}
 	}
 	rm := mapRender{m: m, st: st, s: newSurface(w, h), total: max(m.Total, 0), ramp: []rune(shadeRamp)}
 	if st.ASCII {
@@ -44,13 +46,13 @@ func RenderRegimeMap(m *RegimeMap, w, h int, st *Styles) string {
 
 // A mapRender is the state of one RenderRegimeMap call.
 type mapRender struct {
-	m     *RegimeMap
+	m     *chartspec.RegimeMap
 	st    *Styles
-	s     *chartSurface
+	s     *surface
 	total int    // m.Total, at least 0
 	ramp  []rune // shade glyphs, shadeLevels of them
 
-	f                  chartFrame
+	f                  frame
 	x0, pw             int
 	xlo, xhi, ylo, yhi float64
 	ok                 bool // both ranges usable
@@ -77,7 +79,7 @@ func spansWidth(sp []textSpan) int {
 }
 
 // writeSpans writes sp from (x, y) and returns the column after them.
-func writeSpans(s *chartSurface, x, y int, sp []textSpan) int {
+func writeSpans(s *surface, x, y int, sp []textSpan) int {
 	for _, p := range sp {
 		s.write(x, y, p.rs, p.id, kindText)
 		x += len(p.rs)
@@ -214,13 +216,13 @@ func (rm *mapRender) legendMark() []textSpan {
 
 // markGlyph returns the glyph of the mark: the point glyph, or the line
 // glyph of a VLine or HLine mark.
-func (rm *mapRender) markGlyph(mk *Marker) rune {
+func (rm *mapRender) markGlyph(mk *chartspec.Marker) rune {
 	switch {
-	case mk.Kind == VLine:
+	case mk.Kind == chartspec.VLine:
 		return vlineRune
-	case mk.Kind == HLine && rm.st.ASCII:
+	case mk.Kind == chartspec.HLine && rm.st.ASCII:
 		return hlineRuneASCII
-	case mk.Kind == HLine:
+	case mk.Kind == chartspec.HLine:
 		return hlineRune
 	case rm.st.ASCII:
 		return pointRuneASCII
@@ -229,13 +231,13 @@ func (rm *mapRender) markGlyph(mk *Marker) rune {
 }
 
 // markVisible reports whether the mark falls inside the map.
-func (rm *mapRender) markVisible(mk *Marker) bool {
+func (rm *mapRender) markVisible(mk *chartspec.Marker) bool {
 	inX := isFiniteValue(mk.X) && mk.X >= rm.xlo && mk.X <= rm.xhi
 	inY := isFiniteValue(mk.Y) && mk.Y >= rm.ylo && mk.Y <= rm.yhi
 	switch mk.Kind {
-	case VLine:
+	case chartspec.VLine:
 		return rm.ok && inX
-	case HLine:
+	case chartspec.HLine:
 		return rm.ok && inY
 	}
 	return rm.ok && inX && inY
@@ -318,11 +320,11 @@ func (rm *mapRender) drawMark() {
 		id = rm.warnID
 	}
 	switch mk.Kind {
-	case VLine:
+	case chartspec.VLine:
 		for y := rm.f.top; y < rm.f.top+rm.f.ph; y++ {
 			rm.s.put(rm.col(mk.X), y, g, id, kindText)
 		}
-	case HLine:
+	case chartspec.HLine:
 		for x := rm.x0; x < rm.x0+rm.pw; x++ {
 			rm.s.put(x, rm.row(mk.Y), g, id, kindText)
 		}

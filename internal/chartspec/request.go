@@ -1,0 +1,91 @@
+package chartspec
+
+import (
+	"math"
+
+	"cloudwind/model"
+)
+
+// A Request is everything a chart builder reads. The builders only read
+// it, so a copy can be handed to another goroutine.
+type Request struct {
+	Params   model.Params          // the inputs (validated, defaults filled)
+	Cooling  model.CoolingFunction // Λ(T) at Params.Metallicity
+	Criteria []model.Criterion
+	Pin      *Inputs // scenario A of a comparison, drawn dashed; nil for none
+	Family   bool    // ThresholdChart: the Selected criterion at four Mach numbers
+	MapMach  bool    // Regime: χ × Mach at the current r_cl instead of χ × r_cl
+	Selected int     // the criterion of the family (an index into Criteria)
+	Cols     int     // cells available across: the regime map's resolution (clamped to 10…200)
+	Rows     int     // cells available down (clamped to 5…100)
+}
+
+// Inputs are the inputs of one scenario: what a comparison pins.
+type Inputs struct {
+	Params  model.Params
+	Cooling model.CoolingFunction
+}
+
+// chiRange is the χ axis of the threshold chart and the regime map, in
+// log10: 10 to 10⁴, widened to hold the current χ.
+func chiRange(chi float64) (lo, hi float64) {
+	lo, hi = 1, 4
+	c := math.Log10(chi)
+	return min(lo, c-0.5), max(hi, c+0.5)
+}
+
+// radiative returns the indices of the criteria that have a threshold.
+func radiative(cs []model.Criterion) []int {
+	var out []int
+	for i := range cs {
+		if cs[i].Cool != model.CoolNone {
+			out = append(out, i)
+		}
+	}
+	return out
+}
+
+// logPc returns log10 of a length in pc, NaN when it is not finite.
+func logPc(r model.Length) float64 {
+	v := float64(r / model.Parsec)
+	if !(v > 0) || math.IsInf(v, 0) {
+		return math.NaN()
+	}
+	return math.Log10(v)
+}
+
+// seriesRange returns a padded y range over every finite point and extra.
+func seriesRange(ss []Series, extra ...float64) (lo, hi float64) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	see := func(v float64) {
+		if !math.IsNaN(v) && !math.IsInf(v, 0) {
+			lo, hi = min(lo, v), max(hi, v)
+		}
+	}
+	for _, s := range ss {
+		for _, v := range s.Y {
+			see(v)
+		}
+	}
+	for _, v := range extra {
+		see(v)
+	}
+	if math.IsInf(lo, 1) {
+		return 0, 1
+	}
+	if hi-lo < 0.5 {
+		mid := (hi + lo) / 2
+		lo, hi = mid-0.25, mid+0.25
+	}
+	pad := 0.05 * (hi - lo)
+	return lo - pad, hi + pad
+}
+
+// grid returns n points evenly spaced from lo to hi.
+func grid(lo, hi float64, n int) []float64 {
+	xs := make([]float64, n)
+	for i := range xs {
+		xs[i] = lo + (hi-lo)*float64(i)/float64(n-1)
+	}
+	return xs
+}

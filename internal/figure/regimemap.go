@@ -1,0 +1,133 @@
+package figure
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+	"slices"
+	"strconv"
+
+	"cloudwind/internal/chartspec"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+)
+
+// Shades of the regime map: viridis (van der Walt & Smith 2015, the
+// default colour map of matplotlib) at 0, 1/4, 1/2, 3/4 and 1, interpolated
+// linearly. Its lightness rises monotonically, so grey-scale prints keep
+// the order of the shades.
+var viridis = [...]color.RGBA{
+	{0x44, 0x01, 0x54, 0xff}, {0x3B, 0x52, 0x8B, 0xff}, {0x21, 0x91, 0x8C, 0xff},
+	{0x5E, 0xC9, 0x62, 0xff}, {0xFD, 0xE7, 0x25, 0xff},
+}
+
+// Colours of map cells without a valid state and of impossible counts.
+var (
+	noDataColor   = color.RGBA{0xe0, 0xe0, 0xe0, 0xff}
+	badCountColor = color.RGBA{0x99, 0x99, 0x99, 0xff}
+)
+
+// shade returns the colour of a map cell in which n of total criteria
+// predict survival: noDataColor for n < 0, badCountColor for n > total.
+func shade(n, total int) color.RGBA {
+	switch {
+	case n < 0:
+		return noDataColor
+	case n > total:
+		return badCountColor
+	}
+	f := 0.0
+	if total > 0 {
+		f = math.Max(0, math.Min(1, float64(n)/float64(total)))
+	}
+	x := f * float64(len(viridis)-1)
+	i := min(int(x), len(viridis)-2)
+	t := x - float64(i)
+	a, b := viridis[i], viridis[i+1]
+	lerp := func(u, v uint8) uint8 { return uint8(math.Round(float64(u) + t*(float64(v)-float64(u)))) }
+	return color.RGBA{lerp(a.R, b.R), lerp(a.G, b.G), lerp(a.B, b.B), 0xff}
+}
+
+// legendCounts returns the counts the map legend shows, largest first:
+// every count up to 12 criteria, seven evenly spaced ones beyond.
+func legendCounts(total int) []int {
+	var out []int
+	for k := total; k >= 0; k-- {
+		if total <= 12 || k == total || int(math.Round(float64(k)*6/float64(total))) != int(math.Round(float64(k+1)*6/float64(total))) {
+			out = append(out, k)
+		}
+	}
+	return out
+}
+
+// boxThumb fills a legend thumbnail with one colour.
+type boxThumb color.RGBA
+
+// Thumbnail fills c.
+func (b boxThumb) Thumbnail(c *draw.Canvas) {
+	c.SetColor(color.RGBA(b))
+	c.Fill(c.Rectangle.Path())
+}
+
+// drawRegimeMap draws m on dc.
+func drawRegimeMap(dc draw.Canvas, m *chartspec.RegimeMap) error {
+	dc = drawNote(dc, m.Note)
+	var items []legendItem
+	for _, n := range legendCounts(m.Total) {
+		items = append(items, legendItem{fmt.Sprintf("%d of %d", n, m.Total), boxThumb(shade(n, m.Total))})
+	}
+	if slices.IndexFunc(m.Counts, func(n int) bool { return n < 0 }) >= 0 {
+		items = append(items, legendItem{"no data", boxThumb(noDataColor)})
+	}
+	plotArea := drawLegend(dc, items, "Criteria predicting survival")
+	p := newPlot(m.Title)
+	xlo, xhi := axisRange(m.X, nil)
+	ylo, yhi := axisRange(m.Y, nil)
+	p.Add(&cellPlotter{m: m, xlo: xlo, xhi: xhi, ylo: ylo, yhi: yhi})
+	if m.Mark != nil {
+		p.Add(&markerPlotter{markers: []chartspec.Marker{*m.Mark}, xlog: m.X.Log, ylog: m.Y.Log})
+	}
+	setupAxis(&p.X, m.X, xlo, xhi)
+	setupAxis(&p.Y, m.Y, ylo, yhi)
+	p.Draw(plotArea)
+	return nil
+}
+
+// cellPlotter draws the cells of a regime map over [xlo, xhi] × [ylo, yhi]
+// (axis units), each with its count when the cells are large enough.
+type cellPlotter struct {
+	m                  *chartspec.RegimeMap
+	xlo, xhi, ylo, yhi float64
+}
+
+// Plot fills the cells.
+func (cp *cellPlotter) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, trY := p.Transforms(&c)
+	m := cp.m
+	dx, dy := (cp.xhi-cp.xlo)/float64(m.NX), (cp.yhi-cp.ylo)/float64(m.NY)
+	at := func(v float64, log bool) float64 { d, _ := dataValue(v, log); return d }
+	for j := range m.NY {
+		y0, y1 := trY(at(cp.ylo+float64(j)*dy, m.Y.Log)), trY(at(cp.ylo+float64(j+1)*dy, m.Y.Log))
+		for i := range m.NX {
+			x0, x1 := trX(at(cp.xlo+float64(i)*dx, m.X.Log)), trX(at(cp.xlo+float64(i+1)*dx, m.X.Log))
+			n := m.Counts[j*m.NX+i]
+			c.SetColor(shade(n, m.Total))
+			c.Fill(vg.Rectangle{Min: vg.Point{X: x0, Y: y0}, Max: vg.Point{X: x1, Y: y1}}.Path())
+			if n < 0 || x1-x0 < vg.Points(9) || y1-y0 < vg.Points(8) {
+				continue
+			}
+			ink, label := color.Color(color.White), strconv.Itoa(n)
+			if 2*n > m.Total {
+				ink = color.Black
+			}
+			if n > m.Total {
+				label = "?"
+			}
+			sty := textStyle(7, ink)
+			sty.XAlign, sty.YAlign = draw.XCenter, draw.YCenter
+			c.FillText(sty, vg.Point{X: (x0 + x1) / 2, Y: (y0 + y1) / 2}, label)
+		}
+	}
+}
