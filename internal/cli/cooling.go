@@ -2,13 +2,14 @@ package cli
 
 import (
 	"encoding/csv"
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
 	"strconv"
 	"strings"
 	"text/tabwriter"
+
+	"cloudwind/internal/report"
 
 	"cloudwind/cooling"
 	"cloudwind/internal/quantity"
@@ -224,9 +225,7 @@ func (c *coolingOutput) writeJSON(w io.Writer) error {
 	if c.vf != nil {
 		doc["vs"] = coolingJSON(c.vs, c.vf)
 	}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
+	return report.WriteJSON(w, doc)
 }
 
 func (c *coolingOutput) writeText(w io.Writer) error {

@@ -1,11 +1,12 @@
 package cli
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"strings"
 	"text/tabwriter"
+
+	"cloudwind/internal/safetext"
 
 	"cloudwind/internal/quantity"
 
@@ -52,9 +53,7 @@ func runEval(e *env) error {
 }
 
 func writeEvalJSON(w io.Writer, sc *evaluated) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(report.StateDocument(&sc.res, sc.cooling, sc.cf, versionString()))
+	return report.WriteJSON(w, report.StateDocument(&sc.res, sc.cooling, sc.cf, versionString()))
 }
 
 // finite returns v, or nil (JSON null) when v is NaN or ±Inf.
@@ -164,12 +163,13 @@ func writeEvalText(w io.Writer, sc *evaluated) error {
 	return writeTrimmed(w, b.String())
 }
 
-// writeTrimmed writes text with the spaces that tabwriter leaves at line
-// ends removed.
+// writeTrimmed writes text for a terminal: each line through the one
+// sanitiser (text from criteria files, tables and file names cannot act on
+// the terminal), with the spaces that tabwriter leaves at line ends removed.
 func writeTrimmed(w io.Writer, text string) error {
 	lines := strings.Split(text, "\n")
 	for i, l := range lines {
-		lines[i] = strings.TrimRight(l, " ")
+		lines[i] = strings.TrimRight(safetext.Terminal(l), " ")
 	}
 	_, err := io.WriteString(w, strings.Join(lines, "\n"))
 	return err

@@ -1,7 +1,6 @@
 package cli
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -314,9 +313,7 @@ func (o *evolveOutput) writeJSON(w io.Writer) error {
 		runs = append(runs, item)
 	}
 	doc := map[string]any{"schema": "cloudwind.evolve/1", "meta": report.OrderedJSON(o.meta()), "trajectories": runs}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
+	return report.WriteJSON(w, doc)
 }
 
 func (o *evolveOutput) writeText(w io.Writer) error {

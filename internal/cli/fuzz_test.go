@@ -2,8 +2,12 @@ package cli
 
 import (
 	"errors"
+	"io"
+	"io/fs"
 	"strings"
 	"testing"
+
+	"cloudwind/internal/quantity"
 
 	"cloudwind/cooling"
 	"cloudwind/model"
@@ -62,6 +66,91 @@ func FuzzParseBox(f *testing.F) {
 		a, b, err := parseBox(s)
 		if err == nil && (!(a > 0) || !(b > 0)) {
 			t.Fatalf("parseBox(%q) = %g, %g without error", s, a, b)
+		}
+	})
+}
+
+// FuzzScenarioFlag: any value of any numeric scenario flag is used as given
+// or refused with a usage error naming the flag, never replaced by a
+// default: when parse accepts it, the field holds the parsed value (a floor
+// of 0 K is NoFloor, "no floor").
+func FuzzScenarioFlag(f *testing.F) {
+	for _, s := range []string{"0", "0.0", "-0", "5/3", "1e-400", "10^-3", "3 pc", "0 K", "1e308", "  7  ", "0x10", "nan"} {
+		f.Add(uint8(0), s)
+	}
+	flags := numericScenarioFlags()
+	f.Fuzz(func(t *testing.T, which uint8, v string) {
+		sf := flags[int(which)%len(flags)]
+		var s scenarioFlags
+		for _, o := range flags {
+			*o.ptr(&s) = o.def
+		}
+		s.mixture, s.heatCapacity, s.densityProduct = model.Asplund2009.Name, "isochoric", "nh2"
+		*sf.ptr(&s) = v
+		p, err := s.parse()
+		if err != nil {
+			var ue *usageError
+			if !errors.As(err, &ue) || !strings.Contains(err.Error(), "--"+sf.name) {
+				t.Fatalf("--%s %q: %v is not a usage error naming the flag", sf.name, v, err)
+			}
+			return
+		}
+		raw := strings.TrimSpace(v)
+		if raw == "" || (sf.name == "gamma" && raw == "5/3") {
+			return
+		}
+		want, perr := quantity.ParseValue(sf.kind, raw)
+		if perr != nil {
+			t.Fatalf("--%s %q accepted although ParseValue refuses it: %v", sf.name, v, perr)
+		}
+		if sf.field == model.FieldTFloor && want == 0 {
+			want = float64(model.NoFloor)
+		}
+		if got, _ := p.Field(sf.field); got != want {
+			t.Fatalf("--%s %q: field holds %g, want the value given %g", sf.name, v, got, want)
+		}
+	})
+}
+
+// FuzzTableSettings: no --table setting may panic, and a setting that is
+// accepted alone is accepted in a resolution of a table read from memory.
+func FuzzTableSettings(f *testing.F) {
+	for _, s := range []string{"norm: nH2", "columns: T=1 lambda=2", "log: T=yes lambda=auto", "Z: 0.1 1", "y: 0.0851", "clip-below: 1e4", "header: yes", "skip: 4", "norm:", ":", "columns: T=0", "log: T=maybe", "skip: -1", "Z: 1 0.1"} {
+		f.Add(s)
+	}
+	const table = "1e4 1e-23\n1e5 1e-22\n1e6 1e-22\n"
+	f.Fuzz(func(t *testing.T, s string) {
+		opt := cooling.TableOptions{}
+		if opt.Apply(s) != nil {
+			return
+		}
+		open := func(string) (io.Reader, string, func(), error) {
+			return strings.NewReader(table), "mem.txt", func() {}, nil
+		}
+		src, err := cooling.Resolve("--cooling", "mem.txt", []string{"norm: nH2", s}, open)
+		if err != nil {
+			return // e.g. columns that the table does not have: an error, not a panic
+		}
+		if _, err := src.Function(1); err != nil && src.ZDependent {
+			return
+		}
+	})
+}
+
+// FuzzCoolingName: any spec (name, analytic form, or path) resolves or is
+// refused with an error; names that are neither files nor known get a
+// usage error (*cooling.SpecError), never a panic.
+func FuzzCoolingName(f *testing.F) {
+	for _, s := range []string{"builtin", "bultin", "hhe-kwh96", "rosen-bregman-1995", "tozzi", "", "-", "./x.txt", "/nonexistent/t.txt", "a:b", "const:", "powerlaw:"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		open := func(path string) (io.Reader, string, func(), error) {
+			return nil, "", nil, &fs.PathError{Op: "open", Path: path, Err: fs.ErrNotExist}
+		}
+		src, err := cooling.Resolve("--cooling", s, nil, open)
+		if err == nil && src == nil {
+			t.Fatalf("Resolve(%q) = nil, nil", s)
 		}
 	})
 }

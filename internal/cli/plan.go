@@ -1,7 +1,6 @@
 package cli
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -211,9 +210,7 @@ func writePlanJSON(w io.Writer, pl *model.Plan, cmp []model.PlanComparison, set 
 		}
 		doc["comparison"] = rows
 	}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
+	return report.WriteJSON(w, doc)
 }
 
 func writePlanText(w io.Writer, res *model.Result, pl *model.Plan, cmp []model.PlanComparison, set model.PlanSettings, cooling string) error {

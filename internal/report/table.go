@@ -6,6 +6,8 @@ import (
 	"math"
 	"strconv"
 	"strings"
+
+	"cloudwind/internal/safetext"
 )
 
 // A Meta is one entry of the run's metadata, kept in order. A value is
@@ -126,13 +128,7 @@ func ECSVHeader(w io.Writer, cols []Column, meta []Meta) error {
 
 // yamlString quotes s as a YAML double-quoted scalar (JSON's escapes are
 // valid YAML escapes).
-func yamlString(s string) string {
-	var b strings.Builder
-	enc := json.NewEncoder(&b)
-	enc.SetEscapeHTML(false)
-	enc.Encode(s)
-	return strings.TrimSuffix(b.String(), "\n")
-}
+func yamlString(s string) string { return string(safetext.AppendJSON(nil, s)) }
 
 // yamlValue writes v in YAML flow style.
 func yamlValue(v any) string {
@@ -231,6 +227,7 @@ func JSONHeader(w io.Writer, cols []Column, meta []Meta) error {
 	if err != nil {
 		return err
 	}
+	head = safetext.EscapeJSON(head)
 	// Leave the object open: the rows follow.
 	head = append(head[:len(head)-1], `,"rows":[`...)
 	_, err = w.Write(head)
@@ -239,3 +236,18 @@ func JSONHeader(w io.Writer, cols []Column, meta []Meta) error {
 
 // KV returns the metadata entry key: value.
 func KV(key string, value any) Meta { return Meta{Key: key, Value: value} }
+
+// WriteJSON writes v as an indented JSON document followed by a newline.
+// Strings keep their true text, but control, bidirectional and format
+// characters are written as \u escapes (safetext.EscapeJSON), so that the
+// document shown raw on a terminal cannot act on it. Every JSON document
+// cloudwind writes goes through it.
+func WriteJSON(w io.Writer, v any) error {
+	b, err := json.MarshalIndent(v, "", "  ")
+	if err != nil {
+		return err
+	}
+	b = append(safetext.EscapeJSON(b), '\n')
+	_, err = w.Write(b)
+	return err
+}

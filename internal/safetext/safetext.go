@@ -101,17 +101,14 @@ func Line(s string) string {
 // but writes every unsafe rune (Unsafe) as a \uXXXX escape (a pair of
 // surrogate escapes above U+FFFF), as well as '"', '\\' and the characters
 // JSON requires escaped; invalid UTF-8 becomes \ufffd. A reader decodes the
-// same string; a terminal showing the raw document is not affected.
+// same string; a terminal showing the raw document is not affected. The
+// result is also a valid YAML double-quoted scalar.
 func AppendJSON(b []byte, s string) []byte {
-	const hex = "0123456789abcdef"
-	esc := func(b []byte, r rune) []byte {
-		return append(b, '\\', 'u', hex[r>>12&0xf], hex[r>>8&0xf], hex[r>>4&0xf], hex[r&0xf])
-	}
 	b = append(b, '"')
 	for i := 0; i < len(s); {
 		r, n := utf8.DecodeRuneInString(s[i:])
 		if r == utf8.RuneError && n == 1 {
-			b = esc(b, utf8.RuneError)
+			b = appendEscape(b, utf8.RuneError)
 			i++
 			continue
 		}
@@ -128,16 +125,64 @@ func AppendJSON(b []byte, s string) []byte {
 		case r == '\t':
 			b = append(b, '\\', 't')
 		case r < 0x20 || Unsafe(r):
-			if r > 0xffff {
-				r -= 0x10000
-				b = esc(b, 0xd800+(r>>10))
-				b = esc(b, 0xdc00+(r&0x3ff))
-			} else {
-				b = esc(b, r)
-			}
+			b = appendEscape(b, r)
 		default:
 			b = append(b, s[i-n:i]...)
 		}
 	}
 	return append(b, '"')
+}
+
+// EscapeJSON returns the JSON text b with every unsafe rune (Unsafe) that
+// encoding/json leaves raw written as a \uXXXX escape (surrogate pairs above
+// U+FFFF). In JSON text non-ASCII runes occur only inside strings, so the
+// document decodes to the same values; printed raw on a terminal it can no
+// longer reorder or hide text. b is returned unchanged when it holds no
+// such rune.
+func EscapeJSON(b []byte) []byte {
+	clean := true
+	for i := 0; i < len(b); {
+		if b[i] < 0x80 {
+			i++
+			continue
+		}
+		r, n := utf8.DecodeRune(b[i:])
+		if Unsafe(r) {
+			clean = false
+			break
+		}
+		i += n
+	}
+	if clean {
+		return b
+	}
+	out := make([]byte, 0, len(b)+16)
+	for i := 0; i < len(b); {
+		if b[i] < 0x80 {
+			out = append(out, b[i])
+			i++
+			continue
+		}
+		r, n := utf8.DecodeRune(b[i:])
+		if Unsafe(r) {
+			out = appendEscape(out, r)
+		} else {
+			out = append(out, b[i:i+n]...)
+		}
+		i += n
+	}
+	return out
+}
+
+// appendEscape appends r as one \uXXXX escape, or a surrogate pair.
+func appendEscape(b []byte, r rune) []byte {
+	const hex = "0123456789abcdef"
+	one := func(b []byte, r rune) []byte {
+		return append(b, '\\', 'u', hex[r>>12&0xf], hex[r>>8&0xf], hex[r>>4&0xf], hex[r&0xf])
+	}
+	if r > 0xffff {
+		r -= 0x10000
+		return one(one(b, 0xd800+(r>>10)), 0xdc00+(r&0x3ff))
+	}
+	return one(b, r)
 }
