@@ -114,11 +114,11 @@ func writeEvalText(w io.Writer, sc *evaluated) error {
 	tw.Flush()
 
 	fmt.Fprintf(&b, "\nDerived\n")
-	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+	dt := report.Table{Indent: "  ", Wrap: []bool{false, false, true, true}}
 	for _, qt := range model.Quantities() {
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", qt.Symbol, quantity.Format(qt.Dim, qt.Value(&r.State)), qt.Formula, qt.Source)
+		dt.Row(qt.Symbol, quantity.Format(qt.Dim, qt.Value(&r.State)), qt.Formula, qt.Source)
 	}
-	tw.Flush()
+	b.WriteString(dt.String())
 
 	fmt.Fprintf(&b, "\nCriteria: survives and grows when τ_cool/τ_dyn < α (χ/100)^β\n")
 	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
@@ -165,13 +165,14 @@ func writeEvalText(w io.Writer, sc *evaluated) error {
 
 // writeTrimmed writes text for a terminal: each line through the one
 // sanitiser (text from criteria files, tables and file names cannot act on
-// the terminal), with the spaces that tabwriter leaves at line ends removed.
+// the terminal), with the spaces that tabwriter leaves at line ends
+// removed, and wrapped to report.TextWidth columns.
 func writeTrimmed(w io.Writer, text string) error {
 	lines := strings.Split(text, "\n")
 	for i, l := range lines {
 		lines[i] = strings.TrimRight(safetext.Terminal(l), " ")
 	}
-	_, err := io.WriteString(w, strings.Join(lines, "\n"))
+	_, err := io.WriteString(w, report.FitLines(strings.Join(lines, "\n"), report.TextWidth))
 	return err
 }
 

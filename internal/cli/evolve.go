@@ -342,7 +342,7 @@ func (o *evolveOutput) writeText(w io.Writer) error {
 	}
 	tw.Flush()
 	fmt.Fprintf(&b, "\nConstants (every one settable; the status says how sure it is)\n")
-	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+	ct := report.Table{Indent: "  ", Wrap: []bool{false, false, true}}
 	for _, c := range o.set.Constants() {
 		val := c.Text
 		if val == "" {
@@ -351,9 +351,9 @@ func (o *evolveOutput) writeText(w io.Writer) error {
 		if c.Key == "disable" && c.Text == "none" {
 			continue // only for limits and tests
 		}
-		fmt.Fprintf(tw, "  %s\t%s\t%s\n", c.Symbol, val, c.Status)
+		ct.Row(c.Symbol, val, c.Status)
 	}
-	tw.Flush()
+	b.WriteString(ct.String())
 	fmt.Fprintf(&b, "\nentrained: first |Δv| ≤ 0.1 v_w; doubled: m = 2 m0; destroyed: m < 10⁻³ m0 (the run stops). Times in t_cc of the initial cloud.\n")
 	return writeTrimmed(w, b.String())
 }

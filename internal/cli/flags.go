@@ -13,6 +13,7 @@ import (
 	"strings"
 
 	"cloudwind/internal/quantity"
+	"cloudwind/internal/report"
 	"cloudwind/internal/scenario"
 	"cloudwind/internal/suggest"
 	"cloudwind/model"
@@ -82,31 +83,40 @@ func (f *flagSet) explain(err error) error {
 }
 
 func (f *flagSet) printHelp(w io.Writer) {
+	const col = 28 // where the usage text starts
 	var b bytes.Buffer
-	fmt.Fprintf(&b, "%s\n\nFlags:\n", strings.TrimSpace(f.synopsis))
+	for _, l := range strings.Split(strings.TrimSpace(f.synopsis), "\n") {
+		b.WriteString(report.FitLines(l, report.TextWidth) + "\n")
+	}
+	b.WriteString("\nFlags:\n")
+	pad := strings.Repeat(" ", col)
 	f.fs.VisitAll(func(fl *flag.Flag) {
 		name, usage := flag.UnquoteUsage(fl)
 		line := "  --" + fl.Name
 		if name != "" {
 			line += " " + name
 		}
-		if len(line) > 26 {
-			fmt.Fprintf(&b, "%s\n%28s", line, "")
-		} else {
-			fmt.Fprintf(&b, "%-28s", line)
-		}
 		// The default goes at the end of the first line of the usage, so
 		// that a multi-line usage does not seem to give it to its last line.
 		first, rest, multi := strings.Cut(usage, "\n")
-		b.WriteString(first)
 		if fl.DefValue != "" && fl.DefValue != "false" {
-			fmt.Fprintf(&b, " (default %s)", fl.DefValue)
+			first += fmt.Sprintf(" (default %s)", fl.DefValue)
 		}
+		parts := []string{first}
 		if multi {
-			b.WriteString("\n" + strings.Repeat(" ", 28))
-			b.WriteString(strings.ReplaceAll(rest, "\n", "\n"+strings.Repeat(" ", 28)))
+			parts = append(parts, strings.Split(rest, "\n")...)
 		}
-		b.WriteByte('\n')
+		head := line + strings.Repeat(" ", max(1, col-len(line)))
+		if len(line) > col-2 {
+			b.WriteString(line + "\n")
+			head = pad
+		}
+		for _, p := range parts {
+			for _, l := range report.Wrap(p, report.TextWidth, head, pad) {
+				b.WriteString(strings.TrimRight(l, " ") + "\n")
+			}
+			head = pad
+		}
 	})
 	if f.examples != "" {
 		fmt.Fprintf(&b, "\nExamples:\n%s\n", strings.TrimRight(f.examples, "\n"))

@@ -233,15 +233,15 @@ func writePlanText(w io.Writer, res *model.Result, pl *model.Plan, cmp []model.P
 		tw.Flush()
 	}
 	fmt.Fprintf(&b, "\nAssumptions\n")
-	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
+	at := report.Table{Indent: "  ", Wrap: []bool{false, false, false, true}}
 	for _, a := range planAssumptions(set) {
 		val := quantity.FormatSig(a.Value, 3)
 		if a.Value == 0 {
 			val = "auto"
 		}
-		fmt.Fprintf(tw, "  %s\t%s %s\t%s\t%s\n", a.Field, val, a.Unit, a.Status, a.Note)
+		at.Row(a.Field, val+" "+a.Unit, a.Status, a.Note)
 	}
-	tw.Flush()
+	b.WriteString(at.String())
 	return writeTrimmed(w, b.String())
 }
 

@@ -31,7 +31,7 @@ Output goes to stdout, or with -o to FILE, written atomically: an
 interrupted or failed run leaves no partial file.`
 
 const sweepExamples = `  cloudwind sweep --chi log:10:1e4:61 --radius log:0.01:1e3:101 --format csv -o grid.csv
-  cloudwind sweep --chi 100,300,1000 --mach 0.5,1,1.5 --radius "log:0.1pc:1kpc:41" --format ecsv -o grid.ecsv
+  cloudwind sweep --chi 100,300,1000 --mach 0.5,1,1.5 --radius "log:0.1pc:1kpc:41" -o grid.ecsv
   cloudwind sweep --metallicity lin:0.1:1:10 --cooling builtin --format jsonl | head`
 
 // sweepOptions are the parsed flags of sweep.
