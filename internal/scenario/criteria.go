@@ -90,6 +90,21 @@ func (c child) header() string {
 	return "[" + clip(c.t.Name) + "]"
 }
 
+// tableValue returns the sub-table or array of tables key of t as a Value
+// of KindTable, or KindArray of KindTable, so that a key given a table, in
+// any of TOML's ways to write one, gets the error of any other wrong type.
+func tableValue(t *Table, key string) Value {
+	if sub := t.Tables[key]; sub != nil {
+		return Value{Kind: KindTable, Table: sub, Line: sub.Line}
+	}
+	arr := t.Arrays[key]
+	v := Value{Kind: KindArray, Line: arr[0].Line}
+	for _, e := range arr {
+		v.Array = append(v.Array, Value{Kind: KindTable, Table: e, Line: e.Line})
+	}
+	return v
+}
+
 // children returns the sub-tables and array elements of t in file order.
 func children(t *Table) []child {
 	var cs []child
@@ -111,7 +126,11 @@ func children(t *Table) []child {
 func (f *criteriaFile) apply(root *Table) error {
 	if len(root.Keys) > 0 {
 		k := root.Keys[0]
-		return errAt(root.Values[k].Line, "key %q is outside any table; criteria go in [[criterion]] tables", clip(k))
+		v := root.Values[k]
+		if k == "criterion" {
+			return errAt(v.Line, "criterion must be an array of tables, as in [[criterion]], not %s", article(v.Kind))
+		}
+		return errAt(v.Line, "key %q is outside any table; criteria go in [[criterion]] tables", clip(k))
 	}
 	for _, c := range children(root) {
 		switch {
@@ -131,6 +150,9 @@ func (f *criteriaFile) apply(root *Table) error {
 // criterion merges one [[criterion]] table into f.out.
 func (f *criteriaFile) criterion(t *Table) error {
 	idv, ok := t.Values["id"]
+	if !ok && firstLine(t, "id") > 0 {
+		idv, ok = tableValue(t, "id"), true
+	}
 	if !ok {
 		return errAt(t.Line, "[[criterion]] needs an id: a built-in id to change that criterion, or a new one to add a criterion")
 	}
@@ -159,11 +181,18 @@ func (f *criteriaFile) criterion(t *Table) error {
 	}
 	rangeChanged := false
 	for _, ch := range children(t) {
-		if ch.key != "range" || ch.array {
+		switch {
+		case ch.key == "range" && !ch.array:
+			if rangeChanged, err = setRange(&c, ch.t, lines); err != nil {
+				return err
+			}
+		case ch.key != "range" && slices.Contains(criterionKeys(), ch.key):
+			// A known key given a table: the setter reports the type.
+			if err := setCriterionKey(&c, ch.key, tableValue(t, ch.key)); err != nil {
+				return err
+			}
+		default:
 			return errAt(ch.t.Line, "unknown table %s in a criterion%s", ch.header(), tableHint(ch))
-		}
-		if rangeChanged, err = setRange(&c, ch.t, lines); err != nil {
-			return err
 		}
 	}
 	if isNew {
@@ -297,12 +326,8 @@ func setCriterionKey(c *model.Criterion, key string, v Value) error {
 // setRange applies a [criterion.range] table to c, records its key lines
 // as "range.KEY", and reports whether an interval changed.
 func setRange(c *model.Criterion, t *Table, lines map[string]int) (bool, error) {
-	if cs := children(t); len(cs) > 0 {
-		return false, errAt(cs[0].t.Line, "unknown table %s: [criterion.range] has no sub-tables", cs[0].header())
-	}
 	old := c.Range
-	for _, k := range t.Keys {
-		v := t.Values[k]
+	set := func(k string, v Value) error {
 		lines["range."+k] = v.Line
 		var err error
 		switch k {
@@ -317,7 +342,19 @@ func setRange(c *model.Criterion, t *Table, lines map[string]int) (bool, error) 
 		default:
 			err = unknownKey(k, v.Line, "[criterion.range]", rangeKeys())
 		}
-		if err != nil {
+		return err
+	}
+	for _, k := range t.Keys {
+		if err := set(k, t.Values[k]); err != nil {
+			return false, err
+		}
+	}
+	for _, ch := range children(t) {
+		if !slices.Contains(rangeKeys(), ch.key) {
+			return false, errAt(ch.t.Line, "unknown table %s: [criterion.range] has no sub-tables", ch.header())
+		}
+		// A known key given a table: the setter reports the type.
+		if err := set(ch.key, tableValue(t, ch.key)); err != nil {
 			return false, err
 		}
 	}
@@ -332,7 +369,7 @@ func kindError(key string, v Value, want string, kinds ...ValueKind) error {
 		return nil
 	}
 	hint := ""
-	if slices.Contains(kinds, KindString) {
+	if slices.Contains(kinds, KindString) && v.Kind != KindArray && v.Kind != KindTable {
 		hint = " (put it in quotes)"
 	}
 	return errAt(v.Line, "%s must be %s, not %s%s", key, want, article(v.Kind), hint)
@@ -340,7 +377,7 @@ func kindError(key string, v Value, want string, kinds ...ValueKind) error {
 
 // article returns the kind with its indefinite article, e.g. "an integer".
 func article(k ValueKind) string {
-	if k == KindInteger || k == KindArray {
+	if k == KindInteger || k == KindArray || k == KindOffsetDateTime {
 		return "an " + k.String()
 	}
 	return "a " + k.String()

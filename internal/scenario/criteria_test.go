@@ -356,7 +356,8 @@ func badCriteriaCases() []badCriteriaCase {
 		{"unknown array of tables", "[[crit]]\n", 1, "unknown table [[crit]]"},
 		{"range as array of tables", li + "[[criterion.range]]\n", 3, "write [criterion.range], not [[criterion.range]]"},
 		{"unknown sub-table", li + "[criterion.rnge]\n", 3, `unknown table [criterion.rnge] in a criterion (did you mean "range"?)`},
-		{"sub-table of range", li + "[criterion.range.chi]\n", 3, "[criterion.range] has no sub-tables"},
+		{"sub-table of range", li + "[criterion.range.x]\n", 3, "[criterion.range] has no sub-tables"},
+		{"range key as a sub-table", li + "[criterion.range.chi]\n", 3, "range.chi must be [min, max]"},
 		{"range as a key", li + "range = [1, 2]\n", 3, "range must be a table"},
 		{"misspelt range key", li + "[criterion.range]\nt-cloud = [1, 2]\n", 4, `(did you mean "t_cloud"?)`},
 		{"range status not a string", li + "[criterion.range]\nstatus = 5\n", 4, "range.status must be a string"},
@@ -364,7 +365,17 @@ func badCriteriaCases() []badCriteriaCase {
 		{"C1 control character", li + "note = \"x\u009by\"\n", 3, "note contains the control character U+009B"},
 		{"escaped newline", li + "status = \"a\\nb\"\n", 3, "status contains the control character U+000A"},
 		{"TOML syntax error", li + "label = \"open\n", 3, "unterminated string"},
-		{"TOML unsupported feature", li + "label = { a = 1 }\n", 3, "not supported by cloudwind's TOML reader"},
+		{"inline table for a string", li + "label = { a = 1 }\n", 3, "label must be a string, not a table"},
+		{"dotted key under a string key", li + "\nnote.text = \"n\"\n", 4, "note must be a string, not a table"},
+		{"array of tables for a string", li + "status = [{ a = 1 }]\n", 3, "status must be a string, not an array"},
+		{"id as a table", "[[criterion]]\nid = {}\n", 2, "id must be a string, not a table"},
+		{"date for a string", li + "equation = 2020-01-01\n", 3, "equation must be a string, not a local date (put it in quotes)"},
+		{"date-time for a number", li + "alpha = 2020-01-01T00:00:00Z\n", 3, "alpha must be a number, not an offset date-time"},
+		{"range key as a table", li + "range.chi.min = 1\n", 3, "range.chi must be [min, max]"},
+		{"unknown range sub-table", li + "range = {chi = [1, 2], x = {}}\n", 3, "unknown table [criterion.range.x]: [criterion.range] has no sub-tables"},
+		{"criterion as a value", "criterion = 5\n", 1, "criterion must be an array of tables, as in [[criterion]], not an integer"},
+		{"criterion as an inline table", "criterion = {id = \"li-2020\"}\n", 1, "write [[criterion]] (an array of tables), not [criterion]"},
+		{"duplicate key", li + "alpha = 1\nalpha = 2\n", 4, `invalid TOML: duplicate key "alpha" (first defined on line 3)`},
 	}
 }
 
@@ -431,9 +442,14 @@ func FuzzLoadCriteria(f *testing.F) {
 		writeCriterion(&b, c)
 	}
 	f.Add([]byte(b.String()))
+	f.Add([]byte(plainCriteria))
+	f.Add([]byte("criterion = [{id = \"li-2020\", alpha = 2, range = {chi = [1, 1e3]}}]\n[[criterion]]\nid = \"x\"\nrange.mach = [1, inf]\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		cs, err := LoadCriteria(bytes.NewReader(data), "fuzz.toml", model.BuiltinCriteria())
 		if err != nil {
+			if errors.Is(err, errInternal) {
+				t.Fatalf("go-toml failed: %v", err)
+			}
 			var pe *ParseError
 			if !errors.As(err, &pe) || pe.File != "fuzz.toml" || pe.Line < 0 || pe.Line > countLines(data) {
 				t.Fatalf("error %v (%T) is not a *ParseError of fuzz.toml with a line in 0..%d", err, err, countLines(data))

@@ -2,32 +2,42 @@
 // files and scenario files. Every error names the file and the line of the
 // problem.
 //
-// # The TOML subset
+// # Reading TOML
 //
-// ParseTOML reads a strict subset of TOML v1.0.0 (https://toml.io/en/v1.0.0)
-// with a reader of its own:
+// Files are TOML v1.0.0 (https://toml.io/en/v1.0.0), read by ParseTOML
+// with go-toml v2 (github.com/pelletier/go-toml/v2, v2.4.3): comments,
+// [table] and [[array]] headers, bare, quoted and dotted keys, inline
+// tables, basic and literal strings on one line or several, with every
+// escape, integers, floats, booleans, dates and times, and arrays of any
+// of these, nested or mixed. A byte-order mark at the start is skipped. A
+// table means the same however it is written: [inputs] followed by
+// radius = 5, inputs.radius = 5 at the top, and inputs = {radius = 5} are
+// one thing, and so are [[criterion]] tables and criterion = [{...}, ...].
+// go-toml implements TOML v1.1.0, which adds to v1.0.0, so files using its
+// additions (inline tables over several lines, the escapes \e and \xHH,
+// times without seconds) are read too; other TOML v1.0.0 readers may refuse
+// them.
 //
-//   - UTF-8 text with LF or CRLF line endings and an optional byte-order
-//     mark; invalid UTF-8 and control characters other than tab are errors
-//     anywhere, comments included;
-//   - # comments and blank lines;
-//   - [table] and [table.sub] headers, and [[array]] headers for arrays of
-//     tables, where [array.sub] is a sub-table of the array's last element;
-//   - key = value with bare keys (A-Z, a-z, 0-9, '_', '-');
-//   - basic strings "..." with the escapes \" \\ \n \t \r \uXXXX and
-//     \UXXXXXXXX, and literal strings '...';
-//   - integers (decimal with sign and '_' between digits, 0x, 0o, 0b),
-//     floats (fraction, exponent, inf and nan), and true and false;
-//   - arrays of those scalars, on one line or several, with a trailing
-//     comma and comments allowed.
+// The rules that stay cloudwind's:
 //
-// Valid TOML outside the subset (quoted and dotted keys, inline tables,
-// nested arrays, multi-line strings, the escapes \b and \f, dates and
-// times) is refused with an error wrapping ErrUnsupported, which reads
-// "... not supported by cloudwind's TOML reader". Invalid TOML (duplicate
-// keys, a table defined twice, a key that is also a table) is refused too.
-// Inputs beyond MaxInputSize, MaxTableDepth, MaxTables or MaxValues are
-// refused with ErrTooLarge, so no file can exhaust memory.
+//   - every error is a *ParseError naming the file and the line, printed
+//     "FILE:LINE: message" on one line; what go-toml finds wrong (syntax,
+//     a duplicate key, a table defined twice) wraps ErrSyntax and reads
+//     "invalid TOML: ...", on the line of the duplicate and, when known,
+//     with the line of the first definition;
+//   - files beyond MaxInputSize are refused before parsing, and beyond
+//     MaxTableDepth, MaxTables, MaxKeys or MaxValues before go-toml decodes
+//     them (its check for duplicates takes time quadratic in the number of
+//     keys), with ErrTooLarge, so no file can take much memory or time;
+//   - no key below the tables (chi, name, alpha, ...) takes a date, a time
+//     or a table: such a value is refused on its line, naming the key, as
+//     any value of the wrong type is ("name must be a string, not a local
+//     date");
+//   - strings are checked once decoded, whatever their form: no control
+//     characters, raw or escaped (so \b, \f, \e and the line breaks of a
+//     multi-line string are refused where a string is read), and in
+//     scenario files no line separators or bidirectional overrides; text
+//     of the file quoted back in a message passes through safetext.Clip.
 //
 // # Criteria files
 //
@@ -67,9 +77,10 @@
 //
 // Rules, checked with the line of the offending key or header:
 //
-//   - the only table is [[criterion]] with its [criterion.range]; no key
-//     may stand outside them, and unknown keys are errors that suggest the
-//     closest known key;
+//   - the only table is [[criterion]] with its [criterion.range] (in any
+//     form TOML allows, as criterion = [{id = "li-2020", alpha = 5}] or
+//     range = {chi = [100, 1000]}); no key may stand outside them, and
+//     unknown keys are errors that suggest the closest known key;
 //   - an id may appear once per file;
 //   - numbers must be finite, except in ranges, where -inf as min or inf
 //     as max leaves that side open (omit the key to leave both open);
@@ -126,8 +137,9 @@
 // Rules, checked with the line of the offending key or table header:
 //
 //   - the tables are [scenario], [inputs], [conventions] and [cooling], each
-//     at most once and all optional; no key may stand outside them, and
-//     unknown keys and tables are errors that suggest the closest known one;
+//     at most once and all optional (in any form TOML allows); no key may
+//     stand outside them, and unknown keys and tables are errors that
+//     suggest the closest known one;
 //   - numbers must be finite; integers and floats are both accepted;
 //   - a convention number may not be 0 (which the model reads as "use the
 //     default"): leave the key out for the default;

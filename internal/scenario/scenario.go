@@ -11,6 +11,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"cloudwind/internal/safetext"
 	"cloudwind/model"
 )
 
@@ -85,7 +86,11 @@ func Parse(r io.Reader, name string) (Scenario, error) {
 func scenarioFrom(root *Table) (Scenario, error) {
 	if len(root.Keys) > 0 {
 		k := root.Keys[0]
-		return Scenario{}, errAt(root.Values[k].Line, "key %q is outside any table; put it under [scenario], [inputs], [conventions] or [cooling]", clip(k))
+		v := root.Values[k]
+		if slices.Contains(scenarioTables(), k) {
+			return Scenario{}, errAt(v.Line, "%s must be a table, as in [%s], not %s", k, k, article(v.Kind))
+		}
+		return Scenario{}, errAt(v.Line, "key %q is outside any table; put it under [scenario], [inputs], [conventions] or [cooling]", clip(k))
 	}
 	s := Scenario{Params: model.Fiducial()}
 	lines := map[string]int{} // key → line; keys are unique across the tables
@@ -96,28 +101,33 @@ func scenarioFrom(root *Table) (Scenario, error) {
 		if c.array {
 			return Scenario{}, errAt(c.t.Line, "write [%s], not [[%s]]", c.key, c.key)
 		}
-		if cs := children(c.t); len(cs) > 0 {
-			return Scenario{}, errAt(cs[0].t.Line, "unknown table %s: [%s] has no sub-tables", cs[0].header(), c.key)
-		}
 		lines["["+c.key+"]"] = c.t.Line
-		for _, k := range c.t.Keys {
-			v := c.t.Values[k]
+		set := func(k string, v Value) error {
 			lines[k] = v.Line
 			if owner := keyTable(k); owner != "" && owner != c.key {
-				return Scenario{}, errAt(v.Line, "key %q belongs in [%s], not [%s]", k, owner, c.key)
+				return errAt(v.Line, "key %q belongs in [%s], not [%s]", k, owner, c.key)
 			}
-			var err error
 			switch c.key {
 			case "scenario":
-				err = setScenarioKey(&s, k, v)
+				return setScenarioKey(&s, k, v)
 			case "inputs":
-				err = setInputKey(&s.Params, k, v)
+				return setInputKey(&s.Params, k, v)
 			case "conventions":
-				err = setConventionKey(&s.Params, k, v)
-			case "cooling":
-				err = setCoolingKey(&s, k, v)
+				return setConventionKey(&s.Params, k, v)
 			}
-			if err != nil {
+			return setCoolingKey(&s, k, v)
+		}
+		for _, k := range c.t.Keys {
+			if err := set(k, c.t.Values[k]); err != nil {
+				return Scenario{}, err
+			}
+		}
+		for _, sub := range children(c.t) {
+			if keyTable(sub.key) == "" {
+				return Scenario{}, errAt(sub.t.Line, "unknown table %s: [%s] has no sub-tables", sub.header(), c.key)
+			}
+			// A known key given a table: the setter reports the type.
+			if err := set(sub.key, tableValue(c.t, sub.key)); err != nil {
 				return Scenario{}, err
 			}
 		}
@@ -243,12 +253,14 @@ func setConventionKey(p *model.Params, key string, v Value) error {
 	if err != nil {
 		return err
 	}
-	if x == 0 {
-		def := "the model default"
-		if key == model.FieldTFloor {
-			def = "the cloud temperature"
-		}
-		return errAt(v.Line, "%s = 0 is not accepted; leave the key out to use %s", key, def)
+	// A value given is used or refused, never replaced by a default
+	// (model.CheckField): 0 is checked as 0, except that a floor of 0 K
+	// means no floor.
+	if err := model.CheckField(key, x); err != nil {
+		return errAt(v.Line, "%w", err)
+	}
+	if key == model.FieldTFloor && x == 0 {
+		x = float64(model.NoFloor)
 	}
 	p.SetField(key, x)
 	return nil
@@ -300,26 +312,39 @@ func setCoolingKey(s *Scenario, key string, v Value) error {
 	return unknownKey(key, v.Line, "[cooling]", coolingKeys())
 }
 
-// textValue returns a string value that is safe to show: no control
-// characters (stringValue) and no line separators or bidirectional
-// overrides, which could make text read differently from what it is.
+// textValue returns a string value that is plain text (plainText);
+// description may span lines.
 func textValue(key string, v Value) (string, error) {
-	s, err := stringValue(key, v)
-	if err != nil {
+	if err := kindError(key, v, "a string", KindString); err != nil {
 		return "", err
 	}
-	if i := strings.IndexFunc(s, isFormatTrap); i >= 0 {
-		r, _ := utf8.DecodeRuneInString(s[i:])
-		return "", errAt(v.Line, "%s contains %U, a line separator or bidirectional override; strings must be plain text", key, r)
+	if err := plainText(key, v.Str); err != nil {
+		return "", errAt(v.Line, "%w", err)
 	}
-	return s, nil
+	return v.Str, nil
 }
 
-// isFormatTrap reports whether r is a line or paragraph separator
-// (U+2028, U+2029) or a bidirectional embedding, override or isolate
-// (U+202A–U+202E, U+2066–U+2069).
-func isFormatTrap(r rune) bool {
-	return r >= 0x2028 && r <= 0x202E || r >= 0x2066 && r <= 0x2069
+// plainText refuses text that could act on a terminal or read differently
+// from what it is: invalid UTF-8 and every rune the one sanitiser removes
+// (safetext.Unsafe: control, format and bidirectional characters, line
+// separators), except line feeds in a description, which a multi-line
+// string holds.
+func plainText(key, s string) error {
+	if !utf8.ValidString(s) {
+		return fmt.Errorf("%s is not valid UTF-8", key)
+	}
+	for _, r := range s {
+		if r == '\n' && key == "description" {
+			continue
+		}
+		switch {
+		case r == '\t' || unicode.IsControl(r):
+			return fmt.Errorf("%s contains the control character %U; strings must be plain text", key, r)
+		case safetext.Unsafe(r):
+			return fmt.Errorf("%s contains %U, a format or bidirectional character or a line separator; strings must be plain text", key, r)
+		}
+	}
+	return nil
 }
 
 // checkWritable returns an error when s holds something Parse
@@ -333,13 +358,8 @@ func checkWritable(s Scenario) error {
 		}
 	}
 	for _, t := range texts {
-		switch {
-		case !utf8.ValidString(t.s):
-			return fmt.Errorf("%s is not valid UTF-8", t.key)
-		case strings.IndexFunc(t.s, unicode.IsControl) >= 0:
-			return fmt.Errorf("%s contains a control character", t.key)
-		case strings.IndexFunc(t.s, isFormatTrap) >= 0:
-			return fmt.Errorf("%s contains a line separator or bidirectional override", t.key)
+		if err := plainText(t.key, t.s); err != nil {
+			return err
 		}
 	}
 	if len(s.Table) > 0 && s.Cooling == "" {
@@ -408,7 +428,11 @@ func Write(w io.Writer, s Scenario) error {
 		conv = append(conv, "mixture = "+strconv.Quote(p.Mixture.Name))
 	}
 	num(model.FieldHydrogenFraction, p.HydrogenFraction)
-	num(model.FieldTFloor, float64(p.TFloor))
+	if p.TFloor == model.NoFloor {
+		conv = append(conv, model.FieldTFloor+" = 0  # no cooling floor")
+	} else {
+		num(model.FieldTFloor, float64(p.TFloor))
+	}
 	if p.HeatCapacity != model.Isochoric {
 		conv = append(conv, model.FieldHeatCapacity+" = "+strconv.Quote(p.HeatCapacity.String()))
 	}

@@ -3,6 +3,7 @@ package scenario
 import (
 	"bytes"
 	"errors"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"os"
@@ -138,7 +139,7 @@ func randomScenario(r *rand.Rand) Scenario {
 		}
 		return v
 	}
-	runes := []rune(`aZ09 _-#=[]{}'"\χ☉⁻³é` + "\u00a0\ufeff\U0001F600")
+	runes := []rune(`aZ09 _-#=[]{}'"\χ☉⁻³é` + "\u00a0\U0001F600")
 	text := func() string {
 		rs := make([]rune, r.IntN(12))
 		for i := range rs {
@@ -197,6 +198,18 @@ func TestWriteScenarioRoundTrip(t *testing.T) {
 	}
 }
 
+// readNumber reads the number s as ParseTOML reads the value of a key.
+func readNumber(s string) (float64, error) {
+	doc, err := ParseTOML(strings.NewReader("x = " + s))
+	if err != nil {
+		return 0, err
+	}
+	if v := doc.Root.Values["x"]; v.IsNumber() {
+		return v.Num, nil
+	}
+	return 0, fmt.Errorf("x = %s is not a number", s)
+}
+
 func TestFormatParsecs(t *testing.T) {
 	// A radius typed in pc converts back exactly; one typed in cm comes
 	// back within one unit in the last place (the pc grid does not cover
@@ -206,13 +219,16 @@ func TestFormatParsecs(t *testing.T) {
 		pc := math.Pow(10, -9+16*r.Float64())
 		rcm := model.Length(pc) * model.Parsec
 		s := formatParsecs(rcm)
-		v, err := parseScalar(s, 1)
-		if err != nil || model.Length(v.Num)*model.Parsec != rcm {
-			t.Fatalf("formatParsecs(%g cm = %g pc) = %q, which reads back as %g cm", float64(rcm), pc, s, float64(model.Length(v.Num)*model.Parsec))
+		v, err := readNumber(s)
+		if err != nil || model.Length(v)*model.Parsec != rcm {
+			t.Fatalf("formatParsecs(%g cm = %g pc) = %q, which reads back as %g cm (%v)", float64(rcm), pc, s, float64(model.Length(v)*model.Parsec), err)
 		}
 		cm := math.Pow(10, 10+14*r.Float64())
-		v, _ = parseScalar(formatParsecs(model.Length(cm)), 1)
-		back := float64(model.Length(v.Num) * model.Parsec)
+		v, err = readNumber(formatParsecs(model.Length(cm)))
+		if err != nil {
+			t.Fatal(err)
+		}
+		back := float64(model.Length(v) * model.Parsec)
 		if back != cm && back != math.Nextafter(cm, 0) && back != math.Nextafter(cm, math.Inf(1)) {
 			t.Fatalf("formatParsecs(%g cm) reads back as %g cm, more than one ulp away", cm, back)
 		}
@@ -267,7 +283,7 @@ func badScenarioCases() []badScenarioCase {
 		{"unknown table", "[input]\nchi = 3\n", 1, `unknown table [input] (did you mean "inputs"?)`, ""},
 		{"array of tables", "[scenario]\n[[inputs]]\n", 2, "write [inputs], not [[inputs]]", ""},
 		{"sub-table", "[inputs]\nchi = 3\n[inputs.extra]\n", 3, "[inputs] has no sub-tables", ""},
-		{"table twice", "[inputs]\n[cooling]\n[inputs]\n", 3, "table [inputs] is already defined on line 1", ""},
+		{"table twice", "[inputs]\n[cooling]\n[inputs]\n", 3, "invalid TOML: table [inputs] is already defined (first defined on line 1)", ""},
 		{"string for a number", "[inputs]\nchi = \"300\"\n", 2, "chi must be a number, not a string", ""},
 		{"number for a string", "[scenario]\nname = 5\n", 2, "name must be a string, not an integer (put it in quotes)", ""},
 		{"string for a boolean", "[scenario]\ndemo = \"yes\"\n", 2, "demo must be true or false, not a string", ""},
@@ -275,8 +291,10 @@ func badScenarioCases() []badScenarioCase {
 		{"inf", "[inputs]\n\npressure = inf\n", 3, "pressure must be a finite number (got +Inf)", ""},
 		{"-inf convention", "[conventions]\nt_floor = -inf\n", 2, "t_floor must be a finite number", ""},
 		{"radius overflows", "[inputs]\nradius = 1e300\n", 2, "radius = 1e+300 pc is out of range", ""},
-		{"zero convention", "[conventions]\nmu = 0\n", 2, "mu = 0 is not accepted; leave the key out to use the model default", ""},
-		{"zero floor", "[conventions]\nt_floor = 0.0\n", 2, "leave the key out to use the cloud temperature", ""},
+		{"zero convention", "[conventions]\nmu = 0\n", 2, "mu: must be at least 0.1 (got 0)", "mu"},
+		{"zero gamma", "[conventions]\ngamma = 0\n", 2, "gamma: must be greater than 1 (got 0)", "gamma"},
+		{"negative floor", "[conventions]\nt_floor = -1\n", 2, "t_floor: must be a finite temperature ≥ 0 K, 0 for no floor (got -1)", "t_floor"},
+		{"soft hyphen", "[scenario]\nname = \"a\u00adb\"\n", 2, "name contains U+00AD, a format or bidirectional character", ""},
 		{"unknown mixture", "[conventions]\nmixture = \"A10\"\n", 2, `unknown mixture "A10" (want one of A09, A09p, AG89, GS98, A21)`, ""},
 		{"mixture in lower case", "[conventions]\nmixture = \"gs98\"\n", 2, `unknown mixture "gs98" (want one of A09, A09p, AG89, GS98, A21) (did you mean "GS98"?)`, ""},
 		{"unknown heat capacity", "[conventions]\nheat_capacity = \"isothermal\"\n", 2, `unknown heat_capacity "isothermal" (want isochoric or isobaric)`, ""},
@@ -293,7 +311,23 @@ func badScenarioCases() []badScenarioCase {
 		{"table of numbers", "[cooling]\nspec = \"t.dat\"\ntable = [\n  \"norm: nH2\",\n  1,\n]\n", 5, "table must be a string, not an integer", ""},
 		{"empty table setting", "[cooling]\nspec = \"t.dat\"\ntable = [\"\"]\n", 3, "table settings must not be empty", ""},
 		{"TOML syntax error", "[scenario]\nname = \"open\n", 2, "unterminated string", ""},
-		{"TOML unsupported feature", "[inputs]\nchi = { a = 1 }\n", 2, "not supported by cloudwind's TOML reader", ""},
+		{"inline table for a number", "[inputs]\nchi = { a = 1 }\n", 2, "chi must be a number, not a table", ""},
+		{"sub-table for a number", "[inputs]\n[inputs.mach]\n", 2, "mach must be a number, not a table", ""},
+		{"dotted key under a number", "[cooling]\nspec.x = 1\n", 2, "spec must be a string, not a table", ""},
+		{"array of tables for table", "[cooling]\nspec = \"t.dat\"\ntable = [{ a = 1 }]\n", 3, "table must be a string, not a table", ""},
+		{"table in the wrong table", "[conventions]\nchi = {}\n", 2, `key "chi" belongs in [inputs], not [conventions]`, ""},
+		{"unknown inline sub-table", "inputs = {extra = {}}\n", 1, "unknown table [inputs.extra]: [inputs] has no sub-tables", ""},
+		{"table as a value", "inputs = 5\n", 1, "inputs must be a table, as in [inputs], not an integer", ""},
+		{"date for a string", "[scenario]\nname = 1979-05-27\n", 2, "name must be a string, not a local date (put it in quotes)", ""},
+		{"time for a number", "[inputs]\n\nchi = 07:32:00\n", 3, "chi must be a number, not a local time", ""},
+		{"date-time for a boolean", "[scenario]\ndemo = 1979-05-27 07:32:00\n", 2, "demo must be true or false, not a local date-time", ""},
+		{"dates in an array", "[cooling]\nspec = \"t.dat\"\ntable = [\n  1979-05-27T07:32:00-08:00,\n]\n", 4, "table must be a string, not an offset date-time", ""},
+		{"backspace escape", "[scenario]\nname = \"a\\bb\"\n", 2, "name contains the control character U+0008", ""},
+		{"form feed escape", "[scenario]\ndescription = 'x'\nname = \"a\\fb\"\n", 3, "name contains the control character U+000C", ""},
+		{"newline in a multi-line string", "[scenario]\nname = \"\"\"\nab\ncd\"\"\"\n", 2, "name contains the control character U+000A", ""},
+		{"duplicate key", "[inputs]\nchi = 300\nmach = 2\nchi = 400\n", 4, `invalid TOML: duplicate key "chi" (first defined on line 2)`, ""},
+		{"duplicate dotted key", "inputs.chi = 300\ninputs.chi = 400\n", 2, `invalid TOML: duplicate key "chi" (first defined on line 1)`, ""},
+		{"inline table reopened", "inputs = {chi = 300}\n[inputs]\n", 2, `invalid TOML: cannot define table [inputs]: key "inputs" is already a value (first defined on line 1)`, ""},
 		// Validate errors (model/params.go) on the line of the key they name.
 		{"chi at most 1", "[inputs]\nmach = 1\nchi = 1\n", 3, "chi: must be greater than 1 (got 1)", model.FieldChi},
 		{"mach zero", "[inputs]\nmach = 0\n", 2, "mach: must be greater than 0", model.FieldMach},
@@ -347,9 +381,13 @@ func FuzzParseScenario(f *testing.F) {
 		f.Add(bytes.Clone(b.Bytes()))
 	}
 	f.Add([]byte("[inputs]\nradius = 3.3\n[conventions]\nmixture = \"AG89\"\ndensity_product = \"n2\"\n[cooling]\nspec = \"x\"\ntable = []\n"))
+	f.Add([]byte("inputs = {chi = 300, mach = 1.5}\nscenario.name = 'x'\n[cooling]\nspec = \"\"\"builtin\"\"\"\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		s, err := Parse(bytes.NewReader(data), "fuzz.toml")
 		if err != nil {
+			if errors.Is(err, errInternal) {
+				t.Fatalf("go-toml failed: %v", err)
+			}
 			var pe *ParseError
 			if !errors.As(err, &pe) || pe.File != "fuzz.toml" || pe.Line < 0 || pe.Line > countLines(data) {
 				t.Fatalf("error %v (%T) is not a *ParseError of fuzz.toml with a line in 0..%d", err, err, countLines(data))
@@ -374,4 +412,41 @@ func FuzzParseScenario(f *testing.F) {
 			t.Fatalf("round trip changed the scenario:\n%+v\nwant\n%+v", back, s)
 		}
 	})
+}
+
+// TestParseScenarioNoFloor: t_floor = 0 asks for no cooling floor, as
+// --t-floor 0 does, and survives a write and read (a rule of this package).
+func TestParseScenarioNoFloor(t *testing.T) {
+	s, err := Parse(strings.NewReader("[conventions]\nt_floor = 0\n"), "nofloor.toml")
+	if err != nil {
+		t.Fatalf("Parse(t_floor = 0) = %v", err)
+	}
+	if _, ok := s.Params.Floor(); ok || s.Params.TFloor != model.NoFloor {
+		t.Fatalf("t_floor = 0 gave TFloor %g, want model.NoFloor", float64(s.Params.TFloor))
+	}
+	var b bytes.Buffer
+	if err := Write(&b, s); err != nil {
+		t.Fatal(err)
+	}
+	back, err := Parse(&b, "again.toml")
+	if err != nil || back.Params.TFloor != model.NoFloor {
+		t.Fatalf("round trip: %v, TFloor %g\n%s", err, float64(back.Params.TFloor), b.String())
+	}
+}
+
+// TestParseScenarioMultiLineDescription: a description may span lines
+// (a TOML multi-line string); other strings may not.
+func TestParseScenarioMultiLineDescription(t *testing.T) {
+	src := "[scenario]\nname = 'x'\ndescription = \"\"\"\nfirst line\nsecond line\"\"\"\n"
+	s, err := Parse(strings.NewReader(src), "ml.toml")
+	if err != nil || s.Description != "first line\nsecond line" {
+		t.Fatalf("Parse = %q, %v", s.Description, err)
+	}
+	var b bytes.Buffer
+	if err := Write(&b, s); err != nil {
+		t.Fatal(err)
+	}
+	if back, err := Parse(&b, "again.toml"); err != nil || back.Description != s.Description {
+		t.Fatalf("round trip = %q, %v\n%s", back.Description, err, b.String())
+	}
 }

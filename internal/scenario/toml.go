@@ -1,27 +1,43 @@
 package scenario
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
+	"strconv"
 	"strings"
-	"unicode/utf8"
+
+	"cloudwind/internal/safetext"
+
+	toml "github.com/pelletier/go-toml/v2"
 )
 
-// Limits that bound the memory any input can take.
+// Limits that bound the time and memory any input can take. They are
+// checked before go-toml decodes the file: its duplicate-key check scans
+// every key seen so far, so decoding takes time quadratic in the number of
+// keys and tables (go-toml v2.4.3: 116 000 keys, as many as 1 MiB holds,
+// take 25 s; 8192 take 0.16 s on the machine this was measured on).
 const (
 	MaxInputSize  = 1 << 20 // bytes in one file
-	MaxTableDepth = 16      // components of one table header, as in [a.b.c]
-	MaxTables     = 4096    // tables in one file, implicit ones included
+	MaxTableDepth = 16      // components of a table's full name ([a.b.c], a.b.c = 1 and inline tables alike), and levels of nested arrays
+	MaxTables     = 4096    // tables in one file: implicit ones, inline ones and elements of arrays of tables included
+	MaxKeys       = 4096    // key = value pairs in one file, those inside inline tables included
 	MaxValues     = 1 << 16 // values in one file, array elements included
 )
 
 // Sentinel errors wrapped by ParseError.
 var (
-	// ErrUnsupported marks valid TOML that cloudwind's reader refuses.
-	ErrUnsupported = errors.New("not supported by cloudwind's TOML reader")
+	// ErrSyntax marks a file that is not valid TOML, as go-toml reports it:
+	// a syntax error, a duplicate key or a table defined twice.
+	ErrSyntax = errors.New("invalid TOML")
 	// ErrTooLarge marks an input beyond one of the limits above.
 	ErrTooLarge = errors.New("input too large")
+
+	// errInternal marks a failure of the TOML library rather than of the
+	// file (a recovered panic, or go-toml's parser and decoder reading the
+	// file differently); the fuzz tests fail on it.
+	errInternal = errors.New("internal error in the TOML reader (please report it with the file)")
 )
 
 // A ParseError reports a problem in a file, with its line (1-based; 0 when
@@ -62,16 +78,23 @@ func errAt(line int, format string, args ...any) *ParseError {
 // ValueKind is the type of a Value.
 type ValueKind int
 
-// Kinds of Value.
+// Kinds of Value, one for each TOML type.
 const (
 	KindString ValueKind = iota + 1
 	KindInteger
 	KindFloat
 	KindBool
 	KindArray
+	KindTable // an inline table inside an array; see Value
+	KindOffsetDateTime
+	KindLocalDateTime
+	KindLocalDate
+	KindLocalTime
 )
 
-// String returns "string", "integer", "float", "boolean" or "array".
+// String returns the name TOML v1.0.0 gives the type, in lower case:
+// "string", "integer", "float", "boolean", "array", "table",
+// "offset date-time", "local date-time", "local date" or "local time".
 func (k ValueKind) String() string {
 	switch k {
 	case KindString:
@@ -84,35 +107,53 @@ func (k ValueKind) String() string {
 		return "boolean"
 	case KindArray:
 		return "array"
+	case KindTable:
+		return "table"
+	case KindOffsetDateTime:
+		return "offset date-time"
+	case KindLocalDateTime:
+		return "local date-time"
+	case KindLocalDate:
+		return "local date"
+	case KindLocalTime:
+		return "local time"
 	}
 	return fmt.Sprintf("ValueKind(%d)", int(k))
 }
 
-// A Value is a TOML value: a scalar or an array of scalars.
+// A Value is a TOML value other than a table that a key holds, or an
+// element of an array. Tables that a key holds, written as inline tables or
+// arrays of them, are in Table.Tables and Table.Arrays like the tables of
+// headers; only an inline table inside an array that also holds other
+// values is a Value, of KindTable. Dates and times keep only their kind: no
+// key of cloudwind takes one.
 type Value struct {
 	Kind  ValueKind
 	Str   string  // KindString: the decoded string
 	Int   int64   // KindInteger: the exact value
 	Num   float64 // KindInteger (converted) and KindFloat; may be ±Inf or NaN
 	Bool  bool    // KindBool
-	Array []Value // KindArray: the elements, each a scalar
+	Array []Value // KindArray: the elements
+	Table *Table  // KindTable: the inline table
 	Line  int     // the line the value starts on: for a key's value, the key's line
 }
 
 // IsNumber reports whether v is an integer or a float.
 func (v Value) IsNumber() bool { return v.Kind == KindInteger || v.Kind == KindFloat }
 
-// A Table is a TOML table: the root, a [table] or an element of an
-// [[array]]. Maps are nil until something is put in them.
+// A Table is a TOML table: the root, a table defined by a [header], a
+// dotted key or an inline table, or an element of an array of tables. Maps
+// are nil until something is put in them.
 type Table struct {
-	Name   string              // dotted name, "" for the root; elements of [[a]] are named "a"
-	Line   int                 // line of the header that defined or first implied it; 0 for the root
+	Name   string              // dotted name, "" for the root; elements of [[a]] are named "a"; parts that are not bare keys are quoted
+	Line   int                 // line of the header, key or "{" that defined or first implied it; 0 for the root
 	Keys   []string            // keys of Values, in file order
 	Values map[string]Value    // key = value pairs
 	Tables map[string]*Table   // sub-tables, by their last name component
 	Arrays map[string][]*Table // arrays of tables, by their last name component
 
-	explicit bool // defined by its own header (or the root), not only implied
+	origin origin // how the table came to be, for the notes on duplicates
+	depth  int    // components of the full name
 }
 
 // A Document is a parsed TOML file.
@@ -120,7 +161,7 @@ type Document struct {
 	Root *Table // the keys before the first header, and every table under it
 }
 
-// ParseTOML reads a TOML document of the subset described in the package
+// ParseTOML reads a TOML document, as described in the package
 // documentation. Every error is a *ParseError with the line of the problem.
 func ParseTOML(r io.Reader) (*Document, error) {
 	data, err := io.ReadAll(io.LimitReader(r, MaxInputSize+1))
@@ -130,317 +171,163 @@ func ParseTOML(r io.Reader) (*Document, error) {
 	if len(data) > MaxInputSize {
 		return nil, &ParseError{Err: fmt.Errorf("%w: more than %d bytes", ErrTooLarge, MaxInputSize)}
 	}
-	src := strings.TrimPrefix(string(data), "\uFEFF") // a byte-order mark some editors write
-	if err := checkText(src); err != nil {
+	data = bytes.TrimPrefix(data, []byte("\uFEFF")) // a byte-order mark some editors write
+	return parseTOML(data[:len(data):len(data)])
+}
+
+// parseTOML reads data in three steps: go-toml's parser builds the tree,
+// with lines and file order, and checks the limits; go-toml's decoder then
+// checks the whole file and decodes the values; the tree takes the values.
+// A panic in go-toml becomes an error.
+func parseTOML(data []byte) (doc *Document, err error) {
+	defer func() {
+		if p := recover(); p != nil {
+			doc, err = nil, &ParseError{Err: fmt.Errorf("%w: %s", errInternal, safetext.Clip(fmt.Sprint(p), 200))}
+		}
+	}()
+	b := newBuilder(data)
+	parseErr := b.build()
+	if errors.Is(parseErr, ErrTooLarge) {
+		return nil, parseErr
+	}
+	var decoded map[string]any
+	if err := toml.Unmarshal(data, &decoded); err != nil {
+		// The decoder stops at the first problem in file order, which may
+		// come before the parser's, as a duplicate key does.
+		return nil, b.decodeError(err)
+	}
+	if parseErr != nil {
+		return nil, parseErr
+	}
+	if err := b.fill(b.root, decoded); err != nil {
 		return nil, err
 	}
-	p := &parser{src: src, line: 1, root: &Table{explicit: true}}
-	p.cur = p.root
-	if err := p.parse(); err != nil {
-		return nil, err
-	}
-	return &Document{Root: p.root}, nil
+	return &Document{Root: b.root}, nil
 }
 
-// checkText rejects invalid UTF-8, control characters other than tab and
-// line feed (TOML v1.0.0 forbids them everywhere), and a carriage return
-// that does not start a CRLF line ending.
-func checkText(s string) error {
-	line := 1
-	for i := 0; i < len(s); {
-		c := s[i]
-		if c >= utf8.RuneSelf {
-			r, n := utf8.DecodeRuneInString(s[i:])
-			if r == utf8.RuneError && n == 1 {
-				return errAt(line, "invalid UTF-8")
-			}
-			i += n
-			continue
+// decodeError turns an error of go-toml's decoder into a *ParseError on
+// the line go-toml gives.
+func (b *builder) decodeError(err error) error {
+	var de *toml.DecodeError
+	if !errors.As(err, &de) {
+		return &ParseError{Err: fmt.Errorf("%w: %s", errInternal, safetext.Line(err.Error()))}
+	}
+	line, _ := de.Position()
+	return b.syntaxError(line, strings.TrimPrefix(de.Error(), "toml: "), de.Key())
+}
+
+// syntaxError returns a *ParseError wrapping ErrSyntax for a message of
+// go-toml at line. The messages about keys and tables defined twice are
+// rewritten, naming the key quoted and, when the parser saw it, the line of
+// the first definition; go-toml reports a duplicate inside an inline table
+// on the line of the key holding the table, so the line is moved to the
+// duplicate's. Other messages, already in lower case, are kept, on one
+// line and with unsafe characters removed.
+func (b *builder) syntaxError(line int, msg string, key []string) error {
+	text, dup := rewriteMessage(msg, key)
+	if dup {
+		if c, ok := b.conflicts[line]; ok {
+			line = c.line
+			text += fmt.Sprintf(" (first defined on line %d)", c.first)
 		}
-		switch {
-		case c == '\n':
-			line++
-		case c == '\r':
-			if i+1 >= len(s) || s[i+1] != '\n' {
-				return errAt(line, "carriage return not followed by a line feed")
-			}
-		case c == '\t':
-		case c < 0x20 || c == 0x7f:
-			return errAt(line, "control character %U is not allowed", rune(c))
+	}
+	return &ParseError{Line: line, Err: fmt.Errorf("%w: %s", ErrSyntax, text)}
+}
+
+// rewriteMessage rewrites a go-toml v2.4.3 message about a key or table
+// defined twice into the style of this package, and reports whether it was
+// one. key is the key or table header go-toml was processing.
+func rewriteMessage(msg string, key []string) (string, bool) {
+	header := clip(joinKey(key))
+	if name, ok := cutAround(msg, "key ", " is already defined"); ok {
+		return fmt.Sprintf("duplicate key %q", clip(name)), true
+	}
+	if _, ok := cutAround(msg, "table ", " already exists as defined by a dotted key"); ok {
+		return fmt.Sprintf("table [%s] is already defined by dotted keys", header), true
+	}
+	if _, ok := cutAround(msg, "table ", " already exists as an array of tables"); ok {
+		return fmt.Sprintf("cannot define table [%s]: it is already an array of tables", header), true
+	}
+	if _, ok := cutAround(msg, "table ", " already exists"); ok {
+		return fmt.Sprintf("table [%s] is already defined", header), true
+	}
+	if rest, ok := cutAround(msg, "key ", ", but should be an array table"); ok {
+		if name, kind, ok := strings.Cut(rest, " already exists as a "); ok {
+			return fmt.Sprintf("cannot define array of tables [[%s]]: key %q is already %s", header, clip(name), trackerKind(kind)), true
 		}
-		i++
 	}
-	return nil
-}
-
-// parser holds the state of one ParseTOML call.
-type parser struct {
-	src            string
-	pos, line      int
-	root, cur      *Table
-	tables, values int
-}
-
-// eof reports whether the whole input has been read.
-func (p *parser) eof() bool { return p.pos >= len(p.src) }
-
-// peek returns the next byte, or 0 at the end of the input.
-func (p *parser) peek() byte {
-	if p.eof() {
-		return 0
+	if rest, ok := strings.CutPrefix(msg, "key "); ok {
+		if name, kind, ok := strings.Cut(rest, " should be a table, not a "); ok {
+			return fmt.Sprintf("cannot define table [%s]: key %q is already %s", header, clip(name), trackerKind(kind)), true
+		}
 	}
-	return p.src[p.pos]
-}
-
-// found describes the next character for an error message.
-func (p *parser) found() string {
-	if p.eof() {
-		return "the end of the file"
+	if name, ok := cutAround(msg, "key ", " already exists as a value"); ok {
+		return fmt.Sprintf("cannot define %s: key %q is already a value", header, clip(name)), true
 	}
-	if c := p.src[p.pos]; c == '\n' || c == '\r' {
-		return "the end of the line"
-	}
-	r, _ := utf8.DecodeRuneInString(p.src[p.pos:])
-	return fmt.Sprintf("%q", r)
-}
-
-// skipSpace consumes spaces and tabs.
-func (p *parser) skipSpace() {
-	for !p.eof() && (p.src[p.pos] == ' ' || p.src[p.pos] == '\t') {
-		p.pos++
-	}
-}
-
-// newline consumes a line ending if there is one.
-func (p *parser) newline() bool {
 	switch {
-	case strings.HasPrefix(p.src[p.pos:], "\n"):
-		p.pos++
-	case strings.HasPrefix(p.src[p.pos:], "\r\n"):
-		p.pos += 2
-	default:
-		return false
+	case msg == "basic strings cannot have new lines":
+		return `unterminated string: a "..." string must end on its line (use """...""" for several lines)`, false
+	case msg == "literal strings cannot have new lines":
+		return `unterminated string: a '...' string must end on its line (use '''...''' for several lines)`, false
+	case msg == "unexpected character U+000A at start of value", msg == "unexpected character U+000D at start of value":
+		return "expected a value before the end of the line", false
+	case strings.HasPrefix(msg, "expected newline but got "):
+		return "expected the end of the line, found " + safetext.Line(strings.TrimPrefix(msg, "expected newline but got ")), false
+	case strings.HasPrefix(msg, "unable to parse float: ") && strings.HasSuffix(msg, "value out of range"):
+		return "float out of range (the largest is about 1.8e308)", false
+	case strings.HasPrefix(msg, "unable to parse float: "):
+		return "invalid float", false
 	}
-	p.line++
-	return true
+	return safetext.Line(msg), false
 }
 
-// skipComment consumes a comment up to, not including, the line ending.
-func (p *parser) skipComment() {
-	if p.peek() != '#' {
-		return
+// cutAround returns s without prefix and suffix, if it has both.
+func cutAround(s, prefix, suffix string) (string, bool) {
+	s, ok := strings.CutPrefix(s, prefix)
+	if !ok {
+		return "", false
 	}
-	if i := strings.IndexAny(p.src[p.pos:], "\r\n"); i >= 0 {
-		p.pos += i
-	} else {
-		p.pos = len(p.src)
-	}
+	return strings.CutSuffix(s, suffix)
 }
 
-// skipBlank consumes white space, comments and line endings.
-func (p *parser) skipBlank() {
-	for {
-		p.skipSpace()
-		p.skipComment()
-		if !p.newline() {
-			return
-		}
+// trackerKind describes a kind name of go-toml's duplicate-key tracker.
+func trackerKind(kind string) string {
+	switch kind {
+	case "value":
+		return "a value"
+	case "kv-table":
+		return "a table defined by dotted keys"
+	case "table":
+		return "a table"
+	case "array-table":
+		return "an array of tables"
 	}
+	return safetext.Clip(kind, 20)
 }
 
-// endOfLine consumes optional white space and a comment, then the line
-// ending or the end of the input.
-func (p *parser) endOfLine(after string) error {
-	p.skipSpace()
-	p.skipComment()
-	if p.eof() || p.newline() {
-		return nil
+// joinKey writes a dotted key as TOML would: bare parts as they are, other
+// parts quoted.
+func joinKey(parts []string) string {
+	q := make([]string, len(parts))
+	for i, p := range parts {
+		q[i] = keyPart(p)
 	}
-	return errAt(p.line, "expected the end of the line after the %s, found %s", after, p.found())
+	return strings.Join(q, ".")
 }
 
-// parse reads the whole document, line by line.
-func (p *parser) parse() error {
-	for {
-		p.skipBlank()
-		if p.eof() {
-			return nil
-		}
-		var err error
-		if p.peek() == '[' {
-			err = p.header()
-		} else {
-			err = p.keyValue()
-		}
-		if err != nil {
-			return err
-		}
+// keyPart returns p as a bare key if it is one, and quoted otherwise.
+func keyPart(p string) string {
+	if p == "" || strings.IndexFunc(p, func(r rune) bool { return !isBareKeyRune(r) }) >= 0 {
+		return strconv.Quote(p)
 	}
+	return p
 }
 
-// isBareKeyChar reports whether c may appear in a bare key.
-func isBareKeyChar(c byte) bool {
-	return c >= 'A' && c <= 'Z' || c >= 'a' && c <= 'z' || c >= '0' && c <= '9' || c == '_' || c == '-'
+// isBareKeyRune reports whether r may appear in a bare key (A-Z, a-z, 0-9,
+// '_', '-').
+func isBareKeyRune(r rune) bool {
+	return r >= 'A' && r <= 'Z' || r >= 'a' && r <= 'z' || r >= '0' && r <= '9' || r == '_' || r == '-'
 }
 
-// bareKey reads a bare key; what names it in error messages.
-func (p *parser) bareKey(what string) (string, error) {
-	if c := p.peek(); c == '"' || c == '\'' {
-		return "", errAt(p.line, "quoted keys are %w; use a bare key of A-Z, a-z, 0-9, '_' and '-'", ErrUnsupported)
-	}
-	start := p.pos
-	for !p.eof() && isBareKeyChar(p.src[p.pos]) {
-		p.pos++
-	}
-	if p.pos == start {
-		return "", errAt(p.line, "expected a %s, found %s", what, p.found())
-	}
-	return p.src[start:p.pos], nil
-}
-
-// header reads a [table] or [[array]] header and makes it current.
-func (p *parser) header() error {
-	line := p.line
-	p.pos++
-	array := p.peek() == '['
-	if array {
-		p.pos++
-	}
-	var parts []string
-	for {
-		p.skipSpace()
-		k, err := p.bareKey("table name")
-		if err != nil {
-			return err
-		}
-		if parts = append(parts, k); len(parts) > MaxTableDepth {
-			return errAt(line, "%w: table header nests more than %d levels", ErrTooLarge, MaxTableDepth)
-		}
-		p.skipSpace()
-		if p.peek() != '.' {
-			break
-		}
-		p.pos++
-	}
-	closing := "]"
-	if array {
-		closing = "]]"
-	}
-	if !strings.HasPrefix(p.src[p.pos:], closing) {
-		return errAt(line, "expected %q to close the table header, found %s", closing, p.found())
-	}
-	p.pos += len(closing)
-	if err := p.define(parts, array, line); err != nil {
-		return err
-	}
-	return p.endOfLine("table header")
-}
-
-// newTable counts and returns a new table, refusing more than MaxTables.
-func (p *parser) newTable(name string, line int, explicit bool) (*Table, error) {
-	if p.tables++; p.tables > MaxTables {
-		return nil, errAt(line, "%w: more than %d tables", ErrTooLarge, MaxTables)
-	}
-	return &Table{Name: name, Line: line, explicit: explicit}, nil
-}
-
-// define finds or creates the table a header names, following TOML v1.0.0:
-// a header may imply its parents, a name inside an array of tables means its
-// last element, and no table may be defined twice.
-func (p *parser) define(parts []string, array bool, line int) error {
-	t := p.root
-	for i, k := range parts {
-		name := strings.Join(parts[:i+1], ".")
-		if v, ok := t.Values[k]; ok {
-			return errAt(line, "cannot define table [%s]: key %q was set on line %d", clip(name), clip(k), v.Line)
-		}
-		last := i == len(parts)-1
-		arr, isArray := t.Arrays[k]
-		sub, isTable := t.Tables[k]
-		switch {
-		case !last && isArray:
-			t = arr[len(arr)-1]
-		case !last && isTable:
-			t = sub
-		case array && isTable:
-			return errAt(line, "cannot define array of tables [[%s]]: it is a table defined on line %d", clip(name), sub.Line)
-		case !array && isArray:
-			return errAt(line, "cannot define table [%s]: it is an array of tables defined on line %d", clip(name), arr[0].Line)
-		case last && isTable && sub.explicit:
-			return errAt(line, "table [%s] is already defined on line %d", clip(name), sub.Line)
-		case last && isTable:
-			sub.explicit, sub.Line = true, line
-			p.cur = sub
-		default:
-			nt, err := p.newTable(name, line, last)
-			if err != nil {
-				return err
-			}
-			if last && array {
-				if t.Arrays == nil {
-					t.Arrays = map[string][]*Table{}
-				}
-				t.Arrays[k] = append(t.Arrays[k], nt)
-			} else {
-				if t.Tables == nil {
-					t.Tables = map[string]*Table{}
-				}
-				t.Tables[k] = nt
-			}
-			t = nt
-			p.cur = nt
-		}
-	}
-	return nil
-}
-
-// keyValue reads key = value into the current table.
-func (p *parser) keyValue() error {
-	line := p.line
-	key, err := p.bareKey("key")
-	if err != nil {
-		return err
-	}
-	p.skipSpace()
-	if p.peek() == '.' {
-		return errAt(line, "dotted keys are %w; use a [table] header", ErrUnsupported)
-	}
-	if p.peek() != '=' {
-		return errAt(line, "expected '=' after key %q, found %s", clip(key), p.found())
-	}
-	t := p.cur
-	if old, ok := t.Values[key]; ok {
-		return errAt(line, "duplicate key %q (first set on line %d)", clip(key), old.Line)
-	}
-	if sub, ok := t.Tables[key]; ok {
-		return errAt(line, "key %q is already a table defined on line %d", clip(key), sub.Line)
-	}
-	if arr, ok := t.Arrays[key]; ok {
-		return errAt(line, "key %q is already an array of tables defined on line %d", clip(key), arr[0].Line)
-	}
-	p.pos++
-	p.skipSpace()
-	v, err := p.value(false)
-	if err != nil {
-		return err
-	}
-	if t.Values == nil {
-		t.Values = map[string]Value{}
-	}
-	t.Values[key] = v
-	t.Keys = append(t.Keys, key)
-	return p.endOfLine("value")
-}
-
-// clip shortens s for an error message.
-func clip(s string) string {
-	const max = 40
-	if len(s) <= max {
-		return s
-	}
-	i := max
-	for i > 0 && !utf8.RuneStart(s[i]) {
-		i--
-	}
-	return s[:i] + "…"
-}
+// clip makes s safe to quote in a message and shortens it (safetext.Clip).
+func clip(s string) string { return safetext.Clip(s, 40) }
