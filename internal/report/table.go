@@ -104,11 +104,11 @@ func ECSVHeader(w io.Writer, cols []Column, meta []Meta) error {
 		if c.IsString {
 			dt = "string"
 		}
-		b.WriteString("# - {Name: " + yamlString(c.Name))
+		b.WriteString("# - {name: " + yamlString(c.Name))
 		if c.Unit != "" {
-			b.WriteString(", Unit: " + yamlString(c.Unit))
+			b.WriteString(", unit: " + yamlString(c.Unit))
 		}
-		b.WriteString(", datatype: " + dt + ", Description: " + yamlString(c.Description) + "}\n")
+		b.WriteString(", datatype: " + dt + ", description: " + yamlString(c.Description) + "}\n")
 	}
 	b.WriteString("# meta: !!omap\n")
 	for _, m := range meta {
