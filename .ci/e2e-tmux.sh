@@ -1,8 +1,11 @@
 #!/usr/bin/env bash
 # End-to-end test of the explorer in a real terminal (tmux): start the built
 # binary at 120×40, change χ with keys and see the threshold and verdict
-# text change, switch every view, resize to 80×24 and 30×10, quit, and
-# confirm the exit status and that the terminal was restored.
+# text change, type a value over the selected one, switch every view,
+# export the state twice (the second time answering the overwrite
+# question), resize to 80×24 (every legend entry, the full-screen chart)
+# and 30×10, quit, and confirm the exit status and that the terminal was
+# restored; then run it with --ascii and require plain ASCII on screen.
 # Usage: .ci/e2e-tmux.sh PATH/TO/cloudwind
 set -euo pipefail
 bin=$(realpath "$1")
@@ -50,6 +53,22 @@ tmux send-keys -t "$S" Down Down Down Down Down
 for _ in 1 2 3 4; do tmux send-keys -t "$S" S-Right; done
 wait_for "r_cl     500 pc"
 criterion_row gronke-oh-2018 | grep -q "survives" || fail "gronke-oh-2018 does not survive at r_cl = 500 pc: $(criterion_row gronke-oh-2018)"
+# Typing replaces the selected value (not appended to it), and back to 500 pc.
+tmux send-keys -t "$S" Enter; wait_for "typing replaces 500"
+tmux send-keys -t "$S" -l "0.2 kpc"; tmux send-keys -t "$S" Enter
+wait_for "r_cl     200 pc"
+tmux send-keys -t "$S" Enter; tmux send-keys -t "$S" -l "500"; tmux send-keys -t "$S" Enter
+wait_for "r_cl     500 pc"
+
+# Export the state; a second export to the same file asks first, naming it in full.
+tmux send-keys -t "$S" J; wait_for "export state to"
+tmux send-keys -t "$S" -l "$out/state.json"; tmux send-keys -t "$S" Enter
+wait_for "exported the state to $out/state.json"
+[ -s "$out/state.json" ] || fail "the state export wrote nothing"
+tmux send-keys -t "$S" J; wait_for "export state to"
+tmux send-keys -t "$S" -l "$out/state.json"; tmux send-keys -t "$S" Enter
+wait_for "overwrite the existing file?"; wait_for "$out/state.json"
+tmux send-keys -t "$S" n; wait_for "is unchanged"
 
 # Every view.
 tmux send-keys -t "$S" 1; wait_for "1 threshold radius vs χ"; wait_for "r_crit (pc)"
@@ -61,9 +80,14 @@ tmux send-keys -t "$S" 5; wait_for "5 evolution vs t/t_cc"; wait_for "cloud velo
 tmux send-keys -t "$S" 6; wait_for "6 simulation plan"; wait_for "core-hours"
 tmux send-keys -t "$S" '?'; wait_for "? or esc close"; tmux send-keys -t "$S" Escape; wait_gone "? or esc close"
 
-# Resizes: compact, then too small, then back.
+# Resizes: compact (every curve named, the full-screen chart), then too small, then back.
 tmux resize-window -t "$S" -x 80 -y 24; wait_for "Criteria"
 [ "$(screen | wc -L)" -le 80 ] || fail "a line is wider than 80 columns at 80×24"
+tmux send-keys -t "$S" 1; wait_for "farber-gronke-2022"; wait_for "abruzzo-2023"
+tmux send-keys -t "$S" z; wait_for "full-screen chart"
+tmux send-keys -t "$S" Right; wait_for "criteria predict survival"
+screen | grep -qF "Criteria" && fail "the full-screen chart still shows the criteria pane"
+tmux send-keys -t "$S" z; wait_for "Criteria"
 tmux resize-window -t "$S" -x 30 -y 10; wait_for "terminal too small"
 tmux resize-window -t "$S" -x 120 -y 40; wait_for "Criteria"
 
@@ -75,4 +99,14 @@ grep -qx "exit=0" "$out/status" || fail "exit status: $(cat "$out/status")"
 [ "$(tmux display -p -t "$S" '#{alternate_on}')" = "0" ] || fail "still in the alternate screen after quitting"
 wait_for "SHELL-BEFORE-EXPLORER"
 screen | grep -qF "Criteria" && fail "the explorer's frame is still on the screen after quitting"
-echo "e2e: ok (start, χ and r_cl steps changed the threshold and verdict, 6 views, map axes, help, resize 80×24 and 30×10, quit with status 0, terminal restored)"
+tmux kill-session -t "$S"
+
+# --ascii: nothing but ASCII on screen, in every view.
+tmux -u new-session -d -s "$S" -x 80 -y 24 "'$bin' --ascii --chi 100 --radius '5 pc' --cooling builtin; sleep 30"
+wait_for "Criteria"
+for v in 1 2 3 4 5 6; do
+  tmux send-keys -t "$S" "$v"; wait_for "chart $v/6"
+  if screen | LC_ALL=C grep -q '[^ -~]'; then fail "non-ASCII text with --ascii in view $v"; fi
+done
+tmux send-keys -t "$S" q
+echo "e2e: ok (start, χ and r_cl steps changed the threshold and verdict, typing replaced the value, 6 views, map axes, help, export and the overwrite question, resize 80×24 with every legend entry and the full-screen chart, 30×10, quit with status 0, terminal restored, --ascii all ASCII)"

@@ -35,11 +35,12 @@ const (
 	focusInputs focus = iota
 	focusDerived
 	focusCriteria
+	focusChart
 	focusCount
 )
 
 func (f focus) String() string {
-	return [...]string{"inputs", "derived", "criteria"}[f]
+	return [...]string{"inputs", "derived", "criteria", "chart"}[f]
 }
 
 // App is the explorer: the root Bubble Tea model. It holds the inputs and
@@ -59,6 +60,7 @@ type App struct {
 	pin      *pinned
 	scenario string
 	focus    focus
+	zoom     bool // the chart takes the whole body (z)
 	status   status
 
 	in       inputsPane
@@ -74,15 +76,18 @@ type App struct {
 // invalid one is an error (main validates before).
 func New(cfg Config) (*App, error) {
 	a := &App{cfg: cfg, keys: DefaultKeyMap(), scenario: cfg.Scenario}
+	if cfg.ASCII {
+		a.keys.useASCII()
+	}
 	a.styles = NewStyles(cfg.Palette, cfg.Color, cfg.ASCII)
 	st, k := &a.styles, &a.keys
 	a.in, a.derived, a.criteria = newInputsPane(st, k), newReadout(st, k), newCriteriaPane(st, k)
-	a.chart, a.details, a.prompt, a.help = newChartPane(st), newDetailsPane(st, k), newPrompt(st, k), newHelpOverlay(st, k)
+	a.chart, a.details, a.prompt, a.help = newChartPane(st, k), newDetailsPane(st, k), newPrompt(st, k), newHelpOverlay(st, k)
 	cf, err := cfg.Cooling.Function(cfg.Params.Metallicity)
 	if err != nil {
 		return nil, err
 	}
-	a.cur = snapshot{normalise(cfg.Params), cfg.Cooling, cf}
+	a.cur = snapshot{cfg.Params, cfg.Cooling, cf} // as given: unset optional inputs stay unset and show their defaults
 	if err := a.res.Evaluate(a.cur.params, cf, cfg.Criteria); err != nil {
 		return nil, err
 	}
@@ -109,9 +114,11 @@ func (a *App) update(msg tea.Msg) tea.Cmd {
 	case chartMsg:
 		a.chart, _ = a.chart.Update(msg)
 	case statusMsg:
-		a.status = status{msg.text, msg.isErr}
+		a.setStatus(msg.text, msg.isErr)
 	case coolingMsg:
 		return a.applyCooling(msg)
+	case outputCheckedMsg:
+		return a.applyChecked(msg)
 	case scenarioMsg:
 		return a.applyScenario(msg)
 	case tea.KeyMsg:
@@ -133,6 +140,8 @@ func (a *App) sync() {
 	a.in.SetFocused(a.focus == focusInputs)
 	a.derived.SetFocused(a.focus == focusDerived)
 	a.criteria.SetFocused(a.focus == focusCriteria)
+	a.chart.SetFocused(a.focus == focusChart || a.zoom)
+	a.syncKeys()
 	about := subject{focus: a.focus}
 	switch a.focus {
 	case focusInputs:
@@ -141,15 +150,18 @@ func (a *App) sync() {
 		about.quantity = a.derived.Selected()
 	case focusCriteria:
 		about.criterion = a.criteria.Selected()
+	case focusChart: // the chart explains nothing of its own: the selected input
+		about = subject{focus: focusInputs, input: a.in.Current()}
 	}
 	a.details.SetState(about, a.cur.params, a.cur.cooling, a.cur.cf, &a.res)
 	a.resize()
 }
 
 // handleKey routes a key: prompts and overlays first, then global keys,
-// then the focused pane.
+// then the focused pane (the full-screen chart takes the page keys).
 func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
 	var cmd tea.Cmd
+	k := &a.keys
 	switch {
 	case a.prompt.Open():
 		a.prompt, cmd = a.prompt.Update(msg)
@@ -165,90 +177,27 @@ func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
 		return cmd
 	case a.details.Open():
 		a.details, cmd = a.details.Update(msg)
-		if a.details.Open() && key.Matches(msg, a.keys.Up, a.keys.Down) {
+		if a.details.Open() && key.Matches(msg, k.Up, k.Down) {
 			// Moving the selection keeps the details open on the new item.
 			return a.updateFocused(msg)
 		}
 		return cmd
+	case a.zoom && key.Matches(msg, k.PageUp, k.PageDown, k.Top, k.Bottom),
+		a.zoom && a.focus == focusChart && key.Matches(msg, k.Up, k.Down):
+		a.chart, cmd = a.chart.Update(msg)
+		return cmd
+	case a.zoom && key.Matches(msg, k.Cancel):
+		a.zoom = false
+		a.setStatus("all panes", false)
+		return a.requestChart()
 	}
-	k := &a.keys
-	switch {
-	case key.Matches(msg, k.Quit):
-		return tea.Quit
-	case key.Matches(msg, k.Help):
-		a.help.Show()
-	case key.Matches(msg, k.Details):
-		a.details.Show()
-	case key.Matches(msg, k.Focus):
-		a.focus = (a.focus + 1) % focusCount
-	case key.Matches(msg, k.FocusBack):
-		a.focus = (a.focus + focusCount - 1) % focusCount
-	case key.Matches(msg, k.View1):
-		return a.setView(viewThreshold)
-	case key.Matches(msg, k.View2):
-		return a.setView(viewCooling)
-	case key.Matches(msg, k.View3):
-		return a.setView(viewRatios)
-	case key.Matches(msg, k.View4):
-		return a.setView(viewRegime)
-	case key.Matches(msg, k.View5):
-		return a.setView(viewEvolution)
-	case key.Matches(msg, k.View6):
-		return a.setView(viewPlan)
-	case key.Matches(msg, k.NextView):
-		return a.setView((a.chart.Kind() + 1) % viewCount)
-	case key.Matches(msg, k.Family):
-		a.setStatus("family over Mach numbers "+onOff(a.chart.ToggleFamily())+" (threshold chart; the selected criterion)", false)
-		return a.requestChart()
-	case key.Matches(msg, k.MapAxis):
-		axes := "χ × r_cl"
-		if a.chart.ToggleMapAxis() {
-			axes = "χ × Mach"
-		}
-		a.setStatus("regime map axes: "+axes, false)
-		return a.requestChart()
-	case key.Matches(msg, k.Pin):
-		a.pin = &pinned{snapshot: a.cur, res: cloneResult(&a.res)}
-		a.setStatus("pinned the current scenario as A; changes now make B (P unpins)", false)
-		return a.requestChart()
-	case key.Matches(msg, k.Unpin):
-		if a.pin != nil {
-			a.pin = nil
-			a.setStatus("compare mode off", false)
-			return a.requestChart()
-		}
-	case key.Matches(msg, k.Palette):
-		p := LightPalette()
-		if a.styles.Palette.Name == "light" {
-			p = DarkPalette()
-		}
-		a.styles = NewStyles(p, a.cfg.Color, a.cfg.ASCII)
-		a.setStatus(p.Name+" palette", false)
-	case key.Matches(msg, k.Scenarios):
-		open := a.cfg.Open
-		a.prompt.ChooseScenario(a.cfg.Demos, func(sc scenario.Scenario) tea.Cmd { return loadDemo(sc, open) },
-			a.pathAction(func(path string) tea.Cmd { return loadScenario(path, a.cfg.Open) }))
-	case key.Matches(msg, k.Save):
-		a.prompt.AskPath("save scenario to", "scenario.toml",
-			a.pathAction(func(path string) tea.Cmd { return saveScenario(path, a.currentScenario()) }))
-	case key.Matches(msg, k.ExportChart):
-		a.prompt.AskPath("export chart to (.svg or .png)", "cloudwind-chart.svg",
-			a.pathAction(func(path string) tea.Cmd { return exportChart(path, a.chart.Shown()) }))
-	case key.Matches(msg, k.ExportState):
-		a.prompt.AskPath("export state to", "cloudwind-state.json", a.pathAction(func(path string) tea.Cmd {
-			return exportState(path, report.StateDocument(&a.res, a.cur.cooling, a.cur.cf, a.cfg.Version))
-		}))
-	case key.Matches(msg, k.Undo):
-		return a.undo()
-	case key.Matches(msg, k.ResetAll):
-		return a.change(a.initial, "reset every input")
-	default:
-		if a.focus == focusInputs {
-			return a.updateInputs(msg)
-		}
-		return a.updateFocused(msg)
+	if cmd, ok := a.globalKey(msg); ok {
+		return cmd
 	}
-	return nil
+	if a.focus == focusInputs {
+		return a.updateInputs(msg)
+	}
+	return a.updateFocused(msg)
 }
 
 // updateFocused forwards a key to the focused pane.
@@ -261,6 +210,8 @@ func (a *App) updateFocused(msg tea.KeyMsg) tea.Cmd {
 		a.derived, cmd = a.derived.Update(msg)
 	case focusCriteria:
 		a.criteria, cmd = a.criteria.Update(msg)
+	case focusChart:
+		a.chart, cmd = a.chart.Update(msg)
 	}
 	return cmd
 }
@@ -288,7 +239,11 @@ func (a *App) updateInputs(msg tea.KeyMsg) tea.Cmd {
 	default:
 		return a.updateFocused(msg)
 	}
-	p, coolingName := a.in.Step(a.cur.params, steps, a.cur.cooling.Spec)
+	p, coolingName, err := a.in.Step(a.cur.params, steps, a.cur.cooling.Spec)
+	if err != nil {
+		a.setStatus(err.Error(), true)
+		return nil
+	}
 	if coolingName != "" {
 		return a.requestCooling(coolingName, nil)
 	}
@@ -333,14 +288,17 @@ func (a *App) setView(v viewKind) tea.Cmd {
 
 // requestChart starts computing the chart of the current view from a
 // copy of the inputs; results of older requests are dropped.
-func (a *App) requestChart() tea.Cmd {
+func (a *App) requestChart() tea.Cmd { return a.chart.Request(a.chartRequest()) }
+
+// chartRequest is the request of the current state's charts.
+func (a *App) chartRequest() chartspec.Request {
 	cw, ch := a.chartSize()
 	req := chartspec.Request{Params: a.cur.params, Cooling: a.cur.cf, Criteria: a.cfg.Criteria,
-		Selected: a.criteria.Selected(), Cols: cw, Rows: ch}
+		Selected: a.criteria.Selected(), Cols: cw, Rows: ch, CoolingName: report.CoolingName(a.cur.cooling, a.cur.cf)}
 	if a.pin != nil {
 		req.Pin = &chartspec.Inputs{Params: a.pin.params, Cooling: a.pin.cf}
 	}
-	return a.chart.Request(req)
+	return req
 }
 
 // requestCooling resolves a cooling spec in a command (a table is a file).

@@ -6,11 +6,12 @@ import (
 
 	"cloudwind/internal/quantity"
 	"cloudwind/internal/report"
+	"cloudwind/model"
 )
 
-// View composes the frame: header, the panes (inputs and derived values
-// on the left, chart and criteria on the right), an overlay if one is
-// open, the status line and the key hint.
+// View composes the frame: header, the panes in the layout of the window
+// (layout.go), an overlay if one is open, the status line and the key
+// hint.
 func (a *App) View() string {
 	if a.width == 0 || a.height == 0 {
 		return ""
@@ -20,29 +21,42 @@ func (a *App) View() string {
 	}
 	st := &a.styles
 	l := a.computeLayout()
-	left := append(splitLines(a.in.View()), splitLines(a.derived.View())...)
-	right := append(splitLines(a.chart.View()), splitLines(a.criteria.View())...)
-	body := beside(left, right)
+	var body []string
+	switch {
+	case l.zoom:
+		body = splitLines(a.chart.View())
+	case l.stacked:
+		left := a.in.View()
+		if a.focus == focusDerived {
+			left = a.derived.View()
+		}
+		body = append(splitLines(a.chart.View()), beside(splitLines(left), splitLines(a.criteria.View()))...)
+	default:
+		left := append(splitLines(a.in.View()), splitLines(a.derived.View())...)
+		right := append(splitLines(a.chart.View()), splitLines(a.criteria.View())...)
+		body = beside(left, right)
+	}
 	switch {
 	case a.prompt.Open():
-		body = overlay(body, splitLines(a.prompt.View()), a.width)
+		body = st.overlay(body, splitLines(a.prompt.View()), a.width)
 	case a.help.Open():
-		body = overlay(body, splitLines(a.help.View()), a.width)
+		body = st.overlay(body, splitLines(a.help.View()), a.width)
 	case a.details.Open():
-		body = overlay(body, splitLines(a.details.View()), a.width)
+		body = st.overlay(body, splitLines(a.details.View()), a.width)
 	}
 	out := make([]string, 0, a.height)
-	out = append(out, fit(a.header(), a.width))
-	out = append(out, block(body, a.width, l.bodyH)...)
-	out = append(out, fit(a.statusLine(), a.width), fit(st.Help.Render(a.help.ShortView()), a.width))
+	out = append(out, st.fit(a.header(), a.width))
+	out = append(out, st.block(body, a.width, l.bodyH)...)
+	out = append(out, st.fit(a.statusLine(), a.width), st.fit(st.Help.Render(a.help.ShortView()), a.width))
 	return strings.Join(out, "\n")
 }
 
 // tooSmallFrame is the frame for a window below the minimum.
 func (a *App) tooSmallFrame() []string {
+	st := &a.styles
 	msg := []string{
 		"terminal too small",
-		"need " + strconv.Itoa(minWidth) + "×" + strconv.Itoa(minHeight) + ", have " + strconv.Itoa(a.width) + "×" + strconv.Itoa(a.height),
+		st.T("need " + strconv.Itoa(minWidth) + "×" + strconv.Itoa(minHeight) + ", have " + strconv.Itoa(a.width) + "×" + strconv.Itoa(a.height)),
 		"enlarge it, or q to quit",
 	}
 	lines := make([]string, a.height)
@@ -52,7 +66,7 @@ func (a *App) tooSmallFrame() []string {
 		if k := i - top; k >= 0 && k < len(msg) {
 			s = strings.Repeat(" ", max(0, (a.width-len([]rune(msg[k])))/2)) + msg[k]
 		}
-		lines[i] = fit(s, a.width)
+		lines[i] = st.fit(s, a.width)
 	}
 	return lines
 }
@@ -62,27 +76,46 @@ func (a *App) header() string {
 	st := &a.styles
 	parts := []string{st.Title.Render("cloudwind")}
 	if a.scenario != "" {
-		parts = append(parts, quantity.Sanitize(a.scenario))
+		parts = append(parts, st.T(quantity.Sanitize(a.scenario)))
 	}
 	q := a.cur.params
-	parts = append(parts, "f="+quantity.FormatSig(q.HeatCapacity.Factor(), 2)+" 𝒩="+densityWord(q.DensityProduct))
-	parts = append(parts, report.CoolingName(a.cur.cooling, a.cur.cf))
+	parts = append(parts, st.T("f="+quantity.FormatSig(q.HeatCapacity.Factor(), 2)+" 𝒩="+densityWord(q.DensityProduct)))
+	parts = append(parts, st.T(report.CoolingName(a.cur.cooling, a.cur.cf)))
 	if a.pin != nil {
 		parts = append(parts, st.Warning.Render("compare: A pinned"))
 	}
-	return " " + strings.Join(parts, st.Dim.Render(" · "))
+	return " " + strings.Join(parts, st.Dim.Render(st.sep()))
 }
 
-// statusLine shows the last message or error.
+// statusLine shows the last message or error; with none, what is on
+// screen, and in the full-screen chart the selected input and how many
+// criteria predict survival, which the hidden panes would show.
 func (a *App) statusLine() string {
 	st := &a.styles
-	if a.status.text == "" {
-		v := a.chart.Kind()
-		return st.Status.Render(" " + strconv.Itoa(len(a.res.Criteria)) + " criteria · chart " + strconv.Itoa(int(v)+1) + "/" +
-			strconv.Itoa(int(viewCount)) + ": " + v.String() + " · ? help")
+	switch {
+	case a.in.Editing():
+		return st.Status.Render(" " + st.T(a.in.EditHint()))
+	case a.status.text != "":
+		if a.status.isErr {
+			return st.Error.Render(" " + st.errMark() + " " + a.status.text)
+		}
+		return st.Status.Render(" " + a.status.text)
+	case a.zoom:
+		in := a.in.Current()
+		survive, n := 0, 0
+		for i := range a.res.Criteria {
+			if a.res.Criteria[i].Cool == model.CoolNone {
+				continue
+			}
+			n++
+			if a.res.Outcomes[i].Verdict == model.Survives {
+				survive++
+			}
+		}
+		return st.Status.Render(" " + st.T(in.label+" = "+valueText(in, &a.cur.params, report.CoolingName(a.cur.cooling, a.cur.cf), st)+
+			" (←/→)"+st.sep()+strconv.Itoa(survive)+" of "+strconv.Itoa(n)+" criteria predict survival"+st.sep()+"z back"))
 	}
-	if a.status.isErr {
-		return st.Error.Render(" ✗ " + a.status.text)
-	}
-	return st.Status.Render(" " + a.status.text)
+	v := a.chart.Kind()
+	return st.Status.Render(" " + st.T(strconv.Itoa(len(a.res.Criteria))+" criteria"+st.sep()+"chart "+strconv.Itoa(int(v)+1)+"/"+
+		strconv.Itoa(int(viewCount))+": "+v.String()+st.sep()+"? help"))
 }

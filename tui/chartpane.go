@@ -46,7 +46,10 @@ type chartState struct {
 // The chart keys are global, so the App handles them and sets the pane.
 type chartPane struct {
 	styles        *Styles
+	keys          *KeyMap
 	width, height int
+	focused       bool     // the pane has the focus: ↑/↓ and the page keys scroll the plan text
+	scroll        scroller // the plan text
 
 	kind    viewKind
 	family  bool // threshold chart: the selected criterion at four Mach numbers
@@ -55,16 +58,30 @@ type chartPane struct {
 	shown   chartState
 }
 
-func newChartPane(styles *Styles) chartPane { return chartPane{styles: styles} }
+func newChartPane(styles *Styles, keys *KeyMap) chartPane {
+	return chartPane{styles: styles, keys: keys}
+}
 
 // SetSize sets the pane's size, border included.
 func (cp *chartPane) SetSize(w, h int) { cp.width, cp.height = w, h }
+
+// SetFocused says whether the pane has the focus.
+func (cp *chartPane) SetFocused(f bool) { cp.focused = f }
 
 // Kind returns the chart chosen.
 func (cp *chartPane) Kind() viewKind { return cp.kind }
 
 // SetKind chooses the chart.
-func (cp *chartPane) SetKind(v viewKind) { cp.kind = v }
+func (cp *chartPane) SetKind(v viewKind) {
+	if v != cp.kind {
+		cp.scroll = scroller{}
+	}
+	cp.kind = v
+}
+
+// IsText reports whether the chosen view is text (the plan), which
+// scrolls and exports as text.
+func (cp *chartPane) IsText() bool { return cp.kind == viewPlan }
 
 // ToggleFamily switches the family mode and returns it.
 func (cp *chartPane) ToggleFamily() bool { cp.family = !cp.family; return cp.family }
@@ -84,12 +101,30 @@ func (cp *chartPane) Request(req chartspec.Request) tea.Cmd {
 	return computeChart(cp.gen, cp.kind, req)
 }
 
-// Update takes the chart data of the latest request.
+// Update takes the chart data of the latest request, and scrolls the
+// plan text by a key.
 func (cp chartPane) Update(msg tea.Msg) (chartPane, tea.Cmd) {
-	if m, ok := msg.(chartMsg); ok && m.gen == cp.gen { // stale results are dropped
-		cp.shown = chartState{gen: m.gen, view: m.view, line: m.line, line2: m.line2, regime: m.regime, text: m.text}
+	switch m := msg.(type) {
+	case chartMsg:
+		if m.gen == cp.gen { // stale results are dropped
+			cp.shown = chartState{gen: m.gen, view: m.view, line: m.line, line2: m.line2, regime: m.regime, text: m.text}
+		}
+	case tea.KeyMsg:
+		if c := cp.shown; c.text != nil && c.view == cp.kind {
+			cp.scroll.scrollKey(m, cp.keys, len(cp.textLines(cp.width-2)), cp.height-2)
+		}
 	}
 	return cp, nil
+}
+
+// textLines returns the plan text wrapped to w cells.
+func (cp chartPane) textLines(w int) []string {
+	st := cp.styles
+	var lines []string
+	for _, l := range cp.shown.text {
+		lines = append(lines, st.T(l))
+	}
+	return wrapLines(lines, w)
 }
 
 // Title names the chart.
@@ -106,7 +141,7 @@ func (cp chartPane) Title() string {
 
 // View draws the pane in its border.
 func (cp chartPane) View() string {
-	return strings.Join(box(cp.Title(), cp.body(cp.width-2, cp.height-2), cp.width, cp.height, false, cp.styles), "\n")
+	return strings.Join(box(cp.Title(), cp.body(cp.width-2, cp.height-2), cp.width, cp.height, cp.focused, cp.styles), "\n")
 }
 
 // body draws the latest chart in w×h cells, or a note while the first
@@ -116,16 +151,19 @@ func (cp chartPane) body(w, h int) []string {
 	var s string
 	switch {
 	case c.view != cp.kind || (c.line == nil && c.regime == nil && c.text == nil):
-		return block([]string{cp.styles.Dim.Render("computing…")}, w, h)
+		return cp.styles.block([]string{cp.styles.Dim.Render(cp.styles.T("computing…"))}, w, h)
 	case c.text != nil:
-		return block(wrapLines(c.text, w), w, h)
+		hint := "tab here or z"
+		if cp.focused {
+			hint = "PgUp/PgDn"
+		}
+		return cp.styles.block(cp.scroll.window(cp.textLines(w), h, -1, hint, cp.styles), w, h)
 	case c.line2 != nil:
-		top := h / 2
-		s = chart.RenderLine(c.line, w, top, st) + "\n" + chart.RenderLine(c.line2, w, h-top, st)
+		s = chart.RenderPanels([]*chartspec.LineChart{c.line, c.line2}, w, h, st)
 	case c.line != nil:
 		s = chart.RenderLine(c.line, w, h, st)
 	default:
 		s = chart.RenderRegimeMap(c.regime, w, h, st)
 	}
-	return block(strings.Split(s, "\n"), w, h)
+	return cp.styles.block(strings.Split(s, "\n"), w, h)
 }

@@ -31,6 +31,7 @@ type detailsPane struct {
 	keys          *KeyMap
 	width, height int // the box width and the most rows it may take
 	open          bool
+	scroll        scroller
 
 	about   subject
 	params  model.Params
@@ -51,8 +52,8 @@ func (d *detailsPane) SetState(about subject, p model.Params, src *cooling.Sourc
 	d.about, d.params, d.cooling, d.cf, d.res = about, p, src, cf, res
 }
 
-// Show opens the overlay.
-func (d *detailsPane) Show() { d.open = true }
+// Show opens the overlay at its top.
+func (d *detailsPane) Show() { d.open, d.scroll = true, scroller{} }
 
 // Open reports whether the overlay is shown.
 func (d *detailsPane) Open() bool { return d.open }
@@ -68,21 +69,29 @@ func (d detailsPane) Update(msg tea.Msg) (detailsPane, tea.Cmd) {
 		d.open = false
 	case key.Matches(k, d.keys.Quit):
 		return d, tea.Quit
+	case key.Matches(k, d.keys.PageUp, d.keys.PageDown, d.keys.Top, d.keys.Bottom):
+		_, lines := d.body(d.width - 2)
+		d.scroll.scrollKey(k, d.keys, len(lines), d.height-2)
+	case key.Matches(k, d.keys.Up, d.keys.Down):
+		d.scroll = scroller{} // the next item, from its top
 	}
 	return d, nil
 }
 
-// View draws the overlay box, as tall as its text allows.
+// View draws the overlay box, as tall as its text allows, scrolled when
+// the text is taller than the window.
 func (d detailsPane) View() string {
 	title, lines := d.body(d.width - 2)
-	return strings.Join(box(title, lines, d.width, min(len(lines)+2, d.height), true, d.styles), "\n")
+	h := min(len(lines)+2, d.height)
+	body := d.scroll.window(lines, h-2, -1, "PgUp/PgDn", d.styles)
+	return strings.Join(box(title, body, d.width, h, true, d.styles), "\n")
 }
 
 // body returns the title and the lines of text for a body w cells wide.
 func (d detailsPane) body(w int) (title string, lines []string) {
 	st := d.styles
 	wrap := func(label, text string) {
-		lines = append(lines, wrapText(st.Dim.Render(label)+" ", quantity.Sanitize(text), w)...)
+		lines = append(lines, wrapText(st.Dim.Render(label)+" ", st.T(quantity.Sanitize(text)), w)...)
 	}
 	conv := "f = " + quantity.FormatSig(d.params.HeatCapacity.Factor(), 2) + " (" + d.params.HeatCapacity.String() + "), 𝒩 = " + densityWord(d.params.DensityProduct)
 	switch d.about.focus {
@@ -90,8 +99,8 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 		in := d.about.input
 		title = "input " + in.label
 		wrap("meaning:", in.about)
-		if !in.isEnum() && in.field != "cooling" {
-			wrap("value:", valueText(in, &d.params, ""))
+		if !in.isEnum() && in.field != fieldCooling {
+			wrap("value:", valueText(in, &d.params, "", st))
 			step := quantity.FormatSig(in.fine, 2) + " per step (×10 with shift)"
 			if in.log {
 				step = "×" + quantity.FormatSig(pow10(in.fine), 3) + " per step (" + quantity.FormatSig(in.fine, 2) + " dex; ×10 with shift)"
@@ -99,7 +108,14 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 			wrap("step:", step)
 			wrap("typing:", "enter, then a number with an optional unit, e.g. "+typingExample(in.dim))
 		}
-		if in.field == "cooling" {
+		if in.isEnum() {
+			var names []string
+			for _, c := range in.choices {
+				names = append(names, c.label+" ("+strings.Join(c.names, ", ")+")")
+			}
+			wrap("choices:", strings.Join(names, "; "))
+		}
+		if in.field == fieldCooling {
 			d.coolingDetails(wrap)
 		}
 	case focusDerived:
@@ -137,8 +153,8 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 		wrap("convention:", conv+" (the paper's own convention is not confirmed)")
 		wrap("physics:", c.Note)
 	}
-	lines = append(lines, "", st.Help.Render("↑/↓ next item · d or esc close"))
-	return title, lines
+	lines = append(lines, "", st.Help.Render(st.T("↑/↓ next item · PgUp/PgDn scroll · d or esc close")))
+	return st.T(title), lines
 }
 
 // coolingDetails describes the cooling function in use.

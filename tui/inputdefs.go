@@ -2,7 +2,9 @@ package tui
 
 import (
 	"math"
+	"strings"
 
+	"cloudwind/cooling"
 	"cloudwind/internal/quantity"
 	"cloudwind/model"
 )
@@ -10,28 +12,82 @@ import (
 // An input is one editable setting of the inputs pane.
 type input struct {
 	label    string          // as shown, e.g. "χ"
-	field    string          // model.Field… (or "cooling")
+	field    string          // model.Field… (or fieldMixture, fieldCooling)
 	dim      model.Dimension // unit for display and typing
 	advanced bool            // shown behind the Advanced key
+	optional bool            // zero in model.Params means the default (p.WithDefaults)
 	log      bool            // steps multiply (fine and coarse in dex) instead of add
 	fine     float64         // one step: dex when log, else an absolute amount in display units
-	options  []string        // an enumeration: cycled by the step keys
+	choices  []choice        // an enumeration: cycled by the step keys, typed by any of its names
 	getEnum  func(p *model.Params) int
 	setEnum  func(p *model.Params, i int)
 	about    string // one line for the details pane
 }
 
-// get returns the numeric input's value in CGS.
+// A choice is one option of an enumerated input: how the pane shows it
+// and the names typing accepts for it (case-insensitive), the first being
+// the command line's and scenario files' spelling, which the text field
+// starts with.
+type choice struct {
+	label string
+	names []string
+}
+
+// The inputs that are not numeric fields of model.Params.
+const (
+	fieldMixture = "mixture"
+	fieldCooling = "cooling"
+)
+
+// get returns the numeric input's value in CGS as stored (0 for an unset
+// optional input).
 func (in *input) get(p *model.Params) float64 {
 	v, _ := p.Field(in.field)
+	return v
+}
+
+// used returns the value the model uses for the numeric input: the
+// default when it is unset (p.WithDefaults), the cloud temperature for a
+// cooling floor that is unset or none.
+func (in *input) used(p *model.Params) float64 {
+	q := p.WithDefaults()
+	if in.field == model.FieldTFloor && q.TFloor == model.NoFloor {
+		return float64(q.TCloud)
+	}
+	v, _ := q.Field(in.field)
 	return v
 }
 
 // set sets the numeric input's value in CGS.
 func (in *input) set(p *model.Params, v float64) { p.SetField(in.field, v) }
 
-// isEnum reports whether the input cycles through options.
-func (in *input) isEnum() bool { return in.options != nil }
+// isEnum reports whether the input cycles through choices.
+func (in *input) isEnum() bool { return in.choices != nil }
+
+// isDefault reports whether the optional input is unset in p.
+func (in *input) isDefault(p *model.Params) bool { return in.optional && in.get(p) == 0 }
+
+// match returns the choice that text names, or -1.
+func (in *input) match(text string) int {
+	for i, c := range in.choices {
+		names := append([]string{c.label, quantity.ASCII(c.label)}, c.names...)
+		for _, n := range names {
+			if strings.EqualFold(n, text) {
+				return i
+			}
+		}
+	}
+	return -1
+}
+
+// choiceNames lists the first name of every choice, for messages.
+func (in *input) choiceNames() string {
+	names := make([]string, len(in.choices))
+	for i, c := range in.choices {
+		names[i] = c.names[0]
+	}
+	return strings.Join(names, ", ")
+}
 
 // coarseFactor is how many fine steps one coarse step makes.
 const coarseFactor = 10
@@ -39,9 +95,9 @@ const coarseFactor = 10
 // inputs returns the inputs in pane order.
 func inputs() []input {
 	mixtures := model.Mixtures()
-	var mixNames []string
+	var mixChoices []choice
 	for _, m := range mixtures {
-		mixNames = append(mixNames, m.Name)
+		mixChoices = append(mixChoices, choice{m.Name, []string{m.Name}})
 	}
 	return []input{
 		{label: "χ", field: model.FieldChi, dim: model.Dimensionless, log: true, fine: 0.05,
@@ -56,15 +112,15 @@ func inputs() []input {
 			about: "cloud temperature (the cooling floor follows it unless T_floor is set)"},
 		{label: "r_cl", field: model.FieldRCloud, dim: model.DimLength, log: true, fine: 0.05,
 			about: "cloud radius"},
-		{label: "γ", field: model.FieldGamma, dim: model.Dimensionless, advanced: true, fine: 0.01,
+		{label: "γ", field: model.FieldGamma, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
 			about: "adiabatic index (default 5/3)"},
-		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, fine: 0.01,
+		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
 			about: "mean molecular weight of the cloud (default 0.6, as most simulations use for both phases)"},
-		{label: "μ_hot", field: model.FieldMuHot, dim: model.Dimensionless, advanced: true, fine: 0.01,
+		{label: "μ_hot", field: model.FieldMuHot, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
 			about: "mean molecular weight of the wind (default 0.6)"},
-		{label: "X", field: model.FieldHydrogenFraction, dim: model.Dimensionless, advanced: true, fine: 0.005,
+		{label: "X", field: model.FieldHydrogenFraction, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.005,
 			about: "hydrogen mass fraction, for n_H = X ρ/m_H (default: that of the mixture)"},
-		{label: "mixture", field: "mixture", advanced: true, options: mixNames,
+		{label: "mixture", field: fieldMixture, advanced: true, choices: mixChoices,
 			getEnum: func(p *model.Params) int {
 				for i, m := range mixtures {
 					if m.Name == p.Mixture.Name {
@@ -73,21 +129,32 @@ func inputs() []input {
 				}
 				return 0
 			},
-			setEnum: func(p *model.Params, i int) { p.Mixture, p.HydrogenFraction = mixtures[i], mixtures[i].X },
-			about:   "solar mixture of X, Y, Z (Asplund et al. 2021 Table 4 values)"},
-		{label: "T_floor", field: model.FieldTFloor, dim: model.DimTemperature, advanced: true, log: true, fine: 0.02,
-			about: "cooling floor: Λ = 0 below it (default: the cloud temperature)"},
-		{label: "f", field: model.FieldHeatCapacity, advanced: true, options: []string{"3/2 isochoric", "5/2 isobaric"},
+			setEnum: func(p *model.Params, i int) { p.Mixture = mixtures[i] }, // an unset X follows the mixture
+			about:   "solar mixture of X, Y, Z (Asplund et al. 2021 Table 4 values); an unset X follows it"},
+		{label: "T_floor", field: model.FieldTFloor, dim: model.DimTemperature, advanced: true, optional: true, log: true, fine: 0.02,
+			about: "cooling floor: Λ = 0 below it (default: the cloud temperature; type 0 or none for no floor)"},
+		{label: "f", field: model.FieldHeatCapacity, advanced: true,
+			choices: []choice{{"3/2 isochoric", []string{"isochoric", "3/2", "1.5"}}, {"5/2 isobaric", []string{"isobaric", "5/2", "2.5"}}},
 			getEnum: func(p *model.Params) int { return int(p.HeatCapacity) },
 			setEnum: func(p *model.Params, i int) { p.HeatCapacity = model.HeatCapacity(i) },
 			about:   "heat capacity in t_cool = f n k_B T/(𝒩 Λ)"},
-		{label: "n×n", field: model.FieldDensityProduct, advanced: true, options: []string{"n_H²", "n² (total)"},
+		{label: "n×n", field: model.FieldDensityProduct, advanced: true,
+			choices: []choice{{"n_H²", []string{"nh2", "n_H^2", "nH2"}}, {"n² (total)", []string{"n2", "n²", "n^2", "total"}}},
 			getEnum: func(p *model.Params) int { return int(p.DensityProduct) },
 			setEnum: func(p *model.Params, i int) { p.DensityProduct = model.DensityProduct(i) },
 			about:   "density product in t_cool: n_H² (physical for Λ per n_H²) or n² (simplified form)"},
-		{label: "cooling", field: "cooling", advanced: true,
-			about: "cooling function: step through the named ones, or type a name, const:Λ, powerlaw:L0,T0,S or a table path"},
+		{label: "cooling", field: fieldCooling, advanced: true,
+			about: "cooling function: step through " + coolingNames() + ", or type one, const:Λ, powerlaw:L0,T0,S or a table path"},
 	}
+}
+
+// coolingNames lists the names of cooling.Names.
+func coolingNames() string {
+	var names []string
+	for _, c := range cooling.Names() {
+		names = append(names, c.Name)
+	}
+	return strings.Join(names, ", ")
 }
 
 // roundTo rounds v to a multiple of step/1000, removing float noise from
@@ -97,15 +164,18 @@ func roundTo(v, step float64) float64 {
 	return math.Round(v/q) * q
 }
 
-// valueText formats the value of in for the pane.
-func valueText(in *input, p *model.Params, coolingName string) string {
+// valueText formats the value of in for the pane: the value used, marked
+// "(default)" for an unset optional input, "none" for no cooling floor.
+func valueText(in *input, p *model.Params, coolingName string, st *Styles) string {
 	switch {
-	case in.field == "cooling":
+	case in.field == fieldCooling:
 		return coolingName
 	case in.isEnum():
-		return in.options[in.getEnum(p)]
-	case in.field == model.FieldTFloor && p.TFloor == 0:
-		return "= T_cl"
+		return st.T(in.choices[in.getEnum(p)].label)
+	case in.field == model.FieldTFloor && p.TFloor == model.NoFloor:
+		return "none"
+	case in.isDefault(p):
+		return st.Format(in.dim, in.used(p)) + " (default)"
 	}
-	return quantity.Format(in.dim, in.get(p))
+	return st.Format(in.dim, in.get(p))
 }

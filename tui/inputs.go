@@ -6,9 +6,7 @@ import (
 	"math"
 	"strings"
 
-	"github.com/charmbracelet/bubbles/cursor"
 	"github.com/charmbracelet/bubbles/key"
-	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"cloudwind/cooling"
@@ -18,16 +16,17 @@ import (
 
 // inputsPane lists the inputs (inputdefs.go); one is selected, and one
 // may be edited as text. It moves the selection, shows the advanced
-// inputs and opens, types into and closes the text field itself; a new
-// value goes through App.change, which asks the pane for it (Step,
-// ApplyEdit, Reset) so that it is evaluated before it is taken.
+// inputs, scrolls when they do not fit, and opens, types into and closes
+// the text field itself; a new value goes through App.change, which asks
+// the pane for it (Step, ApplyEdit, Reset) so that it is evaluated before
+// it is taken.
 type inputsPane struct {
 	styles        *Styles
 	keys          *KeyMap
 	width, height int
 	focused       bool
 
-	params      model.Params // the values shown
+	params      model.Params // the values shown, as given (zero optional fields are defaults)
 	coolingSpec string       // the cooling spec in use, for typing and stepping
 	coolingName string       // its display name
 
@@ -35,15 +34,12 @@ type inputsPane struct {
 	selected int // index into visible()
 	advanced bool
 	editing  bool
-	edit     textinput.Model
+	edit     textField
+	scroll   scroller
 }
 
 func newInputsPane(styles *Styles, keys *KeyMap) inputsPane {
-	ti := textinput.New()
-	ti.Prompt = "> "
-	ti.Cursor.SetMode(cursor.CursorStatic) // no blinking: fewer redraws over SSH
-	ti.CharLimit = 120
-	return inputsPane{styles: styles, keys: keys, all: inputs(), edit: ti}
+	return inputsPane{styles: styles, keys: keys, all: inputs(), edit: newTextField(styles, 120)}
 }
 
 // SetSize sets the pane's size, border included.
@@ -57,8 +53,8 @@ func (ip *inputsPane) SetValues(p model.Params, coolingSpec, coolingName string)
 	ip.params, ip.coolingSpec, ip.coolingName = p, coolingSpec, coolingName
 }
 
-// Update handles the pane's own keys: selection, more inputs, and the
-// text field (open, type, esc to close).
+// Update handles the pane's own keys: selection, pages, more inputs, and
+// the text field (open, type, esc to close).
 func (ip inputsPane) Update(msg tea.Msg) (inputsPane, tea.Cmd) {
 	k, ok := msg.(tea.KeyMsg)
 	if !ok {
@@ -73,46 +69,65 @@ func (ip inputsPane) Update(msg tea.Msg) (inputsPane, tea.Cmd) {
 		ip.edit, cmd = ip.edit.Update(k)
 		return ip, cmd
 	}
+	n := len(ip.visible())
 	switch {
 	case key.Matches(k, ip.keys.Up):
 		ip.move(-1)
 	case key.Matches(k, ip.keys.Down):
 		ip.move(1)
+	case pageKey(k, ip.keys, &ip.selected, n, ip.height-2):
 	case key.Matches(k, ip.keys.Edit):
 		ip.startEdit()
 	case key.Matches(k, ip.keys.Advanced):
 		ip.advanced = !ip.advanced
-		ip.selected = 0
+		ip.selected, ip.scroll = 0, scroller{}
 	}
+	ip.scroll.follow(len(ip.lines()), ip.height-2, ip.selectedLine())
 	return ip, nil
 }
 
-// View draws the pane in its border.
-func (ip inputsPane) View() string {
+// lines returns the pane's lines: one per input (and the text field under
+// the selected one while typing); the hint for more inputs is in the
+// bottom border.
+func (ip inputsPane) lines() []string {
 	st := ip.styles
 	var body []string
 	for i, in := range ip.visible() {
-		label := fit(in.label, 9)
-		val := valueText(in, &ip.params, ip.coolingName)
+		label := st.fit(st.T(in.label), 9)
+		val := st.T(valueText(in, &ip.params, ip.coolingName, st))
 		if ip.focused && i == ip.selected {
-			body = append(body, st.Selected.Render("▸ "+label)+st.Value.Render(val))
+			body = append(body, st.Selected.Render(st.cursor()+label)+st.Value.Render(val))
 		} else {
 			body = append(body, st.Label.Render("  "+label)+st.Value.Render(val))
 		}
 		if ip.editing && i == ip.selected {
-			body = append(body, "  "+ip.edit.View())
+			body = append(body, "  "+st.T(ip.edit.View()))
 		}
 	}
+	return body
+}
+
+// selectedLine returns the line of the selected input (and of the text
+// field under it while typing), which scrolling keeps visible.
+func (ip inputsPane) selectedLine() int {
+	if ip.editing {
+		return ip.selected + 1
+	}
+	return ip.selected
+}
+
+// View draws the pane in its border.
+func (ip inputsPane) View() string {
+	body := ip.scroll.window(ip.lines(), ip.height-2, ip.selectedLine(), scrollHint(ip.focused), ip.styles)
 	more := "a: more inputs"
 	if ip.advanced {
 		more = "a: fewer inputs"
 	}
-	body = append(body, st.Dim.Render(more))
-	return strings.Join(box("Inputs", body, ip.width, ip.height, ip.focused, st), "\n")
+	return strings.Join(boxWithFooter("Inputs", more, body, ip.width, ip.height, ip.focused, ip.styles), "\n")
 }
 
-// Rows returns how many inputs are shown now.
-func (ip *inputsPane) Rows() int { return len(ip.visible()) }
+// Rows returns how many lines the pane holds now.
+func (ip *inputsPane) Rows() int { return len(ip.lines()) }
 
 // Editing reports whether a value is being typed.
 func (ip *inputsPane) Editing() bool { return ip.editing }
@@ -142,12 +157,19 @@ func (ip *inputsPane) move(d int) {
 }
 
 // Step returns p with the selected input stepped by n fine steps (n may be
-// negative; coarse steps pass ±coarseFactor). For the cooling input it
+// negative; coarse steps pass ±coarseFactor), from the value in use (the
+// default of an unset optional input). The new value is checked with
+// model.CheckField: a step to a value the model would read as "unset" (0)
+// is refused, never replaced by the default. For the cooling input it
 // returns the name to switch to instead.
-func (ip *inputsPane) Step(p model.Params, n int, coolingSpec string) (model.Params, string) {
+func (ip *inputsPane) Step(p model.Params, n int, coolingSpec string) (model.Params, string, error) {
 	in := ip.Current()
+	sign := 1
+	if n < 0 {
+		sign = -1
+	}
 	switch {
-	case in.field == "cooling":
+	case in.field == fieldCooling:
 		names := cooling.Names()
 		i := 0
 		for k, c := range names {
@@ -155,40 +177,33 @@ func (ip *inputsPane) Step(p model.Params, n int, coolingSpec string) (model.Par
 				i = k
 			}
 		}
-		sign := 1
-		if n < 0 {
-			sign = -1
-		}
-		return p, names[((i+sign)%len(names)+len(names))%len(names)].Name
+		return p, names[((i+sign)%len(names)+len(names))%len(names)].Name, nil
 	case in.isEnum():
-		sign := 1
-		if n < 0 {
-			sign = -1
-		}
-		k := len(in.options)
+		k := len(in.choices)
 		in.setEnum(&p, ((in.getEnum(&p)+sign)%k+k)%k)
-		return p, ""
+		return p, "", nil
 	}
-	v := in.get(&p)
-	if in.field == model.FieldTFloor && v == 0 {
-		v = float64(p.TCloud) // the floor follows T_cl until set
-	}
+	v := in.used(&p)
 	if in.log {
 		v *= math.Pow(10, float64(n)*in.fine)
 	} else {
 		v += float64(n) * in.fine * quantity.Factor(in.dim)
 		v = roundTo(v, in.fine*quantity.Factor(in.dim)) // no 0.30000000000000004
 	}
+	if err := model.CheckField(in.field, v); err != nil {
+		return p, "", errors.New(ip.FieldMessage(err))
+	}
 	in.set(&p, v)
-	return p, ""
+	return p, "", nil
 }
 
-// Reset returns p with the selected input set to its value in initial;
-// for the cooling input it reports cooling instead, and p is unchanged.
+// Reset returns p with the selected input set to its value in initial
+// (unset again if it was unset); for the cooling input it reports cooling
+// instead, and p is unchanged.
 func (ip *inputsPane) Reset(p, initial model.Params) (next model.Params, isCooling bool) {
 	in := ip.Current()
 	switch {
-	case in.field == "cooling":
+	case in.field == fieldCooling:
 		return p, true
 	case in.isEnum():
 		in.setEnum(&p, in.getEnum(&initial))
@@ -198,51 +213,101 @@ func (ip *inputsPane) Reset(p, initial model.Params) (next model.Params, isCooli
 	return p, false
 }
 
-// startEdit opens the text field for the selected input with its value.
-func (ip *inputsPane) startEdit() {
-	in := ip.Current()
-	ip.editing = true
+// EditText returns the text the field opens with for in: the cooling
+// spec, a choice's command-line name, or the number in use without unit.
+func (ip *inputsPane) EditText(in *input) string {
 	switch {
-	case in.field == "cooling":
-		ip.edit.SetValue(ip.coolingSpec)
+	case in.field == fieldCooling:
+		return ip.coolingSpec
 	case in.isEnum():
-		ip.edit.SetValue(in.options[in.getEnum(&ip.params)])
-	default:
-		ip.edit.SetValue(strings.TrimSpace(quantity.Number(in.dim, in.get(&ip.params))))
+		return in.choices[in.getEnum(&ip.params)].names[0]
+	case in.field == model.FieldTFloor && ip.params.TFloor == model.NoFloor:
+		return "none"
 	}
-	ip.edit.CursorEnd()
-	ip.edit.Focus()
+	return strings.TrimSpace(quantity.Number(in.dim, in.used(&ip.params)))
+}
+
+// startEdit opens the text field for the selected input with its value,
+// selected, so that typing replaces it.
+func (ip *inputsPane) startEdit() {
+	ip.editing = true
+	ip.edit.Start(ip.EditText(ip.Current()))
 }
 
 // StopEdit closes the text field.
 func (ip *inputsPane) StopEdit() {
 	ip.editing = false
-	ip.edit.Blur()
+	ip.edit.Stop()
 }
 
-// ApplyEdit parses the typed text into p. For the cooling input it
-// returns the spec to resolve instead.
-func (ip *inputsPane) ApplyEdit(p model.Params) (model.Params, string, error) {
+// EditHint describes the open text field for the status line.
+func (ip *inputsPane) EditHint() string {
 	in := ip.Current()
-	text := strings.TrimSpace(ip.edit.Value())
+	what := "type a value"
 	switch {
-	case in.field == "cooling":
+	case in.field == fieldCooling:
+		what = "type a cooling name, const:Λ, powerlaw:L0,T0,S or a table path"
+	case in.isEnum():
+		what = "type " + in.choiceNames()
+	case in.optional:
+		what = "type a value, or default"
+		if in.field == model.FieldTFloor {
+			what = "type a temperature, 0 or none for no floor, or default"
+		}
+	}
+	if ip.edit.Selected() {
+		if what == "type a value" {
+			what = "typing replaces " + quantity.Sanitize(ip.edit.Value())
+		} else {
+			what += ": replaces " + quantity.Sanitize(ip.edit.Value())
+		}
+		return what + " · ←/→ edit it · enter accept · esc cancel"
+	}
+	return what + " · enter accept · esc cancel"
+}
+
+// ApplyEdit parses the typed text into p, exactly as typed: a number with
+// an optional unit (quantity.ParseValue) checked by model.CheckField, a
+// choice by any of its names, "default" for an unset optional input, and
+// for T_floor 0 or "none" for no floor (model.NoFloor). For the cooling
+// input it returns the spec to resolve instead.
+func (ip *inputsPane) ApplyEdit(p model.Params) (model.Params, string, error) {
+	return applyText(ip.Current(), p, ip.edit.Value(), ip)
+}
+
+// applyText is ApplyEdit for in and text: the one path of a typed value;
+// ip words the errors.
+func applyText(in *input, p model.Params, text string, ip *inputsPane) (model.Params, string, error) {
+	text = strings.TrimSpace(text)
+	switch {
+	case in.field == fieldCooling:
 		if text == "" {
 			return p, "", errors.New("cooling: empty")
 		}
 		return p, text, nil
 	case in.isEnum():
-		for i, o := range in.options {
-			if strings.EqualFold(o, text) || strings.EqualFold(strings.Fields(o)[0], text) {
-				in.setEnum(&p, i)
-				return p, "", nil
-			}
+		if i := in.match(text); i >= 0 {
+			in.setEnum(&p, i)
+			return p, "", nil
 		}
-		return p, "", fmt.Errorf("%s: %q is not one of %s", in.label, quantity.Sanitize(text), strings.Join(in.options, ", "))
+		return p, "", fmt.Errorf("%s: %q is not one of %s", in.label, quantity.Sanitize(text), in.choiceNames())
+	case in.optional && strings.EqualFold(text, "default"):
+		in.set(&p, 0)
+		return p, "", nil
+	case in.field == model.FieldTFloor && strings.EqualFold(text, "none"):
+		p.TFloor = model.NoFloor
+		return p, "", nil
 	}
 	v, err := quantity.ParseValue(in.dim, text)
 	if err != nil {
 		return p, "", fmt.Errorf("%s: %w", in.label, err)
+	}
+	if err := model.CheckField(in.field, v); err != nil {
+		return p, "", errors.New(ip.FieldMessage(err))
+	}
+	if in.field == model.FieldTFloor && v == 0 {
+		p.TFloor = model.NoFloor // a floor of 0 K: none
+		return p, "", nil
 	}
 	in.set(&p, v)
 	return p, "", nil

@@ -1,21 +1,33 @@
 package tui
 
 // Layout constants: below minWidth×minHeight the explorer shows a note
-// instead of panes; from wideWidth the derived pane sits beside the chart.
+// instead of panes; from wideWidth×wideHeight the panes sit in two columns
+// (inputs and derived values beside chart and criteria); below it they
+// stack: the chart across the whole width on top, under it the inputs (or
+// the derived values while they have the focus) beside the criteria.
+// Common practice, no source: chosen so that 80×24 shows every legend
+// entry of every chart and all six built-in criteria.
 const (
 	minWidth   = 60
 	minHeight  = 16
 	wideWidth  = 100
+	wideHeight = 30
 	leftNarrow = 30
 	leftWide   = 40
+	// minChartRows is the height the stacked layout keeps for the chart
+	// pane when the panes under it would like more.
+	minChartRows = 11
 )
 
 // layout is the geometry of one frame.
 type layout struct {
+	stacked           bool // chart on top, panes under it
+	zoom              bool // the chart takes the whole body
 	leftW, rightW     int
 	bodyH             int
 	inputsH, derivedH int
 	critH, chartH     int
+	chartW            int
 }
 
 // computeLayout splits the window. Every pane has a fixed place: nothing
@@ -28,13 +40,23 @@ func (a *App) computeLayout() layout {
 		l.leftW = leftWide
 	}
 	l.rightW = a.width - l.leftW
-	l.inputsH = min(a.in.Rows()+3, l.bodyH-4)
-	if a.in.Editing() {
-		l.inputsH = min(l.inputsH+1, l.bodyH-4)
+	inputsNeed := a.in.Rows() + 2
+	critNeed := len(a.res.Criteria) + 3 // head, rows, borders
+	switch {
+	case a.zoom:
+		l.zoom = true
+		l.chartW, l.chartH = a.width, l.bodyH
+	case a.width < wideWidth || a.height < wideHeight:
+		l.stacked = true
+		bottom := min(max(inputsNeed, critNeed), max(l.bodyH-minChartRows, l.bodyH/2))
+		l.chartW, l.chartH = a.width, l.bodyH-bottom
+		l.inputsH, l.derivedH, l.critH = bottom, bottom, bottom
+	default:
+		l.inputsH = min(inputsNeed, l.bodyH-4)
+		l.derivedH = l.bodyH - l.inputsH
+		l.critH = min(critNeed, l.bodyH/2)
+		l.chartW, l.chartH = l.rightW, l.bodyH-l.critH
 	}
-	l.derivedH = l.bodyH - l.inputsH
-	l.critH = min(len(a.res.Criteria)+4, l.bodyH/2)
-	l.chartH = l.bodyH - l.critH
 	return l
 }
 
@@ -47,7 +69,7 @@ func (a *App) chartSize() (w, h int) {
 		return 0, 0
 	}
 	l := a.computeLayout()
-	return l.rightW - 2, l.chartH - 2
+	return l.chartW - 2, l.chartH - 2
 }
 
 // resize gives every pane its size in the current layout.
@@ -60,7 +82,7 @@ func (a *App) resize() {
 	l := a.computeLayout()
 	a.in.SetSize(l.leftW, l.inputsH)
 	a.derived.SetSize(l.leftW, l.derivedH)
-	a.chart.SetSize(l.rightW, l.chartH)
+	a.chart.SetSize(l.chartW, l.chartH)
 	a.criteria.SetSize(l.rightW, l.critH)
 	a.details.SetSize(min(a.width-4, 90), l.bodyH)
 }

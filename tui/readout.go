@@ -71,6 +71,7 @@ type readout struct {
 
 	rows     []model.Quantity // fixed at start
 	selected int
+	scroll   scroller
 	res      *model.Result // the current evaluation
 	pin      *model.Result // the pinned scenario A's, or nil
 	cf       model.CoolingFunction
@@ -92,7 +93,8 @@ func (r *readout) SetResult(res, pin *model.Result, cf model.CoolingFunction) {
 	r.res, r.pin, r.cf = res, pin, cf
 }
 
-// Update moves the selection.
+// Update moves the selection (a row, a page, to the ends) and scrolls to
+// keep it visible.
 func (r readout) Update(msg tea.Msg) (readout, tea.Cmd) {
 	if k, ok := msg.(tea.KeyMsg); ok {
 		n := len(r.rows)
@@ -101,7 +103,9 @@ func (r readout) Update(msg tea.Msg) (readout, tea.Cmd) {
 			r.selected = (r.selected - 1 + n) % n
 		case key.Matches(k, r.keys.Down):
 			r.selected = (r.selected + 1 + n) % n
+		case pageKey(k, r.keys, &r.selected, n, r.height-2):
 		}
+		r.scroll.follow(len(r.lines(r.width-2)), r.height-2, r.selected)
 	}
 	return r, nil
 }
@@ -114,8 +118,13 @@ func (r readout) View() string {
 	return strings.Join(box("Derived", r.body(r.width-2, r.height-2), r.width, r.height, r.focused, r.styles), "\n")
 }
 
-// body renders the rows for a body of w×h cells.
+// body renders the rows for a body of w×h cells, scrolled.
 func (r readout) body(w, h int) []string {
+	return r.scroll.window(r.lines(w), h, r.selected, scrollHint(r.focused), r.styles)
+}
+
+// lines renders every row for a body w cells wide, and the cautions.
+func (r readout) lines(w int) []string {
 	st := r.styles
 	lines := make([]string, 0, len(r.rows))
 	symW := 18
@@ -124,30 +133,30 @@ func (r readout) body(w, h int) []string {
 	}
 	for i, q := range r.rows {
 		v := q.Value(&r.res.State)
-		val := quantity.Format(q.Dim, v)
+		val := st.Format(q.Dim, v)
 		cell := st.Value.Render(val)
 		if r.pin != nil {
 			va := q.Value(&r.pin.State)
 			if ratio := v / va; isFiniteValue(ratio) && va != 0 {
-				cell += st.Dim.Render("  B/A " + quantity.FormatSig(ratio, 3))
+				cell += st.Dim.Render("  B/A " + st.Sig(ratio, 3))
 			}
 		}
 		if note := tableStatus(r.cf, q.Key, &r.res.State); note != "" {
-			cell += " " + st.OutOfTable.Render("⚠ "+note)
+			cell += " " + st.OutOfTable.Render(st.warnMark()+" "+note)
 		}
 		var label string
 		if r.focused && i == r.selected {
-			label = st.Selected.Render(fit("▸ "+q.Symbol, symW))
+			label = st.Selected.Render(st.fit(st.cursor()+st.T(q.Symbol), symW-1)) + " "
 		} else {
-			label = st.Label.Render(fit("  "+q.Symbol, symW))
+			label = st.Label.Render(st.fit("  "+st.T(q.Symbol), symW-1)) + " "
 		}
 		lines = append(lines, label+cell)
 	}
 	// The cold-gas line carries the caution when T_cl leaves the table.
 	for _, c := range r.res.Cautions {
-		lines = append(lines, st.Warning.Render("⚠ "+quantity.Sanitize(c.Message)))
+		lines = append(lines, st.Warning.Render(st.warnMark()+" "+st.T(quantity.Sanitize(c.Message))))
 	}
-	return scrollWindow(lines, r.selected, h, r.focused)
+	return lines
 }
 
 // isFiniteValue reports whether v is neither NaN nor ±Inf.

@@ -36,14 +36,6 @@ type status struct {
 // maxHistory bounds the undo stack.
 const maxHistory = 200
 
-// normalise fills the defaults of p but keeps a zero T_floor, which means
-// "follow the cloud temperature".
-func normalise(p model.Params) model.Params {
-	q := p.WithDefaults()
-	q.TFloor = p.TFloor
-	return q
-}
-
 // change applies a new snapshot if it is valid: the metallicity may need
 // a new cooling curve, and everything is re-evaluated. An invalid one is
 // refused with the reason in the status line and the last good state
@@ -107,7 +99,7 @@ func (a *App) applyScenario(m scenarioMsg) tea.Cmd {
 		a.setStatus(oneLine(m.err.Error())+" — the current state is kept", true)
 		return nil
 	}
-	next := snapshot{params: normalise(m.sc.Params), cooling: m.src}
+	next := snapshot{params: m.sc.Params, cooling: m.src}
 	before := a.scenario
 	a.scenario = m.sc.Name
 	cmd := a.change(next, "loaded "+scenarioLabel(m.sc))
@@ -135,7 +127,9 @@ func (a *App) currentScenario() scenario.Scenario {
 	return scenario.Scenario{Name: name, Params: a.cur.params, Cooling: a.cur.cooling.Spec, Table: a.cur.cooling.Table}
 }
 
-func (a *App) setStatus(text string, isErr bool) { a.status = status{quantity.Sanitize(text), isErr} }
+func (a *App) setStatus(text string, isErr bool) {
+	a.status = status{a.styles.T(quantity.Sanitize(text)), isErr}
+}
 
 // cloneResult copies a Result so that later evaluations do not share its
 // slices.

@@ -11,6 +11,15 @@
 // log10 of T in K, log10 of Λ in erg cm³ s⁻¹). NaN or ±Inf in a series
 // breaks the curve: the builders never fail, and a point that cannot be
 // evaluated is NaN.
+//
+// # Notation of the texts
+//
+// Titles, axis labels, legend names and notes are written as people read
+// them in a terminal: Greek letters and Unicode superscripts as they are
+// (χ, Λ, cm⁻³), a subscript after an underscore that follows a one-letter
+// symbol (r_cl, t_cool,mix, ρ_hot, k_B), a superscript after a caret
+// (T^1/2). Exported figures (cloudwind/internal/figure) draw those
+// subscripts and superscripts as lowered and raised text.
 package chartspec
 
 // A Series is one curve.
@@ -52,16 +61,18 @@ type LineChart struct {
 	Series  []Series
 	Markers []Marker
 	Note    string // one line under the chart, e.g. a caution
+	Caption string // the scenario (Caption), for exported figures
 }
 
 // A RegimeMap is a grid of cells over two axes, each cell holding how many
 // of the criteria predict survival, so that disagreement shows at a glance.
 type RegimeMap struct {
-	Title  string
-	X, Y   Axis
-	NX, NY int   // cells along X and Y
-	Counts []int // NX×NY counts, row-major from the lowest Y: Counts[j*NX+i]; a negative count marks a cell without a valid state (drawn blank)
-	Total  int   // number of criteria counted (the largest possible count)
-	Mark   *Marker
-	Note   string
+	Title   string
+	X, Y    Axis
+	NX, NY  int   // cells along X and Y
+	Counts  []int // NX×NY counts, row-major from the lowest Y: Counts[j*NX+i]; a negative count marks a cell without a valid state (drawn blank)
+	Total   int   // number of criteria counted (the largest possible count)
+	Mark    *Marker
+	Note    string
+	Caption string // the scenario (Caption), for exported figures
 }

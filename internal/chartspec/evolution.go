@@ -14,16 +14,18 @@ func EvolutionCharts(r Request) (mass, vel *LineChart) {
 	const n = 201
 	set := model.DefaultEvolveSettings()
 	mass = &LineChart{
-		Title: "cloud mass m/m0 vs t/t_cc (one curve per criterion's branch)",
-		X:     Axis{Label: "t/t_cc", Min: 0, Max: set.TEnd},
-		Y:     Axis{Label: "m/m0", Log: true},
-		Note:  "default constants, several from memory: see cloudwind evolve",
+		Title:   "cloud mass m/m₀ vs t/t_cc (one curve per criterion's branch)",
+		X:       Axis{Label: "t/t_cc", Min: 0, Max: set.TEnd},
+		Y:       Axis{Label: "m/m₀", Log: true},
+		Note:    "default constants, several from memory: see cloudwind evolve",
+		Caption: Caption(r),
 	}
 	vel = &LineChart{
-		Title: "cloud velocity v/v_w vs t/t_cc",
-		X:     Axis{Label: "t/t_cc", Min: 0, Max: set.TEnd},
-		Y:     Axis{Label: "v/v_w", Min: 0, Max: 1},
-		Note:  "entrained at v ≥ 0.9 v_w; destroyed at m < 1e-3 m0",
+		Title:   "cloud velocity v/v_w vs t/t_cc",
+		X:       Axis{Label: "t/t_cc", Min: 0, Max: set.TEnd},
+		Y:       Axis{Label: "v/v_w", Min: 0, Max: 1},
+		Note:    "entrained at v ≥ 0.9 v_w; destroyed at m < 10⁻³ m₀",
+		Caption: Caption(r),
 	}
 	s, err := model.Derive(r.Params, r.Cooling)
 	if err != nil {
@@ -58,6 +60,6 @@ func EvolutionCharts(r Request) (mass, vel *LineChart) {
 	}
 	mass.Y.Min, mass.Y.Max = seriesRange(mass.Series, 0, -3)
 	vel.Markers = []Marker{{Kind: HLine, Y: 0.9, Label: "0.9 v_w"}}
-	mass.Markers = []Marker{{Kind: HLine, Y: math.Log10(2), Label: "2 m0"}}
+	mass.Markers = []Marker{{Kind: HLine, Y: math.Log10(2), Label: "2 m₀"}}
 	return mass, vel
 }

@@ -16,10 +16,11 @@ func ThresholdChart(r Request) *LineChart {
 	lo, hi := chiRange(r.Params.Chi)
 	xs := grid(lo, hi, n)
 	c := &LineChart{
-		Title: "threshold radius r_crit vs χ",
-		X:     Axis{Label: "χ = ρ_cl/ρ_hot", Log: true, Min: lo, Max: hi},
-		Y:     Axis{Label: "r_crit (pc)", Log: true},
-		Note:  "a cloud survives and grows where r_cl lies above a criterion's curve",
+		Title:   "threshold radius r_crit vs χ",
+		X:       Axis{Label: "χ = ρ_cl/ρ_hot", Log: true, Min: lo, Max: hi},
+		Y:       Axis{Label: "r_crit (pc)", Log: true},
+		Note:    "a cloud survives and grows where r_cl lies above a criterion's curve",
+		Caption: Caption(r),
 	}
 	rad := radiative(r.Criteria)
 	sel := r.Selected
@@ -97,8 +98,11 @@ func CoolingChart(r Request) *LineChart {
 	if err != nil {
 		return &LineChart{Title: "cooling curve", Note: err.Error()}
 	}
-	floor := s.Params.TFloor
-	lo := math.Log10(min(1e4, float64(floor)/2, float64(s.Params.TCloud)/2))
+	floor, hasFloor := s.Params.Floor() // (0, false) for no floor
+	lo := math.Log10(min(1e4, float64(s.Params.TCloud)/2))
+	if hasFloor {
+		lo = min(lo, math.Log10(float64(floor)/2))
+	}
 	hi := math.Log10(max(1e8, 2*float64(s.THot)))
 	xs := grid(lo, hi, n)
 	curve := func(cf model.CoolingFunction) []float64 {
@@ -117,11 +121,15 @@ func CoolingChart(r Request) *LineChart {
 		name = quantity.Sanitize(p.Meta().Name)
 	}
 	c := &LineChart{
-		Title:  "cooling function Λ(T) per n_H²",
-		X:      Axis{Label: "T (K)", Log: true, Min: lo, Max: hi},
-		Y:      Axis{Label: "Λ (erg cm³ s⁻¹)", Log: true},
-		Series: []Series{{Name: name, X: xs, Y: curve(r.Cooling), Index: 0}},
-		Note:   "above the table Λ ∝ T^1/2 (extended); below it Λ = 0; Λ = 0 below T_floor in the model",
+		Title:   "cooling function Λ(T) per n_H²",
+		X:       Axis{Label: "T (K)", Log: true, Min: lo, Max: hi},
+		Y:       Axis{Label: "Λ (erg cm³ s⁻¹)", Log: true},
+		Series:  []Series{{Name: name, X: xs, Y: curve(r.Cooling), Index: 0}},
+		Note:    "above the table Λ ∝ T^1/2 (extended); below it Λ = 0; Λ = 0 below T_floor in the model",
+		Caption: Caption(r),
+	}
+	if !hasFloor {
+		c.Note = "above the table Λ ∝ T^1/2 (extended); below it Λ = 0; no cooling floor in the model"
 	}
 	if r.Pin != nil && r.Pin.Cooling != r.Cooling {
 		aname := "A: Λ(T)"
@@ -139,7 +147,7 @@ func CoolingChart(r Request) *LineChart {
 			c.Markers = append(c.Markers, Marker{Kind: VLine, X: math.Log10(float64(t)), Label: label, Warn: outside(t)})
 		}
 	}
-	if floor != s.Params.TCloud {
+	if hasFloor && floor != s.Params.TCloud {
 		mark(floor, "T_floor")
 	}
 	mark(s.Params.TCloud, "T_cl")
@@ -172,10 +180,11 @@ func RatioChart(r Request) *LineChart {
 		{"t_drag/t_cc", func(s *model.State) float64 { return float64(s.TDrag / s.TCC) }},
 	}
 	c := &LineChart{
-		Title: "timescale ratios vs r_cl",
-		X:     Axis{Label: "r_cl (pc)", Log: true, Min: lo, Max: hi},
-		Y:     Axis{Label: "ratio", Log: true},
-		Note:  "survival needs t_cool/t_dyn below the criterion's threshold (1 for Gronke & Oh; see the table)",
+		Title:   "timescale ratios vs r_cl",
+		X:       Axis{Label: "r_cl (pc)", Log: true, Min: lo, Max: hi},
+		Y:       Axis{Label: "ratio", Log: true},
+		Note:    "survival needs t_cool/t_dyn below the criterion's threshold (1 for Gronke & Oh; see the table)",
+		Caption: Caption(r),
 	}
 	add := func(p model.Params, cf model.CoolingFunction, prefix string, dashed bool) {
 		ys := make([][]float64, len(ratios))

@@ -64,6 +64,7 @@ func Regime(r Request) *RegimeMap {
 			m.Counts[j*nx+i] = n
 		}
 	}
+	m.Caption = Caption(r)
 	m.Note = "each cell: how many of the " + strconv.Itoa(m.Total) + " radiative criteria predict survival; mixed cells are where they disagree"
 	return m
 }

@@ -1,15 +1,19 @@
 package chartspec
 
 import (
+	"fmt"
 	"math"
+	"strings"
 
+	"cloudwind/cooling"
+	"cloudwind/internal/quantity"
 	"cloudwind/model"
 )
 
 // A Request is everything a chart builder reads. The builders only read
 // it, so a copy can be handed to another goroutine.
 type Request struct {
-	Params   model.Params          // the inputs (validated, defaults filled)
+	Params   model.Params          // the inputs (validated; zero optional fields mean their defaults)
 	Cooling  model.CoolingFunction // Λ(T) at Params.Metallicity
 	Criteria []model.Criterion
 	Pin      *Inputs // scenario A of a comparison, drawn dashed; nil for none
@@ -18,6 +22,42 @@ type Request struct {
 	Selected int     // the criterion of the family (an index into Criteria)
 	Cols     int     // cells available across: the regime map's resolution (clamped to 10…200)
 	Rows     int     // cells available down (clamped to 5…100)
+
+	CoolingName string // the cooling function's name for captions; "" names it from Cooling
+}
+
+// Caption describes the scenario of r in one line, for the caption of an
+// exported figure: χ, M, P/k_B, T_cl, r_cl, Z and the cooling function.
+// The labels use the notation of the chart texts (see LineChart).
+func Caption(r Request) string {
+	p := r.Params
+	parts := []string{
+		"χ = " + quantity.FormatSig(p.Chi, 3),
+		"M = " + quantity.FormatSig(p.Mach, 3),
+		"P/k_B = " + quantity.Format(model.DimPressure, float64(p.Pressure)),
+		"T_cl = " + quantity.Format(model.DimTemperature, float64(p.TCloud)),
+		"r_cl = " + quantity.Format(model.DimLength, float64(p.RCloud)),
+		"Z = " + quantity.Format(model.DimMetallicity, p.Metallicity),
+		"cooling: " + coolingName(r),
+	}
+	return strings.Join(parts, ", ")
+}
+
+// coolingName names r's cooling function: r.CoolingName, else a table's
+// name, else the analytic form.
+func coolingName(r Request) string {
+	if r.CoolingName != "" {
+		return quantity.Sanitize(r.CoolingName)
+	}
+	switch cf := r.Cooling.(type) {
+	case nil:
+		return "none"
+	case *cooling.PowerLaw:
+		return quantity.Sanitize(cf.Meta().Name)
+	case fmt.Stringer:
+		return quantity.Sanitize(cf.String())
+	}
+	return "analytic"
 }
 
 // Inputs are the inputs of one scenario: what a comparison pins.

@@ -48,10 +48,10 @@ func axisRange(a chartspec.Axis, data []float64) (lo, hi float64) {
 
 // setupAxis styles a plot axis for a, with range [lo, hi] in axis units.
 // Call it after adding the data: plot.Add widens the range.
-func setupAxis(pa *plot.Axis, a chartspec.Axis, lo, hi float64) {
-	pa.Label.Text = asciiText(a.Label)
-	pa.Label.TextStyle.Font = sansFont(10)
-	pa.Tick.Label.Font = sansFont(9)
+func setupAxis(h *richText, pa *plot.Axis, a chartspec.Axis, lo, hi float64) {
+	pa.Label.Text = a.Label
+	h.setFont(&pa.Label.TextStyle, 10)
+	h.setFont(&pa.Tick.Label, 9)
 	if a.Log {
 		pa.Scale = plot.LogScale{}
 		pa.Tick.Marker = plot.TickerFunc(logTicks)
@@ -61,10 +61,11 @@ func setupAxis(pa *plot.Axis, a chartspec.Axis, lo, hi float64) {
 }
 
 // logTicks returns ticks for a log axis from vmin to vmax (> 0):
-// decades labelled "1e-2" (about eight labels at most; the rest minor),
-// and minor ticks at 2…9 × 10^k when the range spans six decades or fewer.
-// When fewer than two decades fall in the range, the minor ticks at 2 and 5
-// × 10^k are labelled too ("2e-1"), and all of them within a factor of 3.
+// decades labelled "10^-2" (drawn 10⁻²; about eight labels at most; the
+// rest minor), and minor ticks at 2…9 × 10^k when the range spans six
+// decades or fewer. When fewer than two decades fall in the range, the
+// minor ticks at 2 and 5 × 10^k are labelled too ("2×10^-1"), and all of
+// them within a factor of 3.
 func logTicks(vmin, vmax float64) []plot.Tick {
 	if !(vmin > 0 && vmax > vmin) || math.IsInf(vmax, 0) {
 		return nil
@@ -77,7 +78,7 @@ func logTicks(vmin, vmax float64) []plot.Tick {
 		v := math.Pow(10, float64(d))
 		t := plot.Tick{Value: v}
 		if mod(d, step) == 0 {
-			t.Label = "1e" + strconv.Itoa(d)
+			t.Label = "10^" + strconv.Itoa(d)
 			if v >= vmin && v <= vmax {
 				labelled++
 			}
@@ -86,7 +87,7 @@ func logTicks(vmin, vmax float64) []plot.Tick {
 		for m := 2; m <= 9 && hi-lo <= 6 && d < hi; m++ {
 			t := plot.Tick{Value: float64(m) * v}
 			if m == 2 || m == 5 || vmax < 3*vmin {
-				t.Label = fmt.Sprintf("%de%d", m, d)
+				t.Label = fmt.Sprintf("%d×10^%d", m, d)
 			}
 			minor = append(minor, t)
 		}

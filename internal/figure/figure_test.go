@@ -16,7 +16,7 @@ import (
 )
 
 // Expected values in this file are rules of this package (file formats, the
-// 6 × 4 in size at 300 dpi, the ASCII spelling of labels) unless a comment
+// 6 × 4 in size at 300 dpi, the notation of chart texts) unless a comment
 // names another source. The charts are synthetic: their numbers mean
 // nothing.
 
@@ -62,13 +62,20 @@ func testRegimeMap() *chartspec.RegimeMap {
 // elements.
 func svgTexts(t *testing.T, path string) []string {
 	t.Helper()
+	texts, _ := svgTextSizes(t, path)
+	return texts
+}
+
+// svgTextSizes returns the text of the <text> elements of an SVG file and
+// the font size of each, from its style ("font-size:7px").
+func svgTextSizes(t *testing.T, path string) (texts []string, sizes []string) {
+	t.Helper()
 	f, err := os.Open(path)
 	if err != nil {
 		t.Fatal(err)
 	}
 	defer f.Close()
 	d := xml.NewDecoder(f)
-	var texts []string
 	inText := false
 	for {
 		tok, err := d.Token()
@@ -81,6 +88,17 @@ func svgTexts(t *testing.T, path string) []string {
 		switch tok := tok.(type) {
 		case xml.StartElement:
 			inText = tok.Name.Local == "text"
+			if inText {
+				size := ""
+				for _, a := range tok.Attr {
+					if a.Name.Local == "style" {
+						if _, rest, ok := strings.Cut(a.Value, "font-size:"); ok {
+							size, _, _ = strings.Cut(rest, ";")
+						}
+					}
+				}
+				sizes = append(sizes, size)
+			}
 		case xml.EndElement:
 			inText = false
 		case xml.CharData:
@@ -89,11 +107,27 @@ func svgTexts(t *testing.T, path string) []string {
 			}
 		}
 	}
-	return texts
+	return texts, sizes
+}
+
+// cellTexts returns the texts of a regime map's cells: those in the
+// cells' 7-point font.
+func cellTexts(t *testing.T, path string) []string {
+	texts, sizes := svgTextSizes(t, path)
+	var out []string
+	for i, s := range texts {
+		if strings.TrimSpace(sizes[i]) == "7px" {
+			out = append(out, s)
+		}
+	}
+	return out
 }
 
 // checkPNG decodes a PNG file and checks its size: 6 × 4 in at 300 dpi.
-func checkPNG(t *testing.T, path string) {
+func checkPNG(t *testing.T, path string) { checkPNGSize(t, path, 1800, 1200) }
+
+// checkPNGSize decodes a PNG file and checks its size in pixels.
+func checkPNGSize(t *testing.T, path string, w, h int) {
 	t.Helper()
 	f, err := os.Open(path)
 	if err != nil {
@@ -104,27 +138,32 @@ func checkPNG(t *testing.T, path string) {
 	if err != nil {
 		t.Fatalf("%s does not decode as PNG: %v", path, err)
 	}
-	if b := img.Bounds(); b.Dx() != 1800 || b.Dy() != 1200 {
-		t.Errorf("%s is %d×%d pixels, want 1800×1200 (6×4 in at 300 dpi)", path, b.Dx(), b.Dy())
+	if b := img.Bounds(); b.Dx() != w || b.Dy() != h {
+		t.Errorf("%s is %d×%d pixels, want %d×%d (at 300 dpi)", path, b.Dx(), b.Dy(), w, h)
 	}
 }
 
 func TestWriteLineChart(t *testing.T) {
 	dir := t.TempDir()
 	svg, pngPath := filepath.Join(dir, "chart.svg"), filepath.Join(dir, "chart.PNG")
+	c := testLineChart()
+	c.Caption = "χ = 300, cooling: test"
 	for _, p := range []string{svg, pngPath} {
-		if err := WriteLineChart(testLineChart(), p); err != nil {
+		if err := WriteLineChart(c, p); err != nil {
 			t.Fatalf("WriteLineChart(%s): %v", p, err)
 		}
 	}
 	texts := svgTexts(t, svg)
+	// Texts are drawn span by span: a subscript or superscript is a text
+	// element of its own.
 	for _, want := range []string{
-		"r_crit vs chi (P/k_B = 10^3 K cm^-3)",                    // the title, ASCII-mapped
-		"Gronke & Oh 2018", "Lambda-weighted mu Msun", "pinned A", // legend
-		"chi", "r_crit (pc)", // axis labels
-		"1e0", "1e1", "1e-2", // decade ticks
-		"chi = 100", "r_cl = 1 pc", "now", // marker labels
-		"T_mix outside the cooling table -- caution", // the note (em dash spelt --)
+		"r", "crit", " vs χ (P/k", "B", " = 10", "3", " K cm", "-3", // the title, with real symbols
+		"Gronke & Oh 2018", "Λ-weighted μ M☉", "pinned A", // legend
+		"χ", " (pc)", // axis labels
+		"10", "0", "1", "-2", // decade ticks 10⁰, 10¹, 10⁻²
+		"χ = 100", "r", "cl", " = 1 pc", "! now", // marker labels; a warning marked without colour
+		"T", "mix", " outside the cooling table — caution", // the note
+		"χ = 300, cooling: test", // the caption
 	} {
 		if !slices.Contains(texts, want) {
 			t.Errorf("SVG texts %q lack %q", texts, want)
@@ -134,14 +173,48 @@ func TestWriteLineChart(t *testing.T) {
 		t.Errorf("SVG shows the label of a marker outside the axis range")
 	}
 	for _, s := range texts {
-		if strings.ContainsFunc(s, func(r rune) bool { return r >= 0x80 }) {
-			t.Errorf("SVG text %q is not ASCII", s)
+		if strings.ContainsAny(s, "_^") {
+			t.Errorf("SVG text %q shows markup instead of a subscript or superscript", s)
 		}
 	}
 	checkPNG(t, pngPath)
 	entries, _ := os.ReadDir(dir)
 	if len(entries) != 2 {
 		t.Errorf("directory holds %d entries, want the 2 figures and no temporary files", len(entries))
+	}
+}
+
+// TestWritePanels exports the evolution view's two charts: both panels,
+// one legend, every note, a taller figure.
+func TestWritePanels(t *testing.T) {
+	dir := t.TempDir()
+	top, bottom := testLineChart(), testLineChart()
+	top.Title, bottom.Title = "upper panel", "lower panel"
+	bottom.Note = "lower note"
+	svg, pngPath := filepath.Join(dir, "two.svg"), filepath.Join(dir, "two.png")
+	for _, p := range []string{svg, pngPath} {
+		if err := WritePanels([]*chartspec.LineChart{top, bottom}, p); err != nil {
+			t.Fatalf("WritePanels(%s): %v", p, err)
+		}
+	}
+	texts := svgTexts(t, svg)
+	for _, want := range []string{"upper panel", "lower panel", "lower note", " outside the cooling table — caution"} {
+		if !slices.Contains(texts, want) {
+			t.Errorf("SVG texts %q lack %q", texts, want)
+		}
+	}
+	n := 0
+	for _, s := range texts {
+		if s == "Gronke & Oh 2018" {
+			n++
+		}
+	}
+	if n != 1 {
+		t.Errorf("the shared legend names the first series %d times, want once", n)
+	}
+	checkPNGSize(t, pngPath, 1800, 1950) // 6 × (4 + 2.5) in at 300 dpi
+	if err := WritePanels(nil, filepath.Join(dir, "none.svg")); err == nil {
+		t.Error("WritePanels(no charts) = nil, want an error")
 	}
 }
 
@@ -154,14 +227,14 @@ func TestWriteRegimeMap(t *testing.T) {
 		}
 	}
 	texts := svgTexts(t, svg)
-	for _, want := range []string{"Regime map", "Criteria predicting survival", "6 of 6", "0 of 6", "current", "chi", "r_cl (pc)", "1e1", "6 criteria"} {
+	for _, want := range []string{"Regime map", "Criteria predicting survival", "6 of 6", "0 of 6", "current", "χ", "cl", " (pc)", "10", "6 criteria"} {
 		if !slices.Contains(texts, want) {
 			t.Errorf("SVG texts %q lack %q", texts, want)
 		}
 	}
 	// Each of the 12 cells is large enough to carry its count.
 	digits := 0
-	for _, s := range texts {
+	for _, s := range cellTexts(t, svg) {
 		if len(s) == 1 && s[0] >= '0' && s[0] <= '6' {
 			digits++
 		}
@@ -251,8 +324,8 @@ func TestWriteDegenerateCharts(t *testing.T) {
 	if err := WriteRegimeMap(m, p); err != nil {
 		t.Fatalf("WriteRegimeMap(map with blank cells) = %v, want nil", err)
 	}
-	texts := svgTexts(t, p)
-	if !slices.Contains(texts, "no data") || !slices.Contains(texts, "?") || slices.Contains(texts, "-1") {
+	texts, cells := svgTexts(t, p), cellTexts(t, p)
+	if !slices.Contains(texts, "no data") || !slices.Contains(cells, "?") || slices.Contains(cells, "-1") {
 		t.Errorf("SVG texts %q: want a \"no data\" legend entry, a \"?\" cell and no \"-1\"", texts)
 	}
 }
@@ -271,10 +344,10 @@ func TestLogTicks(t *testing.T) {
 		lo, hi float64
 		want   []string
 	}{
-		{1e-2, 1e2, []string{"1e-2", "1e-1", "1e0", "1e1", "1e2"}},
-		{0.2, 0.8, []string{"2e-1", "5e-1"}},                                                           // no decade inside: 2 and 5 labelled
-		{2, 5, []string{"2e0", "3e0", "4e0", "5e0"}},                                                   // within a factor 3: all labelled
-		{1e-16, 1e16, []string{"1e-16", "1e-12", "1e-8", "1e-4", "1e0", "1e4", "1e8", "1e12", "1e16"}}, // every 4th decade
+		{1e-2, 1e2, []string{"10^-2", "10^-1", "10^0", "10^1", "10^2"}},
+		{0.2, 0.8, []string{"2×10^-1", "5×10^-1"}},                                                              // no decade inside: 2 and 5 labelled
+		{2, 5, []string{"2×10^0", "3×10^0", "4×10^0", "5×10^0"}},                                                // within a factor 3: all labelled
+		{1e-16, 1e16, []string{"10^-16", "10^-12", "10^-8", "10^-4", "10^0", "10^4", "10^8", "10^12", "10^16"}}, // every 4th decade
 	}
 	for _, c := range cases {
 		if got := labels(c.lo, c.hi); !slices.Equal(got, c.want) {
@@ -283,35 +356,5 @@ func TestLogTicks(t *testing.T) {
 	}
 	if got := logTicks(0, 1); got != nil {
 		t.Errorf("logTicks(0, 1) = %v, want nil (log axes need positive ranges)", got)
-	}
-}
-
-func TestASCIIText(t *testing.T) {
-	cases := map[string]string{
-		"K cm⁻³":              "K cm^-3",
-		"χ":                   "chi",
-		"M☉":                  "Msun",
-		"Λ (erg cm³ s⁻¹)":     "Lambda (erg cm^3 s^-1)",
-		"μ_hot":               "mu_hot",
-		"10⁻¹²":               "10^-12",
-		"x² + y¹":             "x^2 + y^1",
-		"n·T":                 "n T",
-		"H₂O":                 "H_2O",
-		"t⁺₋":                 "t^+_-",
-		"τ ≈ 3×10⁴ yr":        "tau ~ 3x10^4 yr",
-		"Z/Z☉ ≤ 1 − ε":        "Z/Zsun <= 1 - eps",
-		"日本":                  "??",
-		"a\x1b[31mb\tc\u202e": "a[31mb c", // control characters and bidi overrides removed (Sanitize)
-		"plain ASCII 1e-2":    "plain ASCII 1e-2",
-	}
-	for in, want := range cases {
-		if got := asciiText(in); got != want {
-			t.Errorf("asciiText(%q) = %q, want %q", in, got, want)
-		}
-	}
-	for r := range asciiSpelling {
-		if s := asciiText(string(r)); strings.ContainsFunc(s, func(r rune) bool { return r >= 0x80 }) {
-			t.Errorf("asciiText(%q) = %q is not ASCII", r, s)
-		}
 	}
 }

@@ -2,6 +2,7 @@ package figure
 
 import (
 	"image/color"
+	"strings"
 
 	"cloudwind/internal/chartspec"
 
@@ -11,15 +12,54 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 )
 
-// drawLineChart draws c on dc.
-func drawLineChart(dc draw.Canvas, c *chartspec.LineChart) error {
-	dc = drawNote(dc, c.Note)
+// drawLineCharts draws charts on dc as panels one above the other: the
+// notes and the caption at the bottom, then the legend of the first
+// chart's series, then the panels in the space left.
+func drawLineCharts(h *richText, dc draw.Canvas, charts []*chartspec.LineChart) error {
+	var foot []string
+	for _, c := range charts {
+		if c.Note != "" && (len(foot) == 0 || foot[len(foot)-1] != c.Note) {
+			foot = append(foot, c.Note)
+		}
+	}
+	dc = drawFooter(h, dc, foot, charts[0].Caption)
 	var legend []legendItem
+	for _, s := range charts[0].Series {
+		legend = append(legend, legendItem{s.Name, &plotter.Line{LineStyle: lineStyle(s.Index, s.Dashed)}})
+	}
+	dc = drawLegendRows(h, dc, legend)
+	n := vg.Length(len(charts))
+	height := (dc.Max.Y - dc.Min.Y) / n
+	for i, c := range charts {
+		top := dc.Max.Y - vg.Length(i)*height
+		panel := draw.Canvas{Canvas: dc.Canvas, Rectangle: vg.Rectangle{Min: vg.Point{X: dc.Min.X, Y: top - height}, Max: vg.Point{X: dc.Max.X, Y: top}}}
+		if i > 0 {
+			panel = draw.Crop(panel, 0, 0, 0, -vg.Points(panelGap))
+		}
+		titleSize := 11.0
+		if len(charts) > 1 {
+			titleSize = 10
+		}
+		drawLinePlot(h, panel, c, titleSize)
+	}
+	return nil
+}
+
+// Margins in points (no source: chosen to read at slide size): the space
+// between panels, and at the right of a plot, where half of the last x
+// tick label reaches beyond the axis.
+const (
+	panelGap    = 10
+	rightMargin = 12
+)
+
+// drawLinePlot draws the plot of c (title, axes, series, markers) on dc.
+func drawLinePlot(h *richText, dc draw.Canvas, c *chartspec.LineChart, titleSize float64) {
+	dc = draw.Crop(dc, 0, -vg.Points(rightMargin), 0, 0)
 	var xs, ys []float64
 	var lines []plot.Plotter
 	for _, s := range c.Series {
 		sty := lineStyle(s.Index, s.Dashed)
-		legend = append(legend, legendItem{asciiText(s.Name), &plotter.Line{LineStyle: sty}})
 		var cur plotter.XYs // data values: 10^x on log axes
 		flush := func() {
 			if len(cur) > 1 {
@@ -39,61 +79,65 @@ func drawLineChart(dc draw.Canvas, c *chartspec.LineChart) error {
 		}
 		flush()
 	}
-	p := newPlot(c.Title)
+	p := newPlot(h, c.Title, titleSize)
 	p.Add(lines...)
-	p.Add(&markerPlotter{markers: c.Markers, xlog: c.X.Log, ylog: c.Y.Log})
+	p.Add(&markerPlotter{h: h, markers: c.Markers, xlog: c.X.Log, ylog: c.Y.Log})
 	xlo, xhi := axisRange(c.X, xs)
 	ylo, yhi := axisRange(c.Y, ys)
-	setupAxis(&p.X, c.X, xlo, xhi)
-	setupAxis(&p.Y, c.Y, ylo, yhi)
-	p.Draw(drawLegend(dc, legend, ""))
-	return nil
+	setupAxis(h, &p.X, c.X, xlo, xhi)
+	setupAxis(h, &p.Y, c.Y, ylo, yhi)
+	p.Draw(dc)
 }
 
-// newPlot returns a plot with title in sansFont.
-func newPlot(title string) *plot.Plot {
+// newPlot returns a plot whose every text is drawn by h, titled title.
+func newPlot(h *richText, title string, size float64) *plot.Plot {
 	p := plot.New()
-	p.Title.Text = asciiText(title)
-	p.Title.TextStyle.Font = sansFont(11)
+	p.TextHandler = h
+	p.Title.Text = title
+	h.setFont(&p.Title.TextStyle, size)
 	p.Title.Padding = vg.Points(6)
+	h.setFont(&p.Legend.TextStyle, 9)
 	return p
 }
 
 // A markerPlotter draws Markers as dashed lines or rings with labels.
 type markerPlotter struct {
+	h          *richText
 	markers    []chartspec.Marker
 	xlog, ylog bool
 }
 
-// Plot draws the markers; each label sits one line lower than the last,
-// so that labels of nearby markers do not overprint.
+// Plot draws the markers. Labels of vertical lines stack downwards from
+// the top of the plot, so that labels of nearby lines do not overprint;
+// every label is kept inside the plot area, on a light backing.
 func (mp *markerPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 	trX, trY := p.Transforms(&c)
-	for i, m := range mp.markers {
+	row := 0
+	for _, m := range mp.markers {
 		col := color.RGBA{0x55, 0x55, 0x55, 0xff} // grey; warnings in vermillion
 		if m.Warn {
 			col = seriesColors[1]
 		}
 		sty := draw.LineStyle{Color: col, Width: vg.Points(1), Dashes: []vg.Length{vg.Points(4), vg.Points(3)}}
-		lab := textStyle(8, col)
+		lab := mp.h.textStyle(8, col)
 		pad := vg.Points(3)
-		row := c.Max.Y - pad - vg.Length(i+1)*lab.Height("0")
 		x, okx := dataValue(m.X, mp.xlog)
 		y, oky := dataValue(m.Y, mp.ylog)
 		var at vg.Point
 		switch {
 		case m.Kind == chartspec.VLine && okx:
-			at = vg.Point{X: trX(x), Y: row}
-			if !c.ContainsX(at.X) {
+			if !c.ContainsX(trX(x)) {
 				continue
 			}
-			c.StrokeLine2(sty, at.X, c.Min.Y, at.X, c.Max.Y)
+			c.StrokeLine2(sty, trX(x), c.Min.Y, trX(x), c.Max.Y)
+			row++
+			at = vg.Point{X: trX(x) + pad, Y: c.Max.Y - pad - vg.Length(row)*lab.Height("0")}
 		case m.Kind == chartspec.HLine && oky:
-			at = vg.Point{X: c.Min.X + pad, Y: trY(y) + pad}
 			if !c.ContainsY(trY(y)) {
 				continue
 			}
 			c.StrokeLine2(sty, c.Min.X, trY(y), c.Max.X, trY(y))
+			at = vg.Point{X: c.Min.X + pad, Y: trY(y) + pad}
 		case m.Kind == chartspec.Point && okx && oky:
 			at = vg.Point{X: trX(x), Y: trY(y)}
 			if !c.Contains(at) {
@@ -102,76 +146,160 @@ func (mp *markerPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 			c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: vg.Points(5), Shape: draw.CircleGlyph{}}, at)
 			c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: vg.Points(5), Shape: draw.RingGlyph{}}, at)
 			c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: vg.Points(2.5), Shape: draw.CrossGlyph{}}, at)
-			at.Y += vg.Points(6)
+			at.X, at.Y = at.X+pad, at.Y+vg.Points(6)
 		default:
 			continue
 		}
 		if m.Label == "" {
 			continue
 		}
-		lab.XAlign = draw.XLeft
-		at.X += pad
-		if at.X > (c.Min.X+c.Max.X)/2 {
-			lab.XAlign, at.X = draw.XRight, at.X-2*pad
+		txt := m.Label
+		if m.Warn {
+			txt = "! " + txt // the warning does not rest on colour
 		}
-		txt := asciiText(m.Label)
-		box := lab.Rectangle(txt).Add(at)
-		c.SetColor(color.NRGBA{0xff, 0xff, 0xff, 0xcc}) // a light backing keeps the label readable on map cells
-		c.Fill(box.Path())
-		c.FillText(lab, at, txt)
+		placeLabel(c, lab, at, txt, pad)
 	}
 }
 
-// A legendItem is one line of a legend.
+// placeLabel writes txt with its lower left corner at at, moved to the
+// left of at when it would leave c on the right, and kept inside c.
+func placeLabel(c draw.Canvas, lab draw.TextStyle, at vg.Point, txt string, pad vg.Length) {
+	w, hgt := lab.Width(txt), lab.Height(txt)
+	if at.X+w > c.Max.X-pad {
+		at.X -= w + 2*pad
+	}
+	at.X = max(c.Min.X+pad, min(at.X, c.Max.X-pad-w))
+	at.Y = max(c.Min.Y+pad, min(at.Y, c.Max.Y-pad-hgt))
+	lab.XAlign, lab.YAlign = draw.XLeft, draw.YBottom
+	box := lab.Rectangle(txt).Add(at)
+	c.SetColor(color.NRGBA{0xff, 0xff, 0xff, 0xcc}) // a light backing keeps the label readable over curves and cells
+	c.Fill(box.Path())
+	c.FillText(lab, at, txt)
+}
+
+// A legendItem is one entry of a legend.
 type legendItem struct {
 	text  string
 	thumb plot.Thumbnailer
 }
 
-// drawLegend draws items in a strip at the right of dc, under an optional
-// heading, and returns the rest of dc. With no items it returns dc.
-func drawLegend(dc draw.Canvas, items []legendItem, heading string) draw.Canvas {
+// Legend geometry, in points (no source: chosen to read at slide size).
+const (
+	legendThumb = 22 // thumbnail width
+	legendGap   = 4  // between a thumbnail and its text
+	legendSep   = 14 // between entries on a row
+	legendPad   = 6  // around the legend
+)
+
+// drawLegendRows draws items in rows under the plot, packed left to right
+// in the width of dc, each entry shortened with "…" if it alone is wider;
+// it returns the rest of dc above the legend (dc itself without items).
+func drawLegendRows(h *richText, dc draw.Canvas, items []legendItem) draw.Canvas {
 	if len(items) == 0 {
 		return dc
 	}
-	l := plot.NewLegend()
-	l.TextStyle = textStyle(9, color.Black)
-	l.Left, l.Top = true, true
-	l.ThumbnailWidth = vg.Points(28)
-	l.Padding = vg.Points(2)
+	sty := h.textStyle(9, color.Black)
+	pad := vg.Points(legendPad)
+	avail := dc.Max.X - dc.Min.X - 2*pad
+	type placed struct {
+		item legendItem
+		text string
+		x    vg.Length
+	}
+	var rows [][]placed
+	var x vg.Length
 	for _, it := range items {
-		l.Add(it.text, it.thumb)
+		txt := fitText(sty, it.text, avail-vg.Points(legendThumb+legendGap))
+		w := vg.Points(legendThumb+legendGap) + sty.Width(txt)
+		if len(rows) == 0 || x+vg.Points(legendSep)+w > avail {
+			rows = append(rows, nil)
+			x = 0
+		} else {
+			x += vg.Points(legendSep)
+		}
+		rows[len(rows)-1] = append(rows[len(rows)-1], placed{it, txt, x})
+		x += w
 	}
-	r := l.Rectangle(dc)
-	pad := vg.Points(8)
-	w := max(r.Max.X-r.Min.X, l.TextStyle.Width(heading)) + 2*pad
-	w = min(w, 0.45*(dc.Max.X-dc.Min.X))
-	strip := draw.Crop(dc, dc.Max.X-dc.Min.X-w+pad, -pad, pad, -vg.Points(24))
-	if heading != "" {
-		strip.FillText(l.TextStyle, vg.Point{X: strip.Min.X, Y: strip.Max.Y - l.TextStyle.Height(heading)}, heading)
-		strip.Max.Y -= l.TextStyle.Height(heading) + vg.Points(4)
+	lineH := sty.Height("Mg") * 1.3
+	top := dc.Min.Y + pad + vg.Length(len(rows))*lineH
+	for r, row := range rows {
+		base := top - vg.Length(r+1)*lineH
+		for _, p := range row {
+			x0 := dc.Min.X + pad + p.x
+			thumb := draw.Canvas{Canvas: dc.Canvas, Rectangle: vg.Rectangle{
+				Min: vg.Point{X: x0, Y: base}, Max: vg.Point{X: x0 + vg.Points(legendThumb), Y: base + sty.Height("Mg")}}}
+			p.item.thumb.Thumbnail(&thumb)
+			t := sty
+			t.XAlign, t.YAlign = draw.XLeft, draw.YBottom
+			dc.FillText(t, vg.Point{X: x0 + vg.Points(legendThumb+legendGap), Y: base + sty.FontExtents().Descent}, p.text)
+		}
 	}
-	l.Draw(strip)
-	return draw.Crop(dc, 0, -w, 0, 0)
+	return draw.Crop(dc, 0, 0, top+pad-dc.Min.Y, 0)
 }
 
-// drawNote writes note in one line at the bottom of dc, shortened with
-// "..." to fit, and returns the rest of dc.
-func drawNote(dc draw.Canvas, note string) draw.Canvas {
-	note = asciiText(note)
-	if note == "" {
+// fitText returns txt, or txt shortened with "…" to at most w wide.
+func fitText(sty draw.TextStyle, txt string, w vg.Length) string {
+	if sty.Width(txt) <= w {
+		return txt
+	}
+	rs := []rune(txt)
+	for len(rs) > 0 && sty.Width(string(rs)+"…") > w {
+		rs = rs[:len(rs)-1]
+	}
+	return string(rs) + "…"
+}
+
+// wrapText splits txt at spaces into at most n lines no wider than w,
+// the last shortened with "…" when the text does not fit.
+func wrapText(sty draw.TextStyle, txt string, w vg.Length, n int) []string {
+	var lines []string
+	rest := txt
+	for len(lines) < n-1 && sty.Width(rest) > w {
+		words := strings.Fields(rest)
+		k := 1
+		for k < len(words) && sty.Width(strings.Join(words[:k+1], " ")) <= w {
+			k++
+		}
+		lines = append(lines, fitText(sty, strings.Join(words[:k], " "), w))
+		rest = strings.Join(words[k:], " ")
+	}
+	if rest != "" {
+		lines = append(lines, fitText(sty, rest, w))
+	}
+	return lines
+}
+
+// drawFooter writes the notes and then the caption at the bottom of dc,
+// each wrapped to at most two lines, and returns the rest of dc above
+// them.
+func drawFooter(h *richText, dc draw.Canvas, notes []string, caption string) draw.Canvas {
+	type line struct {
+		text string
+		sty  draw.TextStyle
+	}
+	pad := vg.Points(4)
+	w := dc.Max.X - dc.Min.X - 2*pad
+	var lines []line
+	for _, n := range notes {
+		sty := h.textStyle(8, color.Black)
+		for _, l := range wrapText(sty, n, w, 2) {
+			lines = append(lines, line{l, sty})
+		}
+	}
+	if caption != "" {
+		sty := h.textStyle(7.5, color.RGBA{0x44, 0x44, 0x44, 0xff})
+		for _, l := range wrapText(sty, caption, w, 2) {
+			lines = append(lines, line{l, sty})
+		}
+	}
+	if len(lines) == 0 {
 		return dc
 	}
-	sty := textStyle(8, color.Black)
-	pad := vg.Points(4)
-	maxW := dc.Max.X - dc.Min.X - 2*pad
-	if sty.Width(note) > maxW {
-		for len(note) > 0 && sty.Width(note+"...") > maxW {
-			note = note[:len(note)-1] // ASCII after asciiText: bytes are runes
-		}
-		note += "..."
+	y := dc.Min.Y + pad
+	for i := len(lines) - 1; i >= 0; i-- {
+		l := lines[i]
+		dc.FillText(l.sty, vg.Point{X: dc.Min.X + pad, Y: y + l.sty.FontExtents().Descent}, l.text)
+		y += l.sty.Height("Mg") * 1.25
 	}
-	h := sty.Height(note) + 2*pad
-	dc.FillText(sty, vg.Point{X: dc.Min.X + pad, Y: dc.Min.Y + pad + sty.FontExtents().Descent}, note)
-	return draw.Crop(dc, 0, 0, h, 0)
+	return draw.Crop(dc, 0, 0, y+pad-dc.Min.Y, 0)
 }

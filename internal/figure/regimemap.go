@@ -71,9 +71,14 @@ func (b boxThumb) Thumbnail(c *draw.Canvas) {
 	c.Fill(c.Rectangle.Path())
 }
 
-// drawRegimeMap draws m on dc.
-func drawRegimeMap(dc draw.Canvas, m *chartspec.RegimeMap) error {
-	dc = drawNote(dc, m.Note)
+// drawRegimeMap draws m on dc: the note and caption at the bottom, the
+// legend of shades in a strip at the right, the map in the rest.
+func drawRegimeMap(h *richText, dc draw.Canvas, m *chartspec.RegimeMap) error {
+	var notes []string
+	if m.Note != "" {
+		notes = []string{m.Note}
+	}
+	dc = drawFooter(h, dc, notes, m.Caption)
 	var items []legendItem
 	for _, n := range legendCounts(m.Total) {
 		items = append(items, legendItem{fmt.Sprintf("%d of %d", n, m.Total), boxThumb(shade(n, m.Total))})
@@ -81,16 +86,16 @@ func drawRegimeMap(dc draw.Canvas, m *chartspec.RegimeMap) error {
 	if slices.IndexFunc(m.Counts, func(n int) bool { return n < 0 }) >= 0 {
 		items = append(items, legendItem{"no data", boxThumb(noDataColor)})
 	}
-	plotArea := drawLegend(dc, items, "Criteria predicting survival")
-	p := newPlot(m.Title)
+	plotArea := drawLegendStrip(h, dc, items, "Criteria predicting survival")
+	p := newPlot(h, m.Title, 11)
 	xlo, xhi := axisRange(m.X, nil)
 	ylo, yhi := axisRange(m.Y, nil)
-	p.Add(&cellPlotter{m: m, xlo: xlo, xhi: xhi, ylo: ylo, yhi: yhi})
+	p.Add(&cellPlotter{h: h, m: m, xlo: xlo, xhi: xhi, ylo: ylo, yhi: yhi})
 	if m.Mark != nil {
-		p.Add(&markerPlotter{markers: []chartspec.Marker{*m.Mark}, xlog: m.X.Log, ylog: m.Y.Log})
+		p.Add(&markerPlotter{h: h, markers: []chartspec.Marker{*m.Mark}, xlog: m.X.Log, ylog: m.Y.Log})
 	}
-	setupAxis(&p.X, m.X, xlo, xhi)
-	setupAxis(&p.Y, m.Y, ylo, yhi)
+	setupAxis(h, &p.X, m.X, xlo, xhi)
+	setupAxis(h, &p.Y, m.Y, ylo, yhi)
 	p.Draw(plotArea)
 	return nil
 }
@@ -98,6 +103,7 @@ func drawRegimeMap(dc draw.Canvas, m *chartspec.RegimeMap) error {
 // cellPlotter draws the cells of a regime map over [xlo, xhi] × [ylo, yhi]
 // (axis units), each with its count when the cells are large enough.
 type cellPlotter struct {
+	h                  *richText
 	m                  *chartspec.RegimeMap
 	xlo, xhi, ylo, yhi float64
 }
@@ -125,9 +131,36 @@ func (cp *cellPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 			if n > m.Total {
 				label = "?"
 			}
-			sty := textStyle(7, ink)
+			sty := cp.h.textStyle(7, ink)
 			sty.XAlign, sty.YAlign = draw.XCenter, draw.YCenter
 			c.FillText(sty, vg.Point{X: (x0 + x1) / 2, Y: (y0 + y1) / 2}, label)
 		}
 	}
+}
+
+// drawLegendStrip draws items in a strip at the right of dc, under a
+// heading, each entry shortened with "…" to fit a strip at most 45% of
+// dc's width, and returns the rest of dc. With no items it returns dc.
+func drawLegendStrip(h *richText, dc draw.Canvas, items []legendItem, heading string) draw.Canvas {
+	if len(items) == 0 {
+		return dc
+	}
+	l := plot.NewLegend()
+	l.TextStyle = h.textStyle(9, color.Black)
+	l.Left, l.Top = true, true
+	l.ThumbnailWidth = vg.Points(28)
+	l.Padding = vg.Points(2)
+	pad := vg.Points(8)
+	maxW := 0.45*(dc.Max.X-dc.Min.X) - 2*pad
+	heading = fitText(l.TextStyle, heading, maxW)
+	for _, it := range items {
+		l.Add(fitText(l.TextStyle, it.text, maxW-l.ThumbnailWidth-l.TextStyle.Width(" ")), it.thumb)
+	}
+	r := l.Rectangle(dc)
+	w := max(r.Max.X-r.Min.X, l.TextStyle.Width(heading)) + 2*pad
+	strip := draw.Crop(dc, dc.Max.X-dc.Min.X-w+pad, -pad, pad, -vg.Points(24))
+	strip.FillText(l.TextStyle, vg.Point{X: strip.Min.X, Y: strip.Max.Y - l.TextStyle.Height(heading)}, heading)
+	strip.Max.Y -= l.TextStyle.Height(heading) + vg.Points(4)
+	l.Draw(strip)
+	return draw.Crop(dc, 0, -w-vg.Points(rightMargin), 0, 0)
 }

@@ -3,7 +3,6 @@ package figure
 import (
 	"image/color"
 
-	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
@@ -37,13 +36,14 @@ func lineStyle(i int, dashed bool) draw.LineStyle {
 // mod returns i mod n in 0…n-1 for any sign of i.
 func mod(i, n int) int { return (i%n + n) % n }
 
-// sansFont returns Liberation Sans, embedded in gonum/plot, at size points:
-// sans-serif reads better on slides than the default serif.
-func sansFont(size float64) font.Font {
-	return font.From(font.Font{Typeface: "Liberation", Variant: "Sans"}, vg.Points(size))
+// textStyle returns the style of a text of size points in colour c,
+// drawn by h.
+func (h *richText) textStyle(size float64, c color.Color) text.Style {
+	return text.Style{Color: c, Font: font.From(sansTypeface, vg.Points(size)), Handler: h}
 }
 
-// textStyle returns a plain-text style of sansFont.
-func textStyle(size float64, c color.Color) text.Style {
-	return text.Style{Color: c, Font: sansFont(size), Handler: plot.DefaultTextHandler}
+// setFont sets the font of sty to size points, drawn by h.
+func (h *richText) setFont(sty *text.Style, size float64) {
+	sty.Font = font.From(sansTypeface, vg.Points(size))
+	sty.Handler = h
 }

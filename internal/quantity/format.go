@@ -1,7 +1,7 @@
-// Package tui is cloudwind's interface: the explorer, and the one place
-// where CGS values become display strings with units (format.go) and where
-// typed values with units are parsed back (units.go). Nothing imports it
-// but the program's main package.
+// Package quantity is the one place where CGS values become display
+// strings with units (format.go), where typed values with units are parsed
+// back (units.go), and where those strings get their plain-ASCII spelling
+// for terminals and fonts without Unicode (ascii.go).
 package quantity
 
 import (
@@ -20,6 +20,7 @@ type Kind = model.Dimension
 // A displayUnit converts a CGS value of one Kind for display.
 type displayUnit struct {
 	label  string  // Unicode label for people, e.g. "km s⁻¹"
+	plain  string  // the label in plain ASCII for terminals without Unicode, e.g. "km s^-1"
 	ascii  string  // the same unit as an astropy unit string, e.g. "km / s"
 	suffix string  // JSON key suffix naming the unit, e.g. "kms"
 	factor float64 // display value = CGS value / factor
@@ -28,18 +29,18 @@ type displayUnit struct {
 
 // displayUnits is the single table of display units.
 var displayUnits = [model.DimensionCount]displayUnit{
-	model.Dimensionless:    {"", "", "", 1, 3},
-	model.DimTemperature:   {"K", "K", "k", 1, 3},
-	model.DimNumberDensity: {"cm⁻³", "cm-3", "cm3", 1, 3},
-	model.DimDensity:       {"g cm⁻³", "g / cm3", "gcm3", 1, 3},
-	model.DimVelocity:      {"km s⁻¹", "km / s", "kms", float64(model.KilometrePerSecond), 4},
-	model.DimTime:          {"Myr", "Myr", "myr", float64(model.Megayear), 3},
-	model.DimLength:        {"pc", "pc", "pc", float64(model.Parsec), 3},
-	model.DimMass:          {"M☉", "solMass", "msun", float64(model.SolarMass), 3},
-	model.DimColumn:        {"cm⁻²", "cm-2", "cm2", 1, 3},
-	model.DimPressure:      {"K cm⁻³", "K / cm3", "kcm3", 1, 3},
-	model.DimCooling:       {"erg cm³ s⁻¹", "erg cm3 / s", "ergcm3s", 1, 3},
-	model.DimMetallicity:   {"Z☉", "", "zsun", 1, 3},
+	model.Dimensionless:    {"", "", "", "", 1, 3},
+	model.DimTemperature:   {"K", "K", "K", "k", 1, 3},
+	model.DimNumberDensity: {"cm⁻³", "cm^-3", "cm-3", "cm3", 1, 3},
+	model.DimDensity:       {"g cm⁻³", "g cm^-3", "g / cm3", "gcm3", 1, 3},
+	model.DimVelocity:      {"km s⁻¹", "km s^-1", "km / s", "kms", float64(model.KilometrePerSecond), 4},
+	model.DimTime:          {"Myr", "Myr", "Myr", "myr", float64(model.Megayear), 3},
+	model.DimLength:        {"pc", "pc", "pc", "pc", float64(model.Parsec), 3},
+	model.DimMass:          {"M☉", "Msun", "solMass", "msun", float64(model.SolarMass), 3},
+	model.DimColumn:        {"cm⁻²", "cm^-2", "cm-2", "cm2", 1, 3},
+	model.DimPressure:      {"K cm⁻³", "K cm^-3", "K / cm3", "kcm3", 1, 3},
+	model.DimCooling:       {"erg cm³ s⁻¹", "erg cm^3 s^-1", "erg cm3 / s", "ergcm3s", 1, 3},
+	model.DimMetallicity:   {"Z☉", "Zsun", "", "zsun", 1, 3},
 }
 
 // Unit returns the display label of k's unit ("" when dimensionless).

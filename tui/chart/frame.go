@@ -17,9 +17,10 @@ type frame struct {
 const minPlotRows = 3
 
 // layoutFrame divides h rows between the plot and the parts around it,
-// giving up parts in reverse order of importance (title, note, extra
-// legend rows, x-axis title, first legend row, y-axis title) while the
-// plot keeps enough rows. ok is false when not even minPlotRows fit.
+// giving up parts in reverse order of importance (title, note, x-axis
+// title, legend rows, y-axis title) while the plot keeps enough rows: the
+// legend names every curve as long as the plot keeps minPlotRows. ok is
+// false when not even minPlotRows fit.
 func layoutFrame(h int, title, ylabel, xtitle, note bool, legendRows int) (f frame, ok bool) {
 	r := h - 2 // the axis and tick-label rows are always drawn
 	if r < minPlotRows {
@@ -34,13 +35,10 @@ func layoutFrame(h int, title, ylabel, xtitle, note bool, legendRows int) (f fra
 	}
 	hasY := take(ylabel, 3)
 	nleg := 0
-	if take(legendRows > 0, 3) {
-		nleg = 1
-	}
-	hasX := take(xtitle, 4)
-	for nleg < legendRows && take(true, 6) {
+	for nleg < legendRows && take(true, minPlotRows) {
 		nleg++
 	}
+	hasX := take(xtitle, 4)
 	hasNote := take(note, 6)
 	hasTitle := take(title, 8)
 

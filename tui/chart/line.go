@@ -42,14 +42,19 @@ const (
 // line. Blocks smaller than 20×6 hold only the note "too small"; a nil
 // chart or one without data shows "no data". It never panics.
 func RenderLine(c *chartspec.LineChart, w, h int, st *Styles) string {
-	st = stylesOrDefault(st)
+	return renderLine(c, w, h, stylesOrDefault(st), true)
+}
+
+// renderLine is RenderLine, with or without the legend (RenderPanels
+// draws one legend for all its panels).
+func renderLine(c *chartspec.LineChart, w, h int, st *Styles, withLegend bool) string {
 	if w < minChartWidth || h < minChartHeight {
 		return tooSmallBlock(w, h, st)
 	}
 	if c == nil {
 		c = &chartspec.LineChart{}
 	}
-	lc := lineRender{c: c, st: st, braille: st.Color && !st.ASCII, s: newSurface(w, h)}
+	lc := lineRender{c: c, st: st, braille: st.Color && !st.ASCII, s: newSurface(w, h), noLegend: !withLegend}
 	if !lc.layout() {
 		return tooSmallBlock(w, h, st)
 	}
@@ -59,18 +64,21 @@ func RenderLine(c *chartspec.LineChart, w, h int, st *Styles) string {
 
 // A lineRender is the state of one RenderLine call.
 type lineRender struct {
-	c       *chartspec.LineChart
-	st      *Styles
-	s       *surface
-	braille bool
+	c        *chartspec.LineChart
+	st       *Styles
+	s        *surface
+	braille  bool
+	noLegend bool
 
 	f      frame
 	x0, pw int      // first plot column, plot columns
 	sx, sy int      // dots per cell across and down: 2×4 braille, 1×1 runes
 	xs, ys dotScale // axis value → dot; ys counts dots up from the bottom
 	xt, yt []placedTick
-	legend [][]legendItem
-	sid    []uint8 // style id of each series
+	items  []legendItem   // one per series
+	legend [][]legendItem // items packed in rows
+	sid    []uint8        // style id of each series
+	owners []uint64       // per surface cell: bit i set when series i passes through it (overlap.go)
 	axisID uint8
 	dimID  uint8
 	warnID uint8
@@ -93,7 +101,7 @@ func (lc *lineRender) layout() bool {
 	for i := range c.Series {
 		sr := &c.Series[i]
 		lc.sid[i] = lc.seriesStyleID(sr)
-		name := textRunes(sr.Name)
+		name := textRunes(sr.Name, lc.st.ASCII)
 		if len(name) == 0 {
 			name = []rune("(unnamed)")
 		}
@@ -103,7 +111,10 @@ func (lc *lineRender) layout() bool {
 		}
 		items = append(items, it)
 	}
-	lc.legend = packLegend(items, s.w)
+	lc.items = items
+	if !lc.noLegend {
+		lc.legend = packLegend(items, s.w)
+	}
 
 	f, ok := layoutFrame(s.h, c.Title != "", c.Y.Label != "", c.X.Label != "", c.Note != "", len(lc.legend))
 	if !ok {
@@ -186,17 +197,16 @@ func (lc *lineRender) seriesStyleID(sr *chartspec.Series) uint8 {
 func (lc *lineRender) draw() {
 	c, st, s, f := lc.c, lc.st, lc.s, lc.f
 	drawAxes(s, f, lc.x0, lc.pw, lc.xt, lc.yt, axesGlyphs(st.ASCII), lc.axisID)
-	ylabel := textRunes(c.Y.Label)
+	ylabel := textRunes(c.Y.Label, lc.st.ASCII)
 	if f.ylabel >= 0 {
 		s.write(0, f.ylabel, clipRunes(ylabel, s.w, st.ASCII), lc.axisID, kindText)
 	}
 	lc.drawTitle(ylabel)
 	if f.xtitle >= 0 {
-		writeCentred(s, lc.x0, lc.pw, f.xtitle, textRunes(c.X.Label), lc.axisID, st.ASCII)
+		writeCentred(s, lc.x0, lc.pw, f.xtitle, textRunes(c.X.Label, lc.st.ASCII), lc.axisID, st.ASCII)
 	}
-	drawLegend(s, lc.legend, f.legend, f.nleg, st.ASCII)
 	if f.note >= 0 {
-		s.write(0, f.note, clipRunes(textRunes(c.Note), s.w, st.ASCII), lc.dimID, kindText)
+		s.write(0, f.note, clipRunes(textRunes(c.Note, lc.st.ASCII), s.w, st.ASCII), lc.dimID, kindText)
 	}
 
 	for i := range c.Markers {
@@ -206,11 +216,15 @@ func (lc *lineRender) draw() {
 	for i := range c.Series {
 		sr := &c.Series[i]
 		if lc.braille {
-			ends[i] = lc.drawBraille(sr, lc.sid[i])
+			ends[i] = lc.drawBraille(sr, lc.sid[i], i)
 		} else {
-			ends[i] = lc.drawRunes(sr, lc.sid[i])
+			ends[i] = lc.drawRunes(sr, lc.sid[i], i)
 		}
 		lc.drawn = lc.drawn || len(ends[i]) > 0
+	}
+	lc.resolveOverlaps()
+	if !lc.noLegend {
+		drawLegend(s, lc.legendWithOverlaps(), f.legend, f.nleg, st.ASCII)
 	}
 	if lc.braille {
 		for i := range c.Series {
@@ -232,7 +246,7 @@ func (lc *lineRender) draw() {
 // y-axis title row when it fits there.
 func (lc *lineRender) drawTitle(ylabel []rune) {
 	s, f := lc.s, lc.f
-	title := textRunes(lc.c.Title)
+	title := textRunes(lc.c.Title, lc.st.ASCII)
 	if len(title) == 0 {
 		return
 	}
@@ -305,7 +319,7 @@ func clipSegment(x0, y0, x1, y1, xlo, xhi, ylo, yhi float64) (ax, ay, bx, by flo
 // into the surface (dots of earlier series kept, the last style winning,
 // as ntcharts' DrawBrailleRune does). Dashed series draw 3 dots of every
 // 6. It returns the cells of the segment ends in data order.
-func (lc *lineRender) drawBraille(sr *chartspec.Series, id uint8) []canvas.Point {
+func (lc *lineRender) drawBraille(sr *chartspec.Series, id uint8, order int) []canvas.Point {
 	g := graph.NewBrailleGrid(lc.pw, lc.f.ph, lc.xs.lo, lc.xs.hi, lc.ys.lo, lc.ys.hi)
 	var ends []canvas.Point
 	n := 0
@@ -342,6 +356,7 @@ func (lc *lineRender) drawBraille(sr *chartspec.Series, id uint8) []canvas.Point
 				r = runes.CombineBraillePatterns(c.r, r)
 			}
 			*c = cell{r: r, s: id, kind: kindCurve}
+			lc.own(lc.x0+x, lc.f.top+y, order)
 		}
 	}
 	return ends
@@ -350,7 +365,7 @@ func (lc *lineRender) drawBraille(sr *chartspec.Series, id uint8) []canvas.Point
 // drawRunes draws sr with its glyph in every cell its line passes
 // through; dashed series skip every other cell. It returns the cells of
 // the segment ends in data order.
-func (lc *lineRender) drawRunes(sr *chartspec.Series, id uint8) []canvas.Point {
+func (lc *lineRender) drawRunes(sr *chartspec.Series, id uint8, order int) []canvas.Point {
 	glyph := lc.st.Glyph(sr.Index)
 	var ends []canvas.Point
 	prev := canvas.Point{X: -1, Y: -1}
@@ -366,6 +381,7 @@ func (lc *lineRender) drawRunes(sr *chartspec.Series, id uint8) []canvas.Point {
 		}
 		if c := lc.s.at(p.X, p.Y); c != nil && c.kind != kindText && lc.inPlot(p.X, p.Y) {
 			*c = cell{r: glyph, s: id, kind: kindCurve}
+			lc.own(p.X, p.Y, order)
 		}
 	}
 	lc.eachSegment(sr, func(x0, y0, x1, y1 float64) {

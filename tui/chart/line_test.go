@@ -189,6 +189,9 @@ func TestChartLegendAndSanitize(t *testing.T) {
 		}
 		for _, sr := range c.Series {
 			name := quantity.Sanitize(sr.Name)
+			if st.ASCII {
+				name = quantity.ASCII(name)
+			}
 			if !strings.Contains(out, string(st.Glyph(sr.Index))+" "+name) {
 				t.Errorf("%s: legend lacks %q\n%s", mode, string(st.Glyph(sr.Index))+" "+name, out)
 			}
@@ -369,5 +372,38 @@ func BenchmarkRenderLine(b *testing.B) {
 				RenderLine(c, 80, 20, st)
 			}
 		})
+	}
+}
+
+// TestChartOverlapsStayVisible draws two identical curves: in every mode
+// both glyphs (rune mode) or both styles (braille) stay on screen, and the
+// legend says that the second overlaps the first.
+func TestChartOverlapsStayVisible(t *testing.T) {
+	c := synthThresholdChart(20)
+	c.Series = c.Series[:2]
+	c.Series[1].X, c.Series[1].Y = c.Series[0].X, c.Series[0].Y
+	for mode, st := range chartTestStyles() {
+		out := RenderLine(c, 100, 30, st)
+		g := chartGrid(out)
+		x0, top, pw, ph := chartPlotRect(t, g, st.ASCII)
+		count := map[rune]int{}
+		for y := top; y < top+ph; y++ {
+			for x := x0; x < x0+pw; x++ {
+				count[g[y][x]]++
+			}
+		}
+		if mode != "braille" {
+			a, b := st.Glyph(c.Series[0].Index), st.Glyph(c.Series[1].Index)
+			if count[a] < 5 || count[b] < 5 {
+				t.Errorf("%s: identical curves show %d cells of %q and %d of %q; want both visible\n%s", mode, count[a], a, count[b], b, out)
+			}
+		}
+		want := string(st.Glyph(c.Series[1].Index)) + " " + quantity.Sanitize(c.Series[1].Name)
+		if st.ASCII {
+			want = string(st.Glyph(c.Series[1].Index)) + " " + quantity.ASCII(c.Series[1].Name)
+		}
+		if !strings.Contains(out, want+" (overlaps "+string(st.Glyph(c.Series[0].Index))+")") {
+			t.Errorf("%s: the legend does not say that %q overlaps the first curve\n%s", mode, want, out)
+		}
 	}
 }

@@ -64,7 +64,7 @@ func (lc *lineRender) drawMarkerPoint(m *chartspec.Marker) {
 // fewest curve cells, never over another label; a Warn label starts
 // with "!" so that the warning survives without colour.
 func (lc *lineRender) labelMarker(m *chartspec.Marker) {
-	text := textRunes(m.Label)
+	text := textRunes(m.Label, lc.st.ASCII)
 	if len(text) == 0 {
 		return
 	}

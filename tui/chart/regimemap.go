@@ -198,7 +198,7 @@ func (rm *mapRender) legendMark() []textSpan {
 	if mk == nil {
 		return nil
 	}
-	label := textRunes(mk.Label)
+	label := textRunes(mk.Label, rm.st.ASCII)
 	if len(label) == 0 {
 		label = []rune("current")
 	}
@@ -247,11 +247,11 @@ func (rm *mapRender) markVisible(mk *chartspec.Marker) bool {
 func (rm *mapRender) draw() {
 	m, st, s, f := rm.m, rm.st, rm.s, rm.f
 	drawAxes(s, f, rm.x0, rm.pw, rm.xt, rm.yt, axesGlyphs(st.ASCII), rm.axisID)
-	ylabel := textRunes(m.Y.Label)
+	ylabel := textRunes(m.Y.Label, rm.st.ASCII)
 	if f.ylabel >= 0 {
 		s.write(0, f.ylabel, clipRunes(ylabel, s.w, st.ASCII), rm.axisID, kindText)
 	}
-	if title := textRunes(m.Title); len(title) > 0 {
+	if title := textRunes(m.Title, rm.st.ASCII); len(title) > 0 {
 		id := s.addStyle(st.Title)
 		if f.title >= 0 {
 			writeCentred(s, 0, s.w, f.title, title, id, st.ASCII)
@@ -260,10 +260,10 @@ func (rm *mapRender) draw() {
 		}
 	}
 	if f.xtitle >= 0 {
-		writeCentred(s, rm.x0, rm.pw, f.xtitle, textRunes(m.X.Label), rm.axisID, st.ASCII)
+		writeCentred(s, rm.x0, rm.pw, f.xtitle, textRunes(m.X.Label, rm.st.ASCII), rm.axisID, st.ASCII)
 	}
 	if f.note >= 0 {
-		s.write(0, f.note, clipRunes(textRunes(m.Note), s.w, st.ASCII), rm.dimID, kindText)
+		s.write(0, f.note, clipRunes(textRunes(m.Note, rm.st.ASCII), s.w, st.ASCII), rm.dimID, kindText)
 	}
 	if f.nleg > 0 {
 		x := writeSpans(s, 0, f.legend, rm.key)

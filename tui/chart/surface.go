@@ -114,10 +114,14 @@ func (s *surface) String() string {
 }
 
 // textRunes returns s made safe for a cell grid: sanitized (s may come
-// from a user's file), with runes wider than one cell replaced by '?' and
-// zero-width runes dropped, so that one rune is one cell.
-func textRunes(s string) []rune {
+// from a user's file), spelt in ASCII when ascii is set (quantity.ASCII:
+// χ → chi, cm⁻³ → cm^-3), with runes wider than one cell replaced by '?'
+// and zero-width runes dropped, so that one rune is one cell.
+func textRunes(s string, ascii bool) []rune {
 	s = quantity.Sanitize(s)
+	if ascii {
+		s = quantity.ASCII(s)
+	}
 	rs := make([]rune, 0, utf8.RuneCountInString(s))
 	for _, r := range s {
 		if r < utf8.RuneSelf {
@@ -145,7 +149,7 @@ func clipRunes(rs []rune, n int, ascii bool) []rune {
 	}
 	ell := '…'
 	if ascii {
-		ell = '.'
+		ell = '~'
 	}
 	out := append([]rune(nil), rs[:n-1]...)
 	return append(out, ell)
