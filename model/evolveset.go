@@ -101,21 +101,21 @@ func (e EvolveTerms) String() string {
 // default" stated on it, so a term is switched off with Disable rather than
 // with a zero coefficient. Constants lists every setting with its status.
 type EvolveSettings struct {
-	AlphaV          float64         // α_v in v_mix = α_v c_s,cl (t_cool c_s,cl/r)^{-1/4}; default 1 (from memory)
-	AreaFactor      float64         // f_A in A = f_A 4π r²; default 1 (from memory)
-	Kappa           float64         // κ in t_destroy = κ t_cc; default 4 (literature 2–10)
-	DragCoefficient float64         // C_D; default 0.5 (from memory, ~0.5–1)
-	AlfvenOverWind  float64         // v_A/v_w of the wind's magnetic field; default 0
-	MachFactor      bool            // multiply v_mix by (|Δv|/c_s,hot)^{1/2}; default off (from memory)
-	V0              float64         // initial velocity v0/v_w; default 0
-	Branch          BranchMode      // default BranchSharp
-	Width           float64         // n of BranchSmooth; default 4 (a modelling choice)
-	Area            AreaModel       // default AreaSphere
-	Disable         EvolveTerms     // terms switched off; default none
-	TEnd            float64         // end time in t_cc,0; default 100
-	RelTol          float64         // relative tolerance; default 1e-8
-	AbsTol          float64         // absolute tolerance on m/m0, v/v_w and x/r0; default 1e-10
-	MaxSteps        int             // budget of attempted steps; default 100000
+	AlphaV          float64     // α_v in v_mix = α_v c_s,cl (t_cool c_s,cl/r)^{-1/4}; default 1 (from memory)
+	AreaFactor      float64     // f_A in A = f_A 4π r²; default 1 (from memory)
+	Kappa           float64     // κ in t_destroy = κ t_cc; default 4 (literature 2–10)
+	DragCoefficient float64     // C_D; default 0.5 (from memory, ~0.5–1)
+	AlfvenOverWind  float64     // v_A/v_w of the wind's magnetic field; default 0
+	MachFactor      bool        // multiply v_mix by (|Δv|/c_s,hot)^{1/2}; default off (from memory)
+	V0              float64     // initial velocity v0/v_w; default 0
+	Branch          BranchMode  // default BranchSharp
+	Width           float64     // n of BranchSmooth; default 4 (a modelling choice)
+	Area            AreaModel   // default AreaSphere
+	Disable         EvolveTerms // terms switched off; default none
+	TEnd            float64     // end time in t_cc,0; default 100
+	RelTol          float64     // relative tolerance; default 1e-8
+	AbsTol          float64     // absolute tolerance on m/m0, v/v_w and x/r0; default 1e-10
+	MaxSteps        int         // budget of attempted steps; default 100000
 }
 
 // Defaults of EvolveSettings.

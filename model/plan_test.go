@@ -228,9 +228,9 @@ func (stepCooling) Lambda(t Temperature) CoolingRate {
 }
 
 func TestPlanWarnings(t *testing.T) {
-	fid := planState(t, 100, 1, 1e3, Parsec)     // ref #7 fiducial, subsonic (M = 1)
-	big := planState(t, 100, 1, 1e3, 100*Parsec) // one cell of r_cl/16 holds n_cl Δx = 1.9e18 cm⁻²
-	grow := planState(t, 100, 1, 1e3, 30*Parsec) // grows on the gronke-oh-2018 branch
+	fid := planState(t, 100, 1, 1e3, Parsec)      // ref #7 fiducial, subsonic (M = 1)
+	big := planState(t, 100, 1, 1e3, 100*Parsec)  // one cell of r_cl/16 holds n_cl Δx = 1.9e18 cm⁻²
+	grow := planState(t, 100, 1, 1e3, 30*Parsec)  // grows on the gronke-oh-2018 branch
 	tiny := planState(t, 100, 1, 1e3, 0.1*Parsec) // below every threshold (the smallest is 0.255 pc, ref #7 with α = 1 on t_shear)
 	q := fiducial()
 	q.DensityProduct = N2

@@ -130,7 +130,9 @@ func (s *State) GrowthTimeWith(k CoolingTimeKind) Time {
 
 // MixCoolingKinds lists the cooling times the growth model can use, the
 // default first.
-func MixCoolingKinds() []CoolingTimeKind { return []CoolingTimeKind{CoolMinMix, CoolCold, CoolMix, CoolHot} }
+func MixCoolingKinds() []CoolingTimeKind {
+	return []CoolingTimeKind{CoolMinMix, CoolCold, CoolMix, CoolHot}
+}
 
 // Limits of the cautions for physically absurd inputs. They are
 // cloudwind's choice (common practice, no source): inputs beyond them are

@@ -160,4 +160,3 @@ func TestPlanCampaign(t *testing.T) {
 		t.Errorf("campaign with --compare: exit %d, %q", code, errs)
 	}
 }
-
