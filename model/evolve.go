@@ -48,6 +48,11 @@ type Trajectory struct {
 	Destroyed bool // stopped at TDestroy
 	Capped    bool // stopped when m reached MassCap m0
 
+	// GrowthNote is "" unless the branch says the cloud grows at r0 but its
+	// mass has not doubled by the end of the run: then it says so and why,
+	// naming the long time (t_grow,0 and the growth model's cooling time).
+	GrowthNote string
+
 	Ratio0   float64        // the criterion's τ_cool/τ_dyn at r0; +Inf without cooling
 	TGrow0   float64        // t_grow,0/t_cc,0 = m0/ṁ_grow(t = 0, S = 1); +Inf without growth
 	Settings EvolveSettings // the settings used, with defaults filled in
@@ -178,10 +183,11 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 	}
 	o := &cloudODE{sqrtChi: math.Sqrt(s.Params.Chi), width: set.Width, ratio0: math.Inf(1), thr: 1,
 		smooth: set.Branch == BranchSmooth, fragment: set.Area == AreaFragmented}
-	tc := s.CoolingTime(set.MixCooling)
+	mixCooling := s.Params.WithDefaults().MixCooling // the one growth model of the state
+	tc := s.CoolingTime(mixCooling)
 	vmix0 := float64(MixingVelocity(set.AlphaV, s.CsCold, tc, s.TSoundCold)) // [TOG21] form; 0 when t_cool = +Inf
 	if !(vmix0 >= 0) || math.IsInf(vmix0, 1) {
-		return nil, fmt.Errorf("evolve: %s = %s s gives v_mix = %s", set.MixCooling.Symbol(), num(float64(tc)), num(vmix0))
+		return nil, fmt.Errorf("evolve: %s = %s s gives v_mix = %s", mixCooling.Symbol(), num(float64(tc)), num(vmix0))
 	}
 	if set.Disable&TermGrowth == 0 {
 		o.g0 = 3 * set.AreaFactor * vmix0 / (o.sqrtChi * float64(s.VWind)) // t_cc,0/t_grow,0, §6.2 (derived)
@@ -267,6 +273,12 @@ func Evolve(s *State, c *Criterion, set EvolveSettings) (Trajectory, error) {
 		tr.push(o, d.t, d.y, d.dy)
 	}
 	tr.Steps, tr.Rejected, tr.Evals = d.steps, d.rejected, d.evals
+	if n := len(tr.M) - 1; err == nil && tr.S[0] > 0.5 && math.IsNaN(tr.TDouble) && !tr.Destroyed {
+		k := s.Params.WithDefaults().MixCooling
+		tc := float64(s.CoolingTime(k)) / float64(s.TCC)
+		tr.GrowthNote = fmt.Sprintf("the criterion says the cloud grows, but m/m0 reaches only %s by t = %s t_cc: t_grow,0 = %s t_cc,0, set by the growth model's cooling time %s = %s t_cc,0, which makes v_mix = %s c_s,cl",
+			num3(tr.M[n]), num3(tr.T[n]), num3(tr.TGrow0), k.Symbol(), num3(tc), num3(float64(MixingVelocity(set.AlphaV, s.CsCold, s.CoolingTime(k), s.TSoundCold)/s.CsCold)))
+	}
 	return tr, err
 }
 

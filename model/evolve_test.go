@@ -355,7 +355,6 @@ func TestEvolveSettingsValidate(t *testing.T) {
 		{"rel_tol", EvolveSettings{RelTol: 1e-20}},
 		{"abs_tol", EvolveSettings{AbsTol: -1e-9}},
 		{"max_steps", EvolveSettings{MaxSteps: -5}},
-		{"mix_cooling", EvolveSettings{MixCooling: 9}},
 		{"branch", EvolveSettings{Branch: 2}},
 		{"area", EvolveSettings{Area: -1}},
 		{"disable", EvolveSettings{Disable: 8}},
@@ -417,8 +416,8 @@ func TestEvolveMaxSteps(t *testing.T) {
 // reference marks FROM MEMORY say so.
 func TestEvolveConstants(t *testing.T) {
 	ks := DefaultEvolveSettings().Constants()
-	if len(ks) != 16 {
-		t.Errorf("Constants() lists %d settings, want 16 (every EvolveSettings field)", len(ks))
+	if len(ks) != 15 {
+		t.Errorf("Constants() lists %d settings, want 15 (every EvolveSettings field)", len(ks))
 	}
 	seen := map[string]bool{}
 	for _, k := range ks {
@@ -437,7 +436,7 @@ func TestEvolveConstants(t *testing.T) {
 			t.Errorf("default of %s = %g, want %g", k.Key, k.Default, w)
 		}
 		switch k.Key {
-		case "alpha_v", "area_factor", "kappa", "drag_coefficient", "mach_factor", "mix_cooling":
+		case "alpha_v", "area_factor", "kappa", "drag_coefficient", "mach_factor":
 			if !strings.Contains(k.Status, "from memory") {
 				t.Errorf("status of %s does not say 'from memory': %q", k.Key, k.Status)
 			}
@@ -482,8 +481,8 @@ func TestEvolveNoSilentNaN(t *testing.T) {
 			s := mustDerive(t, p, cf)
 			for i := range cs {
 				for _, set := range []EvolveSettings{
-					{}, {Branch: BranchSmooth, MachFactor: true, MixCooling: CoolMinMix},
-					{Area: AreaFragmented, V0: 2, AlfvenOverWind: 3, MixCooling: CoolMix, TEnd: 300},
+					{}, {Branch: BranchSmooth, MachFactor: true},
+					{Area: AreaFragmented, V0: 2, AlfvenOverWind: 3, TEnd: 300},
 				} {
 					tr, err := Evolve(&s, &cs[i], set)
 					if err != nil {
@@ -561,5 +560,33 @@ func BenchmarkEvolve(b *testing.B) {
 			b.ReportMetric(float64(tr.Steps), "steps/op")
 			b.ReportMetric(float64(tr.Evals), "evals/op")
 		})
+	}
+}
+
+// TestEvolveGrowthNote: a branch that says "grows" but whose mass has not
+// doubled by the end of the run is reported with the long time named (a
+// rule of Evolve); a doubling run and a destroyed cloud carry no note.
+func TestEvolveGrowthNote(t *testing.T) {
+	c, _ := CriterionByID(BuiltinCriteria(), "gronke-oh-2018")
+	p := fiducial()
+	p.RCloud = 30 * Parsec
+	p.MixCooling = CoolCold
+	cf := PowerLawCooling{L0: 4e-22, T0: 1e5, Slope: -0.7}
+	s := mustDerive(t, p, cf)
+	tr, err := Evolve(&s, c, EvolveSettings{TEnd: 0.1 * float64(GrowthTime(p.RCloud, p.Chi, s.VMix)/s.TCC)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if tr.S[0] != 1 || !strings.Contains(tr.GrowthNote, "t_cool,cold") || !strings.Contains(tr.GrowthNote, "reaches only") {
+		t.Errorf("short run of a growing branch: S0 = %g, note %q", tr.S[0], tr.GrowthNote)
+	}
+	tr, err = Evolve(&s, c, EvolveSettings{TEnd: 1e4})
+	if err != nil || math.IsNaN(tr.TDouble) || tr.GrowthNote != "" {
+		t.Errorf("long run: doubled at %g, note %q, %v", tr.TDouble, tr.GrowthNote, err)
+	}
+	p.RCloud = 0.01 * Parsec
+	s = mustDerive(t, p, cf)
+	if tr, err = Evolve(&s, c, EvolveSettings{}); err != nil || tr.GrowthNote != "" {
+		t.Errorf("destroyed cloud: note %q, %v", tr.GrowthNote, err)
 	}
 }

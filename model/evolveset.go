@@ -101,22 +101,21 @@ func (e EvolveTerms) String() string {
 // default" stated on it, so a term is switched off with Disable rather than
 // with a zero coefficient. Constants lists every setting with its status.
 type EvolveSettings struct {
-	AlphaV          float64         // α_v in v_mix = α_v c_s,cl (t_cool c_s,cl/r)^{-1/4}; default 1 (from memory)
-	AreaFactor      float64         // f_A in A = f_A 4π r²; default 1 (from memory)
-	Kappa           float64         // κ in t_destroy = κ t_cc; default 4 (literature 2–10)
-	DragCoefficient float64         // C_D; default 0.5 (from memory, ~0.5–1)
-	AlfvenOverWind  float64         // v_A/v_w of the wind's magnetic field; default 0
-	MachFactor      bool            // multiply v_mix by (|Δv|/c_s,hot)^{1/2}; default off (from memory)
-	MixCooling      CoolingTimeKind // t_cool in v_mix: CoolCold (default), CoolMinMix, CoolMix or CoolHot
-	V0              float64         // initial velocity v0/v_w; default 0
-	Branch          BranchMode      // default BranchSharp
-	Width           float64         // n of BranchSmooth; default 4 (a modelling choice)
-	Area            AreaModel       // default AreaSphere
-	Disable         EvolveTerms     // terms switched off; default none
-	TEnd            float64         // end time in t_cc,0; default 100
-	RelTol          float64         // relative tolerance; default 1e-8
-	AbsTol          float64         // absolute tolerance on m/m0, v/v_w and x/r0; default 1e-10
-	MaxSteps        int             // budget of attempted steps; default 100000
+	AlphaV          float64     // α_v in v_mix = α_v c_s,cl (t_cool c_s,cl/r)^{-1/4}; default 1 (from memory)
+	AreaFactor      float64     // f_A in A = f_A 4π r²; default 1 (from memory)
+	Kappa           float64     // κ in t_destroy = κ t_cc; default 4 (literature 2–10)
+	DragCoefficient float64     // C_D; default 0.5 (from memory, ~0.5–1)
+	AlfvenOverWind  float64     // v_A/v_w of the wind's magnetic field; default 0
+	MachFactor      bool        // multiply v_mix by (|Δv|/c_s,hot)^{1/2}; default off (from memory)
+	V0              float64     // initial velocity v0/v_w; default 0
+	Branch          BranchMode  // default BranchSharp
+	Width           float64     // n of BranchSmooth; default 4 (a modelling choice)
+	Area            AreaModel   // default AreaSphere
+	Disable         EvolveTerms // terms switched off; default none
+	TEnd            float64     // end time in t_cc,0; default 100
+	RelTol          float64     // relative tolerance; default 1e-8
+	AbsTol          float64     // absolute tolerance on m/m0, v/v_w and x/r0; default 1e-10
+	MaxSteps        int         // budget of attempted steps; default 100000
 }
 
 // Defaults of EvolveSettings.
@@ -149,9 +148,6 @@ func (s EvolveSettings) WithDefaults() EvolveSettings {
 			*f.v = f.d
 		}
 	}
-	if s.MixCooling == CoolNone {
-		s.MixCooling = CoolCold
-	}
 	if s.MaxSteps == 0 {
 		s.MaxSteps = DefaultMaxSteps
 	}
@@ -178,8 +174,6 @@ func (s EvolveSettings) Validate() error {
 		return &FieldError{key, float64(v), fmt.Sprintf("unknown value %d", v), ErrUnknown}
 	}
 	switch {
-	case q.MixCooling < CoolHot || q.MixCooling > CoolCold:
-		return unknown("mix_cooling", int(q.MixCooling))
 	case q.Branch != BranchSharp && q.Branch != BranchSmooth:
 		return unknown("branch", int(q.Branch))
 	case q.Area != AreaSphere && q.Area != AreaFragmented:
@@ -232,20 +226,17 @@ func (s EvolveSettings) Constants() []EvolveConstant {
 			"drag × (1 + v_A²/v_w²): McCourt et al. 2015 (arXiv:1409.6719), confirmed from the abstract"),
 		{"mach_factor", "Mach factor in v_mix", "(Δv/c_s,hot)^1/2", mv, mdv, mt, mdt,
 			"an extra Mach factor in Gronke & Oh 2020's fit: " + fm + ", uncertain"},
-		{"mix_cooling", "cooling time in v_mix", "t_cool,X", float64(q.MixCooling), float64(d.MixCooling),
-			q.MixCooling.Symbol(), d.MixCooling.Symbol(),
-			"cold gas as in Gronke & Oh 2020 (" + fm + "); minmix for CIE tables, where t_cool at a 10⁴ K floor can be very long"},
 		num("v0", "initial velocity over v_w", "v0/v_w", q.V0, d.V0, "initial condition: 0 is a cloud at rest when the wind arrives"),
 		{"branch", "branch switch", "S", float64(q.Branch), float64(d.Branch), q.Branch.String(), d.Branch.String(),
-			"sharp: S = 1 while the criterion holds at the current radius (physics reference §6.5); smooth: a modelling choice, not a published result"},
+			"sharp: S = 1 while the criterion holds at the current radius (cloudwind's reading of a criterion as a switch); smooth: a modelling choice, not a published result"},
 		num("width", "smooth-branch width", "n", q.Width, d.Width,
 			"S = 1/(1 + (ratio/threshold)^n): a modelling choice, not a published result"),
 		{"area", "area model", "A", float64(q.Area), float64(d.Area), q.Area.String(), d.Area.String(),
-			"sphere: A = f_A 4π r² (physics reference §6.2); fragmented: A ∝ m, exponential growth (Gronke, Oh, Ji & Norman 2022, abstract; growth-time prefactor " + fm + ")"},
+			"sphere: A = f_A 4π r² (derived from ṁ = ρ_hot v_mix A); fragmented: A ∝ m, exponential growth (Gronke, Oh, Ji & Norman 2022, abstract; growth-time prefactor " + fm + ")"},
 		{"disable", "terms switched off", "—", float64(q.Disable), float64(d.Disable), q.Disable.String(), d.Disable.String(),
 			"for limits and tests"},
 		num("t_end", "end time in t_cc,0", "t_end", q.TEnd, d.TEnd,
-			"radiative runs last ~20–100+ t_cc ("+fm+", physics reference §7)"),
+			"radiative runs last ~20–100+ t_cc ("+fm+")"),
 		num("rel_tol", "relative tolerance", "rtol", q.RelTol, d.RelTol, "numerical control"),
 		num("abs_tol", "absolute tolerance", "atol", q.AbsTol, d.AbsTol, "numerical control"),
 		num("max_steps", "step budget", "N_max", float64(q.MaxSteps), float64(d.MaxSteps), "numerical control"),

@@ -80,35 +80,34 @@ func ExampleCriterion_Threshold() {
 
 // Plan the wind-tunnel run of the physics reference's check value (§9 row
 // 13): χ = 100, M = 1.5, 16 cells per cloud radius, C = 0.3, 20 t_cc, in a
-// cloud-tracking frame with the default 40 × 20 × 20 r_cl box.
+// cloud-tracking frame with the default 40 × 20 × 20 r_cl box, on a mesh
+// of 16³-cell blocks.
 func ExampleMakePlan() {
 	p := model.Fiducial() // P/k_B = 1e3 K cm⁻³, T_cl = 1e4 K, r_cl = 1 pc
-	p.Mach, p.DensityProduct = 1.5, model.N2
-	s, err := model.Derive(p, model.ConstantCooling{Value: model.CoolingRate(math.Pow(10, -21.4))})
+	p.Mach, p.DensityProduct, p.RCloud = 1.5, model.N2, 10*model.Parsec
+	r, err := model.Evaluate(p, model.ConstantCooling{Value: model.CoolingRate(math.Pow(10, -21.4))}, model.BuiltinCriteria())
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
-	pl, err := model.MakePlan(&s, model.PlanSettings{RunTcc: 20, Tracking: true})
+	pl, err := model.MakePlan(&r, model.PlanSettings{RunTcc: 20, Tracking: true, Block: 16})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
-	fmt.Printf("Δx = %.3g pc, box %.3g × %.3g² r_cl, %.3g cells\n", float64(pl.Dx/model.Parsec), pl.BoxAlongRcl, pl.BoxAcrossRcl, pl.Cells)
-	fmt.Printf("t_end = %.3g t_cc = %.3g Myr (t_cool,hot = %.3g t_cc), %.3g steps\n", pl.RunTcc, float64(pl.RunTime/model.Megayear), pl.TCoolHotTcc, pl.Steps)
-	fmt.Printf("%.3g cell-updates, %.3g core-hours, %.3g GB\n", pl.CellUpdates, pl.CoreHours, pl.MemoryBytes/1e9)
-	for _, w := range pl.Warnings {
-		fmt.Printf("%-7v %s\n", w.Level, w.Code)
+	fmt.Printf("Δx = %.3g pc, grid %d × %d × %d = %.3g cells\n", float64(pl.Dx/model.Parsec), pl.Nx, pl.Ny, pl.Nz, pl.Cells)
+	fmt.Printf("t_end = %.3g t_cc (mass doubles at %.3g t_cc, t_cool,hot = %.3g t_cc), %.3g steps\n", pl.RunTcc, pl.TDoubleTcc, pl.TCoolHotTcc, pl.Steps)
+	fmt.Printf("%.3g core-hours, %.3g GB\n", pl.CoreHours, pl.MemoryBytes/1e9)
+	for _, R := range []float64{8, 32} {
+		g := pl.AtResolution(R)
+		fmt.Printf("R = %g: %.3g cells, %.3g core-hours\n", R, g.Cells, g.CoreHours)
 	}
 	// Output:
-	// Δx = 0.0625 pc, box 40 × 20² r_cl, 6.55e+07 cells
-	// t_end = 20 t_cc = 0.861 Myr (t_cool,hot = 383 t_cc), 1.78e+04 steps
-	// 1.17e+12 cell-updates, 324 core-hours, 16.8 GB
-	// caution too-short-for-growth
-	// caution resolution-growth
-	// info    supersonic-convergence
-	// info    radiative-convergence
-	// info    shattering-unresolved
+	// Δx = 0.625 pc, grid 640 × 320 × 320 = 6.55e+07 cells
+	// t_end = 20 t_cc (mass doubles at 8.51 t_cc, t_cool,hot = 38.3 t_cc), 1.78e+04 steps
+	// 324 core-hours, 16.8 GB
+	// R = 8: 8.19e+06 cells, 20.2 core-hours
+	// R = 32: 5.24e+08 cells, 5.18e+03 core-hours
 }
 
 // Plan the simulations that tell the built-in criteria apart at the
@@ -118,22 +117,27 @@ func ExampleComparePlans() {
 	p := model.Fiducial()
 	p.DensityProduct = model.N2
 	cf := model.ConstantCooling{Value: model.CoolingRate(math.Pow(10, -21.4))}
-	cmp, err := model.ComparePlans(p, cf, model.BuiltinCriteria(), model.PlanSettings{Tracking: true}, nil)
+	r, err := model.Evaluate(p, cf, model.BuiltinCriteria())
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	cmp, err := model.ComparePlans(&r, model.PlanSettings{Tracking: true})
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	for _, c := range cmp {
 		pl := c.Plan
-		fmt.Printf("%v vs %v: r_cl = %.3g pc for %.3g t_cc at %.3g cells/r_cl, %.3g core-hours\n",
-			c.LowerIDs, c.UpperIDs, float64(c.RCloud/model.Parsec), pl.RunTcc, pl.Settings.CellsPerRadius, pl.CoreHours)
+		fmt.Printf("%v vs %v: r_cl = %.3g pc for %.3g t_cc on the branch of %s, %.3g core-hours\n",
+			c.LowerIDs, c.UpperIDs, float64(c.RCloud/model.Parsec), pl.RunTcc, pl.Criterion, pl.CoreHours)
 		fmt.Printf("  survive %v\n  destroy %v\n", c.Survive, c.Destroy)
 	}
 	// Output:
-	// [abruzzo-2023] vs [gronke-oh-2018 farber-gronke-2022]: r_cl = 0.807 pc for 42.2 t_cc at 16 cells/r_cl, 819 core-hours
+	// [abruzzo-2023] vs [gronke-oh-2018 farber-gronke-2022]: r_cl = 0.807 pc for 16 t_cc on the branch of abruzzo-2023, 310 core-hours
 	//   survive [abruzzo-2023]
 	//   destroy [gronke-oh-2018 li-2020 sparre-2020 farber-gronke-2022 adiabatic]
-	// [gronke-oh-2018 farber-gronke-2022] vs [li-2020 sparre-2020]: r_cl = 8.07 pc for 23.7 t_cc at 16 cells/r_cl, 460 core-hours
+	// [gronke-oh-2018 farber-gronke-2022] vs [li-2020 sparre-2020]: r_cl = 8.07 pc for 10 t_cc on the branch of gronke-oh-2018, 194 core-hours
 	//   survive [gronke-oh-2018 abruzzo-2023 farber-gronke-2022]
 	//   destroy [li-2020 sparre-2020 adiabatic]
 }
@@ -172,7 +176,7 @@ func ExampleEvolve() {
 // (here the first of them).
 func ExampleEvolveSettings_Constants() {
 	ks := model.DefaultEvolveSettings().Constants()
-	for _, k := range ks[:8] {
+	for _, k := range ks[:7] {
 		v := fmt.Sprintf("%.3g", k.Value)
 		if k.Text != "" {
 			v = k.Text
@@ -187,7 +191,6 @@ func ExampleEvolveSettings_Constants() {
 	// C_D                0.5
 	// v_A/v_w            0
 	// (Δv/c_s,hot)^1/2   off
-	// t_cool,X           t_cool,cold
 	// v0/v_w             0
 	// value from memory — check the paper; the form v_mix ∝ c_s,cl (t_cool/t_sc,cl)^-1/4 is confirmed (Tan, Oh & Gronke 2021, abstract)
 }

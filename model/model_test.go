@@ -547,3 +547,39 @@ func TestNoFloor(t *testing.T) {
 		t.Errorf("lambda(10 K) with the floor at T_cl = %g, want 0", got)
 	}
 }
+
+// TestGrowthModel: one setting, Params.MixCooling, chooses the cold-side
+// cooling time of v_mix, t_grow and l_cool,cl; its default is minmix
+// (cloudwind's choice, DefaultMixCooling). The formulas are those of
+// MixingVelocity and GrowthTime (derived).
+func TestGrowthModel(t *testing.T) {
+	p := fiducial()
+	if got := p.WithDefaults().MixCooling; got != CoolMinMix {
+		t.Fatalf("default MixCooling = %v, want minmix", got)
+	}
+	cf := PowerLawCooling{L0: 4e-22, T0: 1e5, Slope: -0.7}
+	for _, k := range MixCoolingKinds() {
+		q := p
+		q.MixCooling = k
+		s := mustDerive(t, q, cf)
+		tc := s.CoolingTime(k)
+		wantV := MixingVelocity(1, s.CsCold, tc, s.TSoundCold)
+		if s.VMix != wantV || s.TGrow != GrowthTime(q.RCloud, q.Chi, wantV) || s.LCoolCold != CoolingLength(s.CsCold, tc) {
+			t.Errorf("%v: v_mix %g, t_grow %g, l_cool %g; want them from %s", k, float64(s.VMix), float64(s.TGrow), float64(s.LCoolCold), k.Symbol())
+		}
+		for _, other := range MixCoolingKinds() {
+			q2 := q
+			q2.MixCooling = other
+			s2 := mustDerive(t, q2, cf)
+			if got := s.GrowthTimeWith(other); got != s2.TGrow {
+				t.Errorf("GrowthTimeWith(%v) from a %v state = %g, want %g", other, k, float64(got), float64(s2.TGrow))
+			}
+		}
+	}
+	bad := p
+	bad.MixCooling = 9
+	var fe *FieldError
+	if err := bad.Validate(); !errors.As(err, &fe) || fe.Field != FieldMixCooling {
+		t.Errorf("Validate(MixCooling 9) = %v, want a FieldError on %s", err, FieldMixCooling)
+	}
+}

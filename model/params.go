@@ -77,6 +77,12 @@ type Params struct {
 
 	HeatCapacity   HeatCapacity   // f in t_cool; default Isochoric (3/2)
 	DensityProduct DensityProduct // 𝒩 in t_cool; default NH2
+
+	// MixCooling is the cooling time on the cold side of the mixing layer:
+	// the one growth model of v_mix, t_grow, l_cool,cl and the evolution.
+	// Default CoolMinMix (DefaultMixCooling, cloudwind's choice); CoolCold,
+	// CoolMix and CoolHot are selectable. CoolNone means the default.
+	MixCooling CoolingTimeKind
 }
 
 // Default values of the optional fields and of the fiducial problem.
@@ -102,6 +108,22 @@ func (p Params) Floor() (Temperature, bool) {
 	}
 	return q.TFloor, true
 }
+
+// DefaultMixCooling is the default of Params.MixCooling: the shortest
+// cooling time along the mixing isobar, t_cool,minmix. It is cloudwind's
+// modelling choice, for this reason: with a cooling floor at T_cl, Λ(T_cl)
+// lies on the steep low-temperature edge of any CIE curve (it falls by
+// orders of magnitude between 1.5×10⁴ and 10⁴ K and differs between tables
+// by factors of several), so t_cool(T_cl) says more about the table's last
+// rows than about the layer. The mixing-layer picture of Tan, Oh & Gronke
+// 2021 (arXiv:2008.12302, abstract: v_in ≈ c_s,cold (t_cool/t_sc,cold)^{-1/4})
+// evaluates the cooling where gas actually cools on its way down, near the
+// minimum of t_cool along the isobar; which temperature they used is from
+// memory. Gronke & Oh 2020 used the cold gas's cooling time (from memory).
+const DefaultMixCooling = CoolMinMix
+
+// MixCoolingReason is DefaultMixCooling's reason in one line, for people.
+const MixCoolingReason = "cloudwind's modelling choice: t_cool(T_cl) sits on the steep edge of the cooling table at the floor, so the growth model uses the shortest cooling time of the mixing layer, where gas cools on its way down (Tan, Oh & Gronke 2021, arXiv:2008.12302, form confirmed; the temperature from memory)"
 
 // Fiducial returns the fiducial problem of the Gronke & Oh (2018) scaling:
 // χ = 100, M = 1, P/k_B = 10³ K cm⁻³, T_cl = 10⁴ K, r_cl = 1 pc, Z = 1,
@@ -133,6 +155,9 @@ func (p Params) WithDefaults() Params {
 	if p.TFloor == 0 {
 		p.TFloor = p.TCloud
 	}
+	if p.MixCooling == CoolNone {
+		p.MixCooling = DefaultMixCooling
+	}
 	return p
 }
 
@@ -152,6 +177,7 @@ const (
 	FieldTFloor           = "t_floor"
 	FieldHeatCapacity     = "heat_capacity"
 	FieldDensityProduct   = "density_product"
+	FieldMixCooling       = "mix_cooling"
 )
 
 // Sentinel errors wrapped by FieldError.
@@ -227,6 +253,8 @@ var fieldRanges = map[string]fieldRange{
 	FieldUpstream:       {0, 1e4, false, 1, " r_cl"},
 	FieldTail:           {0, 1e6, false, 1, " r_cl"},
 	FieldRunTcc:         {0, 1e7, true, 1, " t_cc"},
+	FieldRunCap:         {1, 1e7, false, 1, " t_cc"},
+	FieldBlock:          {1, 4096, false, 1, ""},
 	FieldCFL:            {0, 1, true, 1, ""},
 	FieldThroughput:     {0, 1e15, true, 1, ""},
 	FieldBytesPerCell:   {0, 1e6, true, 1, ""},
@@ -316,6 +344,9 @@ func (p Params) Validate() error {
 	}
 	if q.HeatCapacity != Isochoric && q.HeatCapacity != Isobaric {
 		return &FieldError{FieldHeatCapacity, float64(q.HeatCapacity), fmt.Sprintf("unknown heat-capacity convention %d", q.HeatCapacity), ErrUnknown}
+	}
+	if q.MixCooling < CoolHot || q.MixCooling > CoolCold {
+		return &FieldError{FieldMixCooling, float64(q.MixCooling), fmt.Sprintf("unknown cooling time %d for the growth model (want hot, mix, minmix or cold)", q.MixCooling), ErrUnknown}
 	}
 	if q.DensityProduct != NH2 && q.DensityProduct != N2 {
 		return &FieldError{FieldDensityProduct, float64(q.DensityProduct), fmt.Sprintf("unknown density-product convention %d", q.DensityProduct), ErrUnknown}

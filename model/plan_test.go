@@ -9,22 +9,26 @@ import (
 )
 
 // Check values of the simulation planner. Sources: the physics reference's
-// check-value table (§9, "ref #N") and §7; "derived" where a value follows
-// from the definitions in plan.go by exact arithmetic (tolerance 1e-12).
+// check-value table (§9, "ref #N"); "derived" where a value follows from the
+// definitions in plan.go by exact arithmetic (tolerance 1e-12); the
+// trajectory values are checked against an independent call of Evolve.
 
 const planExact = 1e-12 // derived identities, exact up to rounding
 
 // planState derives the state of the fiducial problem with χ, M, P/k_B and
 // r_cl changed, using the [GO18] normalisation Λ = 10^-21.4 with 𝒩 = n².
-func planState(t *testing.T, chi, mach float64, p Pressure, rCl Length) *State {
+func planState(t *testing.T, chi, mach float64, p Pressure, rCl Length) *Result {
 	t.Helper()
 	q := fiducial()
 	q.Chi, q.Mach, q.Pressure, q.RCloud, q.DensityProduct = chi, mach, p, rCl, N2
-	s := mustDerive(t, q, lambdaGO18)
-	return &s
+	r, err := Evaluate(q, lambdaGO18, BuiltinCriteria())
+	if err != nil {
+		t.Fatal(err)
+	}
+	return &r
 }
 
-func mustPlan(t *testing.T, s *State, set PlanSettings) Plan {
+func mustPlan(t *testing.T, s *Result, set PlanSettings) Plan {
 	t.Helper()
 	pl, err := MakePlan(s, set)
 	if err != nil {
@@ -71,7 +75,10 @@ func TestPlanCostIdentities(t *testing.T) {
 	set := PlanSettings{CellsPerRadius: 20, BoxAlongRcl: 60, BoxAcrossRcl: 12, RunTcc: 7, CFL: 0.4,
 		CellUpdatesPerCoreSecond: 3e5, BytesPerCell: 100}
 	pl := mustPlan(t, s, set)
-	near(t, "Cells", pl.Cells, 60*12*12*20*20*20, planExact)
+	near(t, "Cells", pl.Cells, 60*12*12*20*20*20, planExact) // L R whole on every axis: Nx = 1200, Ny = Nz = 240
+	if pl.Nx != 1200 || pl.Ny != 240 || pl.Nz != 240 {
+		t.Errorf("grid %d × %d × %d, want 1200 × 240 × 240", pl.Nx, pl.Ny, pl.Nz)
+	}
 	near(t, "MemoryBytes", pl.MemoryBytes, pl.Cells*100, planExact)
 	near(t, "CellUpdates", pl.CellUpdates, pl.Cells*pl.Steps, planExact)
 	near(t, "CoreHours", pl.CoreHours, pl.CellUpdates/3e5/3600, planExact)
@@ -86,13 +93,28 @@ func TestPlanCostIdentities(t *testing.T) {
 	if pl.BoxAlongRcl != 60 || pl.BoxAcrossRcl != 12 {
 		t.Errorf("box = %g × %g r_cl, want the user's 60 × 12", pl.BoxAlongRcl, pl.BoxAcrossRcl)
 	}
+	// Blocks (derived): cells per axis round up to a multiple of the block.
+	set.Block = 64
+	pb := mustPlan(t, s, set)
+	if pb.Nx != 1216 || pb.Ny != 256 || pb.Nz != 256 {
+		t.Errorf("grid with block 64: %d × %d × %d, want 1216 × 256 × 256 (⌈1200/64⌉ 64, ⌈240/64⌉ 64)", pb.Nx, pb.Ny, pb.Nz)
+	}
+	near(t, "Cells with blocks", pb.Cells, 1216*256*256, planExact)
+	near(t, "CoreHours with blocks", pb.CoreHours, pb.Cells*pb.Steps/3e5/3600, planExact)
+	// A resolution ladder (derived): the same run and box at another R.
+	for _, R := range []float64{8, 16, 32, 64} {
+		g := pl.AtResolution(R)
+		near(t, "ladder Cells", g.Cells, 60*R*12*R*12*R, planExact)
+		near(t, "ladder Steps", g.Steps, math.Ceil(float64(pl.RunTime)/(0.4*3*float64(Parsec)/R/float64(s.VWind+s.CsHot))), planExact)
+		near(t, "ladder memory", g.MemoryBytes, g.Cells*100, planExact)
+	}
 }
 
 func TestPlanDefaults(t *testing.T) {
 	// The defaults documented in plan.go (assumptions, stated there).
 	d := DefaultPlanSettings()
 	want := PlanSettings{CellsPerRadius: 16, BoxAcrossRcl: 20, UpstreamRcl: 5, TailRcl: 35, CFL: 0.3,
-		CellUpdatesPerCoreSecond: 1e6, BytesPerCell: 256}
+		CellUpdatesPerCoreSecond: 1e6, BytesPerCell: 256, RunCapTcc: 200, Block: 1}
 	if d != want {
 		t.Errorf("DefaultPlanSettings() = %+v, want %+v", d, want)
 	}
@@ -107,45 +129,41 @@ func TestPlanDefaults(t *testing.T) {
 	pl = mustPlan(t, s, PlanSettings{DisplacementKnown: true, DisplacementRcl: 77})
 	near(t, "lab-frame BoxAlongRcl", pl.BoxAlongRcl, 5+77+35, planExact)
 	pl = mustPlan(t, s, PlanSettings{})
-	near(t, "fallback BoxAlongRcl", pl.BoxAlongRcl, 40+ramDragDisplacement(100, pl.RunTcc, 1), planExact)
+	near(t, "integrated BoxAlongRcl", pl.BoxAlongRcl, 40+pl.DisplacementRcl, planExact)
 }
 
 func TestPlanRunLengthRules(t *testing.T) {
-	// Automatic run length (physics reference §5.9 and §7, derived rules):
-	// destruction 10 t_cc; growth max(3 t_grow, 10 t_cc); entrainment
-	// max(3 t_grow, t_drag = χ^{1/2} t_cc, 10 t_cc).
+	// Automatic run length (cloudwind's rules, plan.go): 1.5 × the time the
+	// question needs on the followed branch's trajectory, at least 10 t_cc
+	// (the upper end of the 3–10 t_cc of non-radiative destruction,
+	// Nakamura et al. 2006), at most the cap. The event times are checked
+	// against an independent Evolve of the same branch.
 	cases := []struct {
-		name       string
-		s          *State
-		q          Question
-		dominating string // the term the scenario is built to make largest
+		name string
+		s    *Result
+		q    Question
 	}{
-		{"destruction", planState(t, 100, 1.5, 1e3, Parsec), QuestionDestruction, "10 t_cc"},
-		{"growth, slow growth", planState(t, 100, 1.5, 1e3, Parsec), QuestionGrowth, "3 t_grow"},
-		{"growth, fast growth", planState(t, 10, 0.5, 1e3, 100*Parsec), QuestionGrowth, "10 t_cc"},
-		{"entrainment, drag", planState(t, 400, 0.5, 1e6, 100*Parsec), QuestionEntrainment, "t_drag"},
-		{"entrainment, growth", planState(t, 100, 1.5, 1e3, Parsec), QuestionEntrainment, "3 t_grow"},
+		{"growth", planState(t, 100, 1.5, 1e3, 30*Parsec), QuestionGrowth},
+		{"growth, fast", planState(t, 10, 0.5, 1e3, 100*Parsec), QuestionGrowth},
+		{"entrainment", planState(t, 100, 1.5, 1e3, 30*Parsec), QuestionEntrainment},
+		{"destruction of a small cloud", planState(t, 100, 1.5, 1e3, 0.1*Parsec), QuestionDestruction},
 	}
+	c0, _ := CriterionByID(BuiltinCriteria(), "gronke-oh-2018")
 	for _, c := range cases {
-		terms := map[string]float64{"10 t_cc": 10} // the candidates of the question's rule
-		if c.q != QuestionDestruction {
-			terms["3 t_grow"] = 3 * float64(c.s.TGrow/c.s.TCC)
+		tr, err := Evolve(&c.s.State, c0, EvolveSettings{TEnd: DefaultRunCapTcc})
+		if err != nil {
+			t.Fatal(err)
 		}
-		if c.q == QuestionEntrainment {
-			terms["t_drag"] = float64(c.s.TDrag / c.s.TCC)
-		}
-		want := terms[c.dominating]
-		for k, v := range terms {
-			if k != c.dominating && v >= want {
-				t.Fatalf("%s: scenario does not make %s dominate (%v)", c.name, c.dominating, terms)
-			}
+		event := map[Question]float64{QuestionGrowth: tr.TDouble, QuestionEntrainment: tr.TEntrain, QuestionDestruction: tr.TDestroy}[c.q]
+		if math.IsNaN(event) {
+			t.Fatalf("%s: the scenario shows no event on the gronke-oh-2018 branch", c.name)
 		}
 		pl := mustPlan(t, c.s, PlanSettings{Question: c.q, Tracking: true})
-		near(t, "RunTcc("+c.name+")", pl.RunTcc, want, planExact)
-		if !strings.Contains(pl.RunRule, c.dominating) {
-			t.Errorf("RunRule(%s) = %q, want it to name %q", c.name, pl.RunRule, c.dominating)
+		near(t, "RunTcc("+c.name+")", pl.RunTcc, math.Min(math.Max(1.5*event, 10), DefaultRunCapTcc), 1e-9)
+		if !pl.Testable || pl.Verdict != "" || pl.Criterion != "gronke-oh-2018" {
+			t.Errorf("%s: testable %v, verdict %q, criterion %q; want a testable plan on gronke-oh-2018", c.name, pl.Testable, pl.Verdict, pl.Criterion)
 		}
-		if _, ok := hasWarning(pl, WarnTooShortForGrowth); ok && c.q != QuestionDestruction {
+		if _, ok := hasWarning(pl, WarnTooShortForGrowth); ok {
 			t.Errorf("%s: automatic run length warns that it is too short for growth", c.name)
 		}
 	}
@@ -153,6 +171,48 @@ func TestPlanRunLengthRules(t *testing.T) {
 	pl := mustPlan(t, cases[0].s, PlanSettings{RunTcc: 42, Question: QuestionGrowth})
 	if pl.RunTcc != 42 || pl.RunRule != "set by the user" {
 		t.Errorf("RunTcc = %g (%q), want 42 set by the user", pl.RunTcc, pl.RunRule)
+	}
+}
+
+func TestPlanNotTestable(t *testing.T) {
+	// At r_cl = 1 pc every criterion predicts destruction (the smallest
+	// threshold, abruzzo-2023's, is 0.255 pc at χ = 100 with Λ = 10^-21.4 and
+	// 𝒩 = n², ref #7, so at 0.1 pc all are above r_cl).
+	small := planState(t, 100, 1, 1e3, 0.1*Parsec)
+	pl := mustPlan(t, small, PlanSettings{})
+	if pl.Testable || !pl.AllDestroyed || !strings.HasPrefix(pl.Verdict, "every criterion predicts destruction") {
+		t.Errorf("0.1 pc: testable %v, all destroyed %v, verdict %q", pl.Testable, pl.AllDestroyed, pl.Verdict)
+	}
+	if w, ok := hasWarning(pl, WarnAllDestroyed); !ok || w.Level != LevelSerious || pl.Warnings[0].Code != WarnAllDestroyed {
+		t.Errorf("0.1 pc: the all-destroyed warning is not first: %+v", pl.Warnings)
+	}
+	if !strings.Contains(pl.Suggestion, "destruction time") || !strings.Contains(pl.Suggestion, "growth becomes testable") {
+		t.Errorf("0.1 pc: suggestion %q, want a destruction run and a testable radius", pl.Suggestion)
+	}
+	// The proposed radius is where the trajectory first doubles its mass
+	// within the cap (checked with Evolve either side, 0.2% apart).
+	c, _ := CriterionByID(BuiltinCriteria(), "gronke-oh-2018")
+	doubles := func(r Length) bool {
+		s := planState(t, 100, 1, 1e3, r)
+		tr, err := Evolve(&s.State, c, EvolveSettings{TEnd: DefaultRunCapTcc})
+		return err == nil && !math.IsNaN(tr.TDouble)
+	}
+	if pl.RTestable <= 0 || !doubles(pl.RTestable) || doubles(pl.RTestable/1.002) {
+		t.Errorf("RTestable = %g pc: doubles there %v, just below %v", float64(pl.RTestable/Parsec), doubles(pl.RTestable), doubles(pl.RTestable/1.002))
+	}
+	// Past the cap: a growing cloud whose mass doubles after a short cap.
+	big := planState(t, 100, 1.5, 1e3, 30*Parsec)
+	pl = mustPlan(t, big, PlanSettings{RunCapTcc: 5})
+	if pl.Testable || pl.RunTcc != 5 || !strings.Contains(pl.Verdict, "within 5 t_cc") {
+		t.Errorf("cap 5: testable %v, run %g, verdict %q", pl.Testable, pl.RunTcc, pl.Verdict)
+	}
+	// A growth plan on a criterion without a cooling time cannot grow.
+	pl = mustPlan(t, big, PlanSettings{Criterion: "adiabatic"})
+	if pl.Testable || !strings.Contains(pl.Verdict, "destroyed") {
+		t.Errorf("adiabatic branch: testable %v, verdict %q", pl.Testable, pl.Verdict)
+	}
+	if _, err := MakePlan(big, PlanSettings{Criterion: "nope"}); err == nil {
+		t.Error("MakePlan(criterion nope) = nil error")
 	}
 }
 
@@ -168,16 +228,26 @@ func (stepCooling) Lambda(t Temperature) CoolingRate {
 }
 
 func TestPlanWarnings(t *testing.T) {
-	fid := planState(t, 100, 1, 1e3, Parsec)     // ref #7 fiducial, subsonic (M = 1)
-	big := planState(t, 100, 1, 1e3, 100*Parsec) // one cell of r_cl/16 holds n_cl Δx = 1.9e18 cm⁻²
+	fid := planState(t, 100, 1, 1e3, Parsec)      // ref #7 fiducial, subsonic (M = 1)
+	big := planState(t, 100, 1, 1e3, 100*Parsec)  // one cell of r_cl/16 holds n_cl Δx = 1.9e18 cm⁻²
+	grow := planState(t, 100, 1, 1e3, 30*Parsec)  // grows on the gronke-oh-2018 branch
+	tiny := planState(t, 100, 1, 1e3, 0.1*Parsec) // below every threshold (the smallest is 0.255 pc, ref #7 with α = 1 on t_shear)
 	q := fiducial()
 	q.DensityProduct = N2
-	ns := mustDerive(t, q, stepCooling{})
-	noGrowth := &ns
-	tg, tch, td := fid.TGrow/fid.TCC, fid.TCoolHot/fid.TCC, fid.TDrag/fid.TCC
+	nr, err := Evaluate(q, stepCooling{}, BuiltinCriteria())
+	if err != nil {
+		t.Fatal(err)
+	}
+	noGrowth := &nr
+	c0, _ := CriterionByID(BuiltinCriteria(), "gronke-oh-2018")
+	gtr, err := Evolve(&grow.State, c0, EvolveSettings{TEnd: 200})
+	if err != nil || math.IsNaN(gtr.TDouble) {
+		t.Fatalf("the growing scenario does not double: %v", err)
+	}
+	tch, td := fid.TCoolHot/fid.TCC, fid.TDrag/fid.TCC
 	cases := []struct {
 		name string
-		s    *State
+		s    *Result
 		set  PlanSettings
 		code WarningCode
 		want bool
@@ -186,19 +256,21 @@ func TestPlanWarnings(t *testing.T) {
 		// Kanjilal, Dutta & Sharma 2021 (confirmed): t_end ≥ t_cool,hot.
 		{"background cools", fid, PlanSettings{RunTcc: 2 * float64(tch)}, WarnBackgroundCooling, true, LevelSerious},
 		{"background holds", fid, PlanSettings{RunTcc: 0.5 * float64(tch)}, WarnBackgroundCooling, false, 0},
-		// Physics reference §7 (derived): t_end < 3 t_grow.
-		{"short for growth", fid, PlanSettings{RunTcc: 1.5 * float64(tg)}, WarnTooShortForGrowth, true, LevelCaution},
-		{"long enough for growth", fid, PlanSettings{RunTcc: 6 * float64(tg)}, WarnTooShortForGrowth, false, 0},
-		{"short, destruction question", fid, PlanSettings{RunTcc: 1.5 * float64(tg), Question: QuestionDestruction}, WarnTooShortForGrowth, true, LevelInfo},
-		{"no growth time", noGrowth, PlanSettings{}, WarnTooShortForGrowth, true, LevelCaution},
-		// Physics reference §7: t_end < t_drag when entrainment is the question.
+		// The trajectory: a user's run shorter than the mass-doubling time.
+		{"short for growth", grow, PlanSettings{RunTcc: 0.5 * gtr.TDouble}, WarnNotTestable, true, LevelSerious},
+		{"long enough for growth", grow, PlanSettings{RunTcc: 2 * gtr.TDouble}, WarnNotTestable, false, 0},
+		{"no growth: Λ(T_cl) = 0", noGrowth, PlanSettings{}, WarnAllDestroyed, true, LevelSerious},
+		{"all destroyed", tiny, PlanSettings{}, WarnAllDestroyed, true, LevelSerious},
+		{"all destroyed, destruction question", tiny, PlanSettings{Question: QuestionDestruction}, WarnAllDestroyed, false, 0},
+		{"branch destroyed, others grow", fid, PlanSettings{}, WarnNotTestable, true, LevelSerious},
+		// t_drag ~ χ^1/2 t_cc (from memory): entrainment not shown before the drag time.
 		{"short for entrainment", fid, PlanSettings{RunTcc: 0.5 * float64(td), Question: QuestionEntrainment}, WarnShorterThanDrag, true, LevelCaution},
 		{"long enough for entrainment", fid, PlanSettings{RunTcc: 2 * float64(td), Question: QuestionEntrainment}, WarnShorterThanDrag, false, 0},
 		{"short, growth question", fid, PlanSettings{RunTcc: 0.5 * float64(td)}, WarnShorterThanDrag, false, 0},
 		// Gronke & Oh 2018 (secondary): R < 8.
 		{"R = 4", fid, PlanSettings{CellsPerRadius: 4}, WarnBelowMinimumResolution, true, LevelSerious},
 		{"R = 8", fid, PlanSettings{CellsPerRadius: 8}, WarnBelowMinimumResolution, false, 0},
-		// Physics reference §7 levels: 8 ≤ R < 32 for growth studies.
+		// cloudwind's suggested levels: 8 ≤ R < 32 for growth studies.
 		{"R = 16 growth", fid, PlanSettings{CellsPerRadius: 16}, WarnGrowthResolution, true, LevelCaution},
 		{"R = 32 growth", fid, PlanSettings{CellsPerRadius: 32}, WarnGrowthResolution, false, 0},
 		{"R = 16 destruction", fid, PlanSettings{CellsPerRadius: 16, Question: QuestionDestruction}, WarnGrowthResolution, false, 0},
@@ -219,11 +291,10 @@ func TestPlanWarnings(t *testing.T) {
 		// Gronke & Oh 2020 (confirmed as speculation): n_cl Δx > 1e18 cm⁻².
 		{"cell column high", big, PlanSettings{}, WarnCellColumn, true, LevelInfo},
 		{"cell column low", fid, PlanSettings{}, WarnCellColumn, false, 0},
-		// Physics reference §6.4/§7: unknown displacement in the lab frame.
-		{"displacement unknown", fid, PlanSettings{}, WarnDisplacementUnknown, true, LevelCaution},
+		// The displacement comes from the trajectory: no fallback warning.
+		{"displacement integrated", fid, PlanSettings{}, WarnDisplacementUnknown, false, 0},
 		{"displacement known", fid, PlanSettings{DisplacementKnown: true, DisplacementRcl: 3}, WarnDisplacementUnknown, false, 0},
-		{"tracking frame", fid, PlanSettings{Tracking: true}, WarnDisplacementUnknown, false, 0},
-		// Physics reference §7 and Kanjilal et al.: a user box shorter than needed.
+		// Kanjilal et al. (confirmed): a user box shorter than needed.
 		{"box too short", fid, PlanSettings{BoxAlongRcl: 10, Tracking: true}, WarnBoxTooShort, true, LevelCaution},
 		{"box long enough", fid, PlanSettings{BoxAlongRcl: 1000, Tracking: true}, WarnBoxTooShort, false, 0},
 	}
@@ -307,6 +378,10 @@ func TestPlanSettingsValidate(t *testing.T) {
 		{PlanSettings{Question: -1}, FieldQuestion, ErrUnknown},
 		{PlanSettings{DisplacementKnown: true, DisplacementRcl: -3}, FieldDisplacement, ErrOutOfBounds},
 		{PlanSettings{DisplacementKnown: true, DisplacementRcl: nan}, FieldDisplacement, ErrOutOfBounds},
+		{PlanSettings{RunCapTcc: 0.5}, FieldRunCap, ErrOutOfBounds},
+		{PlanSettings{Block: -16}, FieldBlock, ErrOutOfBounds},
+		{PlanSettings{Block: 1 << 20}, FieldBlock, ErrOutOfBounds},
+		{PlanSettings{Evolve: EvolveSettings{Kappa: -1}}, "kappa", ErrOutOfBounds},
 	}
 	s := planState(t, 100, 1, 1e3, Parsec)
 	for _, c := range cases {
@@ -318,7 +393,7 @@ func TestPlanSettingsValidate(t *testing.T) {
 		if _, err := MakePlan(s, c.set); !errors.As(err, &fe) || fe.Field != c.field {
 			t.Errorf("MakePlan(fiducial, %+v) error = %v, want the FieldError on %q", c.set, err, c.field)
 		}
-		if _, err := ComparePlans(fiducial(), lambdaGO18, BuiltinCriteria(), c.set, nil); !errors.As(err, &fe) || fe.Field != c.field {
+		if _, err := ComparePlans(s, c.set); !errors.As(err, &fe) || fe.Field != c.field {
 			t.Errorf("ComparePlans(…, %+v) error = %v, want the FieldError on %q", c.set, err, c.field)
 		}
 	}
@@ -326,7 +401,7 @@ func TestPlanSettingsValidate(t *testing.T) {
 	if err := (PlanSettings{DisplacementRcl: -3}).Validate(); err != nil {
 		t.Errorf("Validate(unknown displacement -3) = %v, want nil", err)
 	}
-	for _, s := range []*State{nil, {}} {
+	for _, s := range []*Result{nil, {}} {
 		if _, err := MakePlan(s, PlanSettings{}); err == nil {
 			t.Errorf("MakePlan(%v, {}) = nil error, want an error for an underived state", s)
 		}
@@ -343,7 +418,7 @@ func TestPlanAssumptions(t *testing.T) {
 		}
 		seen[a.Field] = a
 	}
-	for _, f := range []string{FieldCellsPerRadius, FieldBoxAlong, FieldBoxAcross, FieldUpstream, FieldTail, FieldRunTcc, FieldCFL, FieldThroughput, FieldBytesPerCell, FieldDisplacement, "cost"} {
+	for _, f := range []string{FieldCellsPerRadius, FieldBlock, FieldBoxAlong, FieldBoxAcross, FieldUpstream, FieldTail, FieldRunTcc, FieldRunCap, FieldCFL, FieldThroughput, FieldBytesPerCell, "cost"} {
 		if _, ok := seen[f]; !ok {
 			t.Errorf("Assumptions() lacks %q", f)
 		}
@@ -395,17 +470,13 @@ func TestComparePlans(t *testing.T) {
 	} {
 		p := fiducial()
 		p.Chi, p.DensityProduct = c.chi, N2
-		var calls []Length // radii the displacement callback was asked about
-		disp := func(q Params, runTcc float64) (float64, bool) {
-			calls = append(calls, q.RCloud)
-			return 7, runTcc > 0
+		res, err := Evaluate(p, lambdaGO18, cs)
+		if err != nil {
+			t.Fatal(err)
 		}
-		cmp, err := ComparePlans(p, lambdaGO18, cs, PlanSettings{}, disp)
+		cmp, err := ComparePlans(&res, PlanSettings{Tracking: true})
 		if err != nil {
 			t.Fatalf("ComparePlans(χ = %g): %v", c.chi, err)
-		}
-		if len(calls) != len(cmp) {
-			t.Errorf("χ = %g: displacement callback called %d times for %d plans", c.chi, len(calls), len(cmp))
 		}
 		if c.groups != nil && len(cmp) != len(c.groups)-1 {
 			t.Fatalf("ComparePlans(χ = %g) gave %d pairs, want %d", c.chi, len(cmp), len(c.groups)-1)
@@ -450,8 +521,8 @@ func TestComparePlans(t *testing.T) {
 					t.Errorf("χ = %g pair %d: %s is above r_cl but not in Destroy", c.chi, k, id)
 				}
 			}
-			if pc.Plan.RCloud != pc.RCloud || pc.Plan.DisplacementRcl != 7 || calls[k] != pc.RCloud {
-				t.Errorf("χ = %g pair %d: plan at r = %g with displacement %g, want r = %g and the callback's 7", c.chi, k, float64(pc.Plan.RCloud), pc.Plan.DisplacementRcl, float64(pc.RCloud))
+			if pc.Plan.RCloud != pc.RCloud {
+				t.Errorf("χ = %g pair %d: plan at r = %g, want r = %g", c.chi, k, float64(pc.Plan.RCloud), float64(pc.RCloud))
 			}
 		}
 		if c.chi == 400 {
@@ -471,13 +542,15 @@ func TestComparePlans(t *testing.T) {
 		}
 	}
 	// Fewer than two distinct thresholds: nothing to separate.
-	if cmp, err := ComparePlans(fiducial(), lambdaGO18, cs[:1], PlanSettings{}, nil); err != nil || len(cmp) != 0 {
+	one, err := Evaluate(fiducial(), lambdaGO18, cs[:1])
+	if err != nil {
+		t.Fatal(err)
+	}
+	if cmp, err := ComparePlans(&one, PlanSettings{}); err != nil || len(cmp) != 0 {
 		t.Errorf("ComparePlans(one criterion) = %d pairs, %v; want none", len(cmp), err)
 	}
-	bad := fiducial()
-	bad.Chi = -1
-	if _, err := ComparePlans(bad, lambdaGO18, cs, PlanSettings{}, nil); err == nil {
-		t.Error("ComparePlans(χ = -1) = nil error, want the Params error")
+	if _, err := ComparePlans(nil, PlanSettings{}); err == nil {
+		t.Error("ComparePlans(nil) = nil error")
 	}
 }
 
@@ -487,9 +560,12 @@ func TestPlanNoPanics(t *testing.T) {
 		{Chi: 1.0001, Mach: 1e-3, Pressure: MinPressure, TCloud: 10, RCloud: MinRCloud},
 		{Chi: 1e6, Mach: MaxMach, Pressure: MaxPressure, TCloud: 1e4, RCloud: MaxRCloud},
 	} {
-		s := mustDerive(t, p, lambdaGO18)
+		r, err := Evaluate(p, lambdaGO18, BuiltinCriteria())
+		if err != nil {
+			t.Fatal(err)
+		}
 		for _, q := range []Question{QuestionGrowth, QuestionEntrainment, QuestionDestruction} {
-			pl := mustPlan(t, &s, PlanSettings{Question: q, CellsPerRadius: 1e4})
+			pl := mustPlan(t, &r, PlanSettings{Question: q, CellsPerRadius: 1e4})
 			for name, v := range map[string]float64{"Steps": pl.Steps, "Cells": pl.Cells, "CoreHours": pl.CoreHours, "RunTcc": pl.RunTcc, "BoxAlongRcl": pl.BoxAlongRcl} {
 				if math.IsNaN(v) || v <= 0 {
 					t.Errorf("MakePlan(%+v, %v).%s = %g, want > 0", p, q, name, v)
@@ -502,7 +578,9 @@ func TestPlanNoPanics(t *testing.T) {
 // BenchmarkMakePlan plans one simulation from a derived state (401-node
 // tabulated cooling function, default settings).
 func BenchmarkMakePlan(b *testing.B) {
-	s, err := Derive(Fiducial(), newStubTable())
+	p := Fiducial()
+	p.RCloud = 30 * Parsec // a cloud that grows: the plan integrates its trajectory to the doubling
+	s, err := Evaluate(p, newStubTable(), BuiltinCriteria())
 	if err != nil {
 		b.Fatal(err)
 	}
@@ -517,10 +595,13 @@ func BenchmarkMakePlan(b *testing.B) {
 // BenchmarkComparePlans plans every separating simulation of the built-in
 // criteria at the fiducial problem with the same table.
 func BenchmarkComparePlans(b *testing.B) {
-	tab, cs, p := newStubTable(), BuiltinCriteria(), Fiducial()
+	r, err := Evaluate(Fiducial(), newStubTable(), BuiltinCriteria())
+	if err != nil {
+		b.Fatal(err)
+	}
 	b.ReportAllocs()
 	for b.Loop() {
-		if _, err := ComparePlans(p, tab, cs, PlanSettings{}, nil); err != nil {
+		if _, err := ComparePlans(&r, PlanSettings{}); err != nil {
 			b.Fatal(err)
 		}
 	}

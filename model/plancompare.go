@@ -1,6 +1,7 @@
 package model
 
 import (
+	"fmt"
 	"math"
 	"sort"
 )
@@ -20,28 +21,30 @@ type PlanComparison struct {
 	Plan           Plan     // the plan at RCloud
 }
 
-// ComparePlans plans the simulations that tell the criteria cs apart for
-// the problem p with cooling function cf. It sorts the distinct finite
-// threshold radii; criteria whose radii agree to 1e-9 relative form one
-// group, and criteria without a threshold (the adiabatic baseline, or no
-// cooling) only ever appear in Destroy. For each adjacent pair of groups it
-// plans a run at the geometric mean of the two radii, where the groups
-// disagree; pairs closer than a factor 4 get a WarnCloseThresholds caution.
-// Pairs whose mean lies outside the accepted radius range are left out.
-//
-// The displacement of each plan comes from disp; when disp is nil or
-// reports it unknown, the flagged ram-drag estimate is used.
-// set.DisplacementRcl and set.DisplacementKnown are ignored, since the
-// displacement depends on r_cl. It returns the errors of Evaluate and of
-// set.Validate.
-func ComparePlans(p Params, cf CoolingFunction, cs []Criterion, set PlanSettings, disp DisplacementFunc) ([]PlanComparison, error) {
+// ComparePlans plans the simulations that tell the criteria of r apart. It
+// sorts the distinct finite threshold radii; criteria whose radii agree to
+// 1e-9 relative form one group, and criteria without a threshold (the
+// adiabatic baseline, or no cooling) only ever appear in Destroy. For each
+// adjacent pair of groups it plans a run at the geometric mean of the two
+// radii, where the groups disagree; pairs closer than a factor 4 get a
+// WarnCloseThresholds caution. Pairs whose mean lies outside the accepted
+// radius range are left out. The trajectory of each plan follows the branch
+// of set.Criterion or, when that is "", of the first criterion of the lower
+// group, which predicts growth there: the run must last long enough to see
+// the growth it predicts, or its absence. set.DisplacementRcl and
+// set.DisplacementKnown are ignored, since the displacement depends on
+// r_cl. It returns the errors of MakePlan.
+func ComparePlans(r *Result, set PlanSettings) ([]PlanComparison, error) {
 	if err := set.Validate(); err != nil {
 		return nil, err
 	}
-	res, err := Evaluate(p, cf, cs)
-	if err != nil {
-		return nil, err
+	if r == nil || len(r.Outcomes) != len(r.Criteria) {
+		return nil, fmt.Errorf("compare plans: the problem is not evaluated")
 	}
+	res := *r
+	res.Outcomes = append([]Outcome(nil), r.Outcomes...)
+	res.Cautions = append([]Caution(nil), r.Cautions...)
+	cs := res.Criteria
 	set.DisplacementRcl, set.DisplacementKnown = 0, false
 	var idx []int
 	for i, o := range res.Outcomes {
@@ -56,12 +59,12 @@ func ComparePlans(p Params, cf CoolingFunction, cs []Criterion, set PlanSettings
 	}
 	var groups []group
 	for _, i := range idx {
-		r := float64(res.Outcomes[i].RCrit)
-		if n := len(groups); n > 0 && r-groups[n-1].r <= 1e-9*groups[n-1].r {
+		rc := float64(res.Outcomes[i].RCrit)
+		if n := len(groups); n > 0 && rc-groups[n-1].r <= 1e-9*groups[n-1].r {
 			groups[n-1].ids = append(groups[n-1].ids, cs[i].ID)
 			continue
 		}
-		groups = append(groups, group{r, []string{cs[i].ID}})
+		groups = append(groups, group{rc, []string{cs[i].ID}})
 	}
 	var out []PlanComparison
 	for k := 0; k+1 < len(groups); k++ {
@@ -78,11 +81,16 @@ func ComparePlans(p Params, cf CoolingFunction, cs []Criterion, set PlanSettings
 				c.Destroy = append(c.Destroy, cs[i].ID)
 			}
 		}
-		if c.Plan, err = makePlan(&res.State, set, disp); err != nil {
+		var err error
+		ps := set
+		if ps.Criterion == "" {
+			ps.Criterion = lo.ids[0]
+		}
+		if c.Plan, err = MakePlan(&res, ps); err != nil {
 			return nil, err
 		}
 		if f := hi.r / lo.r; f < closeThresholds {
-			c.Plan.warn(WarnCloseThresholds, LevelCaution, "Gronke, Oh, Ji & Norman 2022, arXiv:2107.13012 (confirmed: stochastic near threshold); physics reference §4.3",
+			c.Plan.warn(WarnCloseThresholds, LevelCaution, "Gronke, Oh, Ji & Norman 2022, arXiv:2107.13012 (confirmed: stochastic near threshold)",
 				"the thresholds differ by only a factor %.3g, so the run sits within a factor %.3g of both, where outcomes are stochastic and conventions alone shift published radii by factors 2–10", f, math.Sqrt(f))
 			c.Plan.sortWarnings()
 		}
@@ -91,28 +99,20 @@ func ComparePlans(p Params, cf CoolingFunction, cs []Criterion, set PlanSettings
 	return out, nil
 }
 
-// MakePlanWith is MakePlan with the cloud's displacement x(t_end)/r_cl
-// from disp (for example EvolveDisplacement), which the automatic box
-// length along the wind needs when the frame does not track the cloud.
-func MakePlanWith(s *State, set PlanSettings, disp DisplacementFunc) (Plan, error) {
-	return makePlan(s, set, disp)
-}
-
-// EvolveDisplacement returns a DisplacementFunc that integrates the cloud's
-// trajectory (Evolve) with cooling function cf under criterion c's branch
-// and settings set, and reports x/r_cl where the run ends (or where the
-// cloud is destroyed).
-func EvolveDisplacement(cf CoolingFunction, c *Criterion, set EvolveSettings) DisplacementFunc {
-	return func(p Params, runTcc float64) (float64, bool) {
-		s, err := Derive(p, cf)
-		if err != nil || !(runTcc > 0) {
-			return 0, false
+// TellsApart reports whether the criteria of r disagree: some with a
+// cooling time predict survival and some destruction, so that a run at r
+// would separate them.
+func TellsApart(r *Result) bool {
+	grow, die := false, false
+	for i, o := range r.Outcomes {
+		if r.Criteria[i].Cool == CoolNone {
+			continue
 		}
-		set.TEnd = runTcc
-		tr, err := Evolve(&s, c, set)
-		if err != nil || len(tr.X) == 0 {
-			return 0, false
+		if o.Verdict == Survives {
+			grow = true
+		} else {
+			die = true
 		}
-		return tr.X[len(tr.X)-1], true
 	}
+	return grow && die
 }

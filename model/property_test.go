@@ -165,7 +165,7 @@ func TestPropertiesEvolveAndPlan(t *testing.T) {
 				t.Fatalf("Evolve(%+v, %s): sample %d t=%g m=%g v=%g x=%g", p, c.ID, k, tr.T[k], tr.M[k], tr.V[k], tr.X[k])
 			}
 		}
-		pl, err := model.MakePlan(&r.State, model.PlanSettings{})
+		pl, err := model.MakePlan(&r, model.PlanSettings{})
 		if err != nil {
 			t.Fatalf("MakePlan(%+v) = %v", p, err)
 		}

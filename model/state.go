@@ -36,11 +36,11 @@ type State struct {
 
 	MassCold   Mass          // (4π/3) r_cl³ ρ_cl, CloudMass
 	ColumnCold ColumnDensity // n_cl r_cl, CloudColumn
-	LCoolCold  Length        // c_s,cl t_cool,cl, CoolingLength
+	LCoolCold  Length        // c_s,cl t_cool,X with X = Params.MixCooling, CoolingLength
 	LShatter   Length        // min over T ∈ [T_cl, T_hot] of c_s t_cool at fixed P [McC18]
 	TShatter   Temperature   // where that minimum lies
-	VMix       Velocity      // MixingVelocity with α_v = 1
-	TGrow      Time          // GrowthTime
+	VMix       Velocity      // MixingVelocity with α_v = 1 and t_cool,X, X = Params.MixCooling
+	TGrow      Time          // GrowthTime with VMix
 	Cautions   []Caution     // inputs outside the cooling function's range, physically absurd inputs, and similar
 
 	nThermal int // Cautions[:nThermal] do not depend on the Mach number or the radius
@@ -93,9 +93,9 @@ func (s *State) derive(p Params, cf CoolingFunction) error {
 	s.TCoolHot = CoolingTime(f, s.NHot, s.THot, s.densityProduct(s.NHot, s.NHHot), s.LambdaHot)
 	s.TCoolMix = CoolingTime(f, s.NMix, s.TMix, s.densityProduct(s.NMix, s.NHMix), s.LambdaMix)
 	s.TCoolCold = CoolingTime(f, s.NCold, q.TCloud, s.densityProduct(s.NCold, s.NHCold), s.LambdaCold)
-	s.LCoolCold = CoolingLength(s.CsCold, s.TCoolCold)
 
 	s.minimaAlongIsobar(cf, f)
+	s.LCoolCold = CoolingLength(s.CsCold, s.CoolingTime(q.MixCooling))
 	s.rangeCautions(cf)
 	if q.TCloud > MaxColdCloud {
 		s.Cautions = append(s.Cautions, Caution{FieldTCloud, fmt.Sprintf("T_cl = %s K is not cold gas: the criteria compare a cloud near 10⁴ K with a hotter wind (cloudwind's limit for this caution: %s K)", num3(float64(q.TCloud)), num3(MaxColdCloud))})
@@ -116,9 +116,22 @@ func (s *State) deriveFlow() {
 	s.TDrag = DragTime(q.RCloud, q.Chi, s.VWind)
 	s.MassCold = CloudMass(q.RCloud, s.RhoCold)
 	s.ColumnCold = CloudColumn(s.NCold, q.RCloud)
-	s.VMix = MixingVelocity(1, s.CsCold, s.TCoolCold, s.TSoundCold)
+	s.VMix = MixingVelocity(1, s.CsCold, s.CoolingTime(q.MixCooling), s.TSoundCold)
 	s.TGrow = GrowthTime(q.RCloud, q.Chi, s.VMix)
 	s.flowCautions()
+}
+
+// GrowthTimeWith returns t_grow of s (α_v = 1, A = 4π r², as State.TGrow)
+// with the cold-side cooling time of kind k instead of Params.MixCooling:
+// the sensitivity of the growth model to that one choice.
+func (s *State) GrowthTimeWith(k CoolingTimeKind) Time {
+	return GrowthTime(s.Params.RCloud, s.Params.Chi, MixingVelocity(1, s.CsCold, s.CoolingTime(k), s.TSoundCold))
+}
+
+// MixCoolingKinds lists the cooling times the growth model can use, the
+// default first.
+func MixCoolingKinds() []CoolingTimeKind {
+	return []CoolingTimeKind{CoolMinMix, CoolCold, CoolMix, CoolHot}
 }
 
 // Limits of the cautions for physically absurd inputs. They are

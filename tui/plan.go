@@ -15,30 +15,19 @@ import (
 // branch, and the comparison of plans across the criteria's threshold
 // radii. It runs in a command (computeChart), like the charts.
 func planLines(r chartspec.Request) []string {
-	s, err := model.Derive(r.Params, r.Cooling)
+	res, err := model.Evaluate(r.Params, r.Cooling, r.Criteria)
 	if err != nil {
 		return []string{err.Error()}
 	}
-	first := -1
-	for i := range r.Criteria {
-		if r.Criteria[i].Cool != model.CoolNone {
-			first = i
-			break
-		}
-	}
-	if first < 0 {
-		return []string{"no radiative criterion to plan for"}
-	}
-	disp := model.EvolveDisplacement(r.Cooling, &r.Criteria[first], model.EvolveSettings{})
 	set := model.PlanSettings{}
-	pl, err := model.MakePlanWith(&s, set, disp)
+	pl, err := model.MakePlan(&res, set)
 	if err != nil {
 		return []string{err.Error()}
 	}
 	lines := []string{"Plan for a growth study at r_cl = " + quantity.Format(model.DimLength, float64(r.Params.RCloud)) +
 		" (defaults; cloudwind plan sets every assumption)", ""}
 	lines = append(lines, strings.Split(strings.TrimRight(report.PlanText(&pl), "\n"), "\n")...)
-	cmp, err := model.ComparePlans(r.Params, r.Cooling, r.Criteria, set, disp)
+	cmp, err := model.ComparePlans(&res, set)
 	if err == nil && len(cmp) > 0 {
 		lines = append(lines, "", "To tell the criteria apart:")
 		for i := range cmp {

@@ -75,7 +75,7 @@ func TestBadInputCatalogue(t *testing.T) {
 		{[]string{"eval", "--format", "xml"}, "", 2, "--format"},
 		{[]string{"plan", "--question", "why"}, "", 2, "--question"},
 		{[]string{"evolve", "--branch", "soft"}, "", 2, "--branch"},
-		{[]string{"evolve", "--mix-cooling", "none"}, "", 2, "--mix-cooling: want cold, minmix, mix or hot"},
+		{[]string{"evolve", "--mix-cooling", "none"}, "", 2, "--mix-cooling: want minmix, cold, mix or hot"},
 		{[]string{"evolve", "--criterion", "nope"}, "", 2, "nope"},
 		// Flags and commands.
 		{[]string{"eval", "--chii", "3"}, "", 2, "unknown flag --chii (did you mean --chi?)"},

@@ -119,6 +119,16 @@ func writeEvalText(w io.Writer, sc *evaluated) error {
 		dt.Row(qt.Symbol, quantity.Format(qt.Dim, qt.Value(&r.State)), qt.Formula, qt.Source)
 	}
 	b.WriteString(dt.String())
+	// The growth model and its sensitivity to its one choice.
+	var alt []string
+	for _, k := range model.MixCoolingKinds() {
+		alt = append(alt, fmt.Sprintf("%s %s t_cc", k, quantity.FormatSig(float64(r.GrowthTimeWith(k)/r.TCC), 3)))
+	}
+	fmt.Fprintf(&b, "\nGrowth model: v_mix, t_grow and l_cool,cl use %s (--mix-cooling %s)", q.MixCooling.Symbol(), q.MixCooling)
+	if q.MixCooling == model.DefaultMixCooling {
+		fmt.Fprintf(&b, ", %s", model.MixCoolingReason)
+	}
+	fmt.Fprintf(&b, ".\n  t_grow under each choice: %s\n", strings.Join(alt, ", "))
 
 	fmt.Fprintf(&b, "\nCriteria: survives and grows when τ_cool/τ_dyn < α (χ/100)^β\n")
 	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)

@@ -36,7 +36,7 @@ const evolveExamples = `  cloudwind evolve --chi 100 --radius 30pc
 type evolveFlags struct {
 	until, alphaV, areaFactor, kappa, cd, va, v0, width, rtol float64
 	machFactor                                                bool
-	mixCooling, branch, area, criterion                       string
+	branch, area, criterion                                   string
 	samples                                                   int
 }
 
@@ -53,7 +53,6 @@ func (f *evolveFlags) register(fs *flagSet) {
 	fs.float(&f.cd, "drag-coefficient", d.DragCoefficient, "C_D of the ram-pressure drag (from memory, ~0.5–1)")
 	fs.float(&f.va, "va-over-vw", 0, "v_A/v_w of a magnetised wind: drag × (1 + v_A²/v_w²)")
 	fs.fs.BoolVar(&f.machFactor, "mach-factor", false, "multiply v_mix by (|Δv|/c_s,hot)^1/2 (from memory, uncertain)")
-	fs.fs.StringVar(&f.mixCooling, "mix-cooling", "cold", "cooling time in v_mix: cold, minmix, mix or hot")
 	fs.float(&f.v0, "v0", 0, "initial cloud velocity in v_w")
 	fs.float(&f.rtol, "rtol", d.RelTol, "relative tolerance of the integrator")
 	fs.int(&f.samples, "samples", 201, 2, 100000, "output times, evenly spaced from 0 to --until (2–100000)")
@@ -83,9 +82,6 @@ func (f *evolveFlags) settings() (model.EvolveSettings, error) {
 	}
 	if s.Area, err = model.ParseAreaModel(f.area); err != nil {
 		return s, usagef("--area: %v", err)
-	}
-	if s.MixCooling, err = model.ParseCoolingTimeKind(f.mixCooling); err != nil || s.MixCooling == model.CoolNone {
-		return s, usagef("--mix-cooling: want cold, minmix, mix or hot (got %q)", sanitizeArg(f.mixCooling))
 	}
 	if err := s.Validate(); err != nil {
 		var fe *model.FieldError
@@ -279,7 +275,7 @@ func (o *evolveOutput) meta() []report.Meta {
 			report.KV("radius_pc", float64(q.RCloud/model.Parsec)), report.KV("metallicity_zsun", q.Metallicity)}),
 		report.KV("t_cc0_myr", float64(o.res.TCC/model.Megayear)),
 		report.KV("cooling", o.cooling),
-		report.KV("settings", []report.Meta{report.KV("branch", o.set.Branch.String()), report.KV("area", o.set.Area.String()), report.KV("mix_cooling", o.set.MixCooling.String()),
+		report.KV("settings", []report.Meta{report.KV("branch", o.set.Branch.String()), report.KV("area", o.set.Area.String()), report.KV("mix_cooling", q.MixCooling.String()),
 			report.KV("t_end_tcc", o.set.TEnd), report.KV("rel_tol", o.set.RelTol)}),
 		report.KV("constants", consts),
 		report.KV("summary", summ),
@@ -309,6 +305,7 @@ func (o *evolveOutput) writeJSON(w io.Writer) error {
 		item["t_grow0_tcc"] = finite(r.tr.TGrow0)
 		item["ratio0"] = finite(r.tr.Ratio0)
 		item["steps"] = r.tr.Steps
+		item["growth_note"] = r.tr.GrowthNote
 		item["samples"] = samples
 		runs = append(runs, item)
 	}
@@ -321,7 +318,7 @@ func (o *evolveOutput) writeText(w io.Writer) error {
 	q := o.res.Params
 	fmt.Fprintf(&b, "Cloud evolution: χ = %s, M = %s, r_cl = %s, t_cc,0 = %s; cooling: %s\n", quantity.FormatSig(q.Chi, 3), quantity.FormatSig(q.Mach, 3),
 		quantity.Format(model.DimLength, float64(q.RCloud)), quantity.Format(model.DimTime, float64(o.res.TCC)), o.cooling)
-	fmt.Fprintf(&b, "branch %s, area %s, v_mix from t_cool,%s, until %s t_cc,0\n\n", o.set.Branch, o.set.Area, o.set.MixCooling, quantity.FormatSig(o.set.TEnd, 3))
+	fmt.Fprintf(&b, "branch %s, area %s, growth model: v_mix from %s (--mix-cooling), until %s t_cc,0\n\n", o.set.Branch, o.set.Area, q.MixCooling.Symbol(), quantity.FormatSig(o.set.TEnd, 3))
 	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "  criterion\tt_grow,0/t_cc\tentrained\tdoubled\tdestroyed\tend: m/m0\tv/v_w\tx/r_cl")
 	when := func(t float64) string {
@@ -341,6 +338,11 @@ func (o *evolveOutput) writeText(w io.Writer) error {
 			when(r.tr.TDestroy), quantity.FormatSig(r.tr.M[n], 3), quantity.FormatSig(r.tr.V[n], 3), quantity.FormatSig(r.tr.X[n], 3))
 	}
 	tw.Flush()
+	for i := range o.runs {
+		if r := &o.runs[i]; r.err == nil && r.tr.GrowthNote != "" {
+			fmt.Fprintf(&b, "  ! %s: %s\n", r.c.ID, r.tr.GrowthNote)
+		}
+	}
 	fmt.Fprintf(&b, "\nConstants (every one settable; the status says how sure it is)\n")
 	ct := report.Table{Indent: "  ", Wrap: []bool{false, false, true}}
 	for _, c := range o.set.Constants() {

@@ -201,7 +201,7 @@ func (f *flagSet) set(name string) bool {
 type scenarioFlags struct {
 	chi, mach, pressure, tCloud, radius, metallicity string
 	gamma, mu, muCloud, muHot, hydrogen, tFloor      string
-	mixture, heatCapacity, densityProduct            string
+	mixture, heatCapacity, densityProduct, mixCool   string
 	cooling, criteria                                string
 	table                                            tableSettings
 
@@ -252,6 +252,7 @@ func (s *scenarioFlags) register(f *flagSet) {
 	f.fs.StringVar(&s.mixture, "mixture", model.Asplund2009.Name, "solar mixture for n_H: "+strings.Join(mix, ", "))
 	f.fs.StringVar(&s.heatCapacity, "heat-capacity", "isochoric", "f in t_cool = f n k T/(𝒩 Λ): isochoric (3/2) or isobaric (5/2)")
 	f.fs.StringVar(&s.densityProduct, "density-product", "nh2", "𝒩 in t_cool: nh2 (n_H², physical) or n2 (n², total particles)")
+	f.fs.StringVar(&s.mixCool, "mix-cooling", model.DefaultMixCooling.String(), "the growth model: the cold side's cooling time in v_mix, t_grow, l_cool,cl and the evolution:\nminmix (the shortest along the mixing isobar; cloudwind's choice, because t_cool at the\nfloor T_cl sits on the steep edge of the cooling table), cold (at T_cl), mix or hot")
 	registerCoolingFlags(f, &s.cooling, &s.table, "cooling", "table")
 	f.fs.StringVar(&s.criteria, "criteria", "", "TOML file that corrects or adds criteria ('-' for stdin)")
 	f.fs.StringVar(&s.scenario, "scenario", "", "start from this scenario file (TOML, as the explorer saves it; see README);\nthe other flags given override its values")
@@ -304,7 +305,7 @@ func (s *scenarioFlags) load(e *env) error {
 // flagForField maps a model.Field… name to the flag that sets it.
 func flagForField(field string) string {
 	switch field {
-	case model.FieldHeatCapacity, model.FieldDensityProduct:
+	case model.FieldHeatCapacity, model.FieldDensityProduct, model.FieldMixCooling:
 		return "--" + strings.ReplaceAll(field, "_", "-")
 	}
 	for _, sf := range numericScenarioFlags() {
@@ -389,6 +390,13 @@ func (s *scenarioFlags) parse() (model.Params, error) {
 		default:
 			return p, usagef("--heat-capacity: want isochoric or isobaric (got %q)", sanitizeArg(s.heatCapacity))
 		}
+	}
+	if apply("mix-cooling") {
+		k, err := model.ParseCoolingTimeKind(s.mixCool)
+		if err != nil || k == model.CoolNone {
+			return p, usagef("--mix-cooling: want minmix, cold, mix or hot (got %q)", sanitizeArg(s.mixCool))
+		}
+		p.MixCooling = k
 	}
 	if apply("density-product") {
 		switch s.densityProduct {

@@ -85,7 +85,7 @@ func FuzzScenarioFlag(f *testing.F) {
 		for _, o := range flags {
 			*o.ptr(&s) = o.def
 		}
-		s.mixture, s.heatCapacity, s.densityProduct = model.Asplund2009.Name, "isochoric", "nh2"
+		s.mixture, s.heatCapacity, s.densityProduct, s.mixCool = model.Asplund2009.Name, "isochoric", "nh2", "minmix"
 		*sf.ptr(&s) = v
 		p, err := s.parse()
 		if err != nil {

@@ -204,7 +204,7 @@ func sweepMeta(opt *sweepOptions) []report.Meta {
 		report.KV("fixed_inputs", []report.Meta{report.KV("chi", q.Chi), report.KV("mach", q.Mach), report.KV("pressure_kcm3", float64(q.Pressure)), report.KV("t_cloud_k", float64(q.TCloud)),
 			report.KV("radius_pc", float64(q.RCloud/model.Parsec)), report.KV("metallicity_zsun", q.Metallicity)}),
 		report.KV("conventions", []report.Meta{report.KV("heat_capacity", q.HeatCapacity.String()), report.KV("heat_capacity_f", q.HeatCapacity.Factor()),
-			report.KV("density_product", q.DensityProduct.String()), report.KV("gamma", q.Gamma), report.KV("mu_cloud", q.MuCold), report.KV("mu_hot", q.MuHot),
+			report.KV("density_product", q.DensityProduct.String()), report.KV("mix_cooling", q.MixCooling.String()), report.KV("gamma", q.Gamma), report.KV("mu_cloud", q.MuCold), report.KV("mu_hot", q.MuHot),
 			report.KV("hydrogen_fraction", q.HydrogenFraction), report.KV("mixture", q.Mixture.Name), report.KV("t_floor_k", tFloorMeta(opt.base)),
 			report.KV("mach_reference", "hot-gas adiabatic sound speed"), report.KV("lambda_normalisation", "per n_H^2")}),
 		report.KV("cooling", cool),

@@ -53,6 +53,7 @@ func StateDocument(r *model.Result, src *cooling.Source, cf model.CoolingFunctio
 			"heat_capacity":     q.HeatCapacity.String(),
 			"heat_capacity_f":   q.HeatCapacity.Factor(),
 			"density_product":   q.DensityProduct.String(),
+			"mix_cooling":       q.MixCooling.String(),
 		},
 		"cooling": CoolingDocument(src, cf),
 	}
@@ -61,6 +62,16 @@ func StateDocument(r *model.Result, src *cooling.Source, cf model.CoolingFunctio
 		derived[quantity.JSONKey(qt.Key, qt.Dim)] = JSONNumber(quantity.Convert(qt.Dim, qt.Value(&r.State)))
 	}
 	doc["derived"] = derived
+	// The growth model and its sensitivity: t_grow under each choice of the
+	// cold side's cooling time, in t_cc.
+	byKind := map[string]any{}
+	for _, k := range model.MixCoolingKinds() {
+		byKind[k.String()] = JSONNumber(float64(r.GrowthTimeWith(k) / r.TCC))
+	}
+	doc["growth_model"] = map[string]any{
+		"mix_cooling": q.MixCooling.String(), "default": model.DefaultMixCooling.String(), "reason": model.MixCoolingReason,
+		"t_grow_tcc_by_mix_cooling": byKind,
+	}
 	crit := make([]map[string]any, len(r.Criteria))
 	for i := range r.Criteria {
 		c, o := &r.Criteria[i], r.Outcomes[i]

@@ -1,6 +1,7 @@
 package report
 
 import (
+	"bytes"
 	"encoding/json"
 	"io"
 	"math"
@@ -243,11 +244,13 @@ func KV(key string, value any) Meta { return Meta{Key: key, Value: value} }
 // document shown raw on a terminal cannot act on it. Every JSON document
 // cloudwind writes goes through it.
 func WriteJSON(w io.Writer, v any) error {
-	b, err := json.MarshalIndent(v, "", "  ")
-	if err != nil {
+	var buf bytes.Buffer
+	enc := json.NewEncoder(&buf)
+	enc.SetEscapeHTML(false) // "<" stays "<": the document is not embedded in HTML
+	enc.SetIndent("", "  ")
+	if err := enc.Encode(v); err != nil {
 		return err
 	}
-	b = append(safetext.EscapeJSON(b), '\n')
-	_, err = w.Write(b)
+	_, err := w.Write(safetext.EscapeJSON(buf.Bytes()))
 	return err
 }

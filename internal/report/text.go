@@ -152,7 +152,8 @@ func (t *Table) String() string {
 // at spaces, continuing with a hanging indent under the line's second
 // column (after its first run of two or more spaces), or four spaces in
 // from the line's own indent when there is no such column or it lies
-// beyond 40 runes. Lines that fit are kept as they are.
+// beyond 40 runes. The part of the line before that column is kept as it
+// is; lines that fit are kept whole.
 func FitLines(text string, width int) string {
 	if width == 0 {
 		width = TextWidth
@@ -165,18 +166,17 @@ func FitLines(text string, width int) string {
 			continue
 		}
 		lead := len(l) - len(strings.TrimLeft(l, " "))
-		indent := lead + 4
+		head, body, indent := l[:lead], l[lead:], lead+4
 		if i := strings.Index(l[lead:], "  "); i >= 0 {
 			j := lead + i
 			for j < len(l) && l[j] == ' ' {
 				j++
 			}
 			if col := runeLen(l[:j]); col <= 40 {
-				indent = col
+				head, body, indent = l[:j], l[j:], col
 			}
 		}
-		head := l[:lead]
-		out = append(out, Wrap(l[lead:], width, head, strings.Repeat(" ", indent))...)
+		out = append(out, Wrap(body, width, head, strings.Repeat(" ", indent))...)
 	}
 	return strings.Join(out, "\n")
 }

@@ -129,6 +129,7 @@
 //	t_floor = 1e4             # K; left out = the cloud temperature
 //	heat_capacity = "isochoric"  # or "isobaric"
 //	density_product = "nh2"      # or "n2"
+//	mix_cooling = "minmix"       # the growth model's cooling time: minmix (default), cold, mix or hot
 //
 //	[cooling]                 # optional; left out = the program's default
 //	spec = "builtin"          # a name, const:LAMBDA, powerlaw:L0,T0,SLOPE or a table path
@@ -143,7 +144,7 @@
 //   - numbers must be finite; integers and floats are both accepted;
 //   - a convention number may not be 0 (which the model reads as "use the
 //     default"): leave the key out for the default;
-//   - mixture, heat_capacity and density_product take the names above;
+//   - mixture, heat_capacity, density_product and mix_cooling take the names above;
 //   - strings may not hold control characters (raw or escaped), line
 //     separators or bidirectional overrides (U+2028–U+202E,
 //     U+2066–U+2069), so no file can disguise what the explorer shows;

@@ -57,7 +57,7 @@ func inputKeys() []string {
 // model.Field… names.
 func conventionKeys() []string {
 	return []string{model.FieldGamma, model.FieldMu, model.FieldMuCold, model.FieldMuHot, "mixture",
-		model.FieldHydrogenFraction, model.FieldTFloor, model.FieldHeatCapacity, model.FieldDensityProduct}
+		model.FieldHydrogenFraction, model.FieldTFloor, model.FieldHeatCapacity, model.FieldDensityProduct, model.FieldMixCooling}
 }
 
 // Parse reads a scenario file; name is the file name used in
@@ -244,6 +244,10 @@ func setConventionKey(p *model.Params, key string, v Value) error {
 	case model.FieldDensityProduct:
 		d, err := choiceValue(key, v, []model.DensityProduct{model.NH2, model.N2})
 		p.DensityProduct = d
+		return err
+	case model.FieldMixCooling:
+		k, err := choiceValue(key, v, model.MixCoolingKinds())
+		p.MixCooling = k
 		return err
 	}
 	if !slices.Contains(conventionKeys(), key) {
@@ -438,6 +442,9 @@ func Write(w io.Writer, s Scenario) error {
 	}
 	if p.DensityProduct != model.NH2 {
 		conv = append(conv, model.FieldDensityProduct+" = "+strconv.Quote(p.DensityProduct.String()))
+	}
+	if p.MixCooling != model.CoolNone {
+		conv = append(conv, model.FieldMixCooling+" = "+strconv.Quote(p.MixCooling.String()))
 	}
 	if len(conv) > 0 {
 		b.WriteString("\n[conventions]\n" + strings.Join(conv, "\n") + "\n")

@@ -56,7 +56,7 @@ func TestParseScenarioDocExample(t *testing.T) {
 		Name: "Starburst outflow, inner kpc", Description: "free text",
 		Params: model.Params{Chi: 300, Mach: 1.5, Pressure: 1e5, TCloud: 1e4, RCloud: 10 * model.Parsec, Metallicity: 1,
 			Gamma: 1.6666666666666667, Mu: 0.6, MuCold: 0.6, MuHot: 0.6, Mixture: model.Asplund2009,
-			HydrogenFraction: 0.7381, TFloor: 1e4, HeatCapacity: model.Isochoric, DensityProduct: model.NH2},
+			HydrogenFraction: 0.7381, TFloor: 1e4, HeatCapacity: model.Isochoric, DensityProduct: model.NH2, MixCooling: model.CoolMinMix},
 		Cooling: "builtin", Table: []string{"norm: nH2", "columns: T=1 lambda=2"},
 	}
 	if !reflect.DeepEqual(s, want) {
