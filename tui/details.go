@@ -125,6 +125,15 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 		wrap("formula:", q.Formula)
 		wrap("source:", q.Source)
 		wrap("convention:", conv)
+		switch q.Key {
+		case "t_grow", "v_mix", "t_grow_per_t_cc", "l_cool_cold":
+			// The sensitivity of the growth model to its one choice.
+			var alt []string
+			for _, k := range model.MixCoolingKinds() {
+				alt = append(alt, k.String()+" "+quantity.FormatSig(float64(d.res.GrowthTimeWith(k)/d.res.TCC), 3)+" t_cc")
+			}
+			wrap("growth model:", "uses "+d.res.Params.MixCooling.Symbol()+" (input \"growth\"); t_grow under each choice: "+strings.Join(alt, ", "))
+		}
 		if note := tableStatus(d.cf, q.Key, &d.res.State); note != "" {
 			wrap("caution:", "this temperature lies "+note+" of the cooling function")
 		}

@@ -143,6 +143,19 @@ func inputs() []input {
 			getEnum: func(p *model.Params) int { return int(p.DensityProduct) },
 			setEnum: func(p *model.Params, i int) { p.DensityProduct = model.DensityProduct(i) },
 			about:   "density product in t_cool: n_H² (physical for Λ per n_H²) or n² (simplified form)"},
+		{label: "growth", field: model.FieldMixCooling, advanced: true,
+			choices: []choice{{"t_cool,minmix", []string{"minmix"}}, {"t_cool,cold", []string{"cold"}}, {"t_cool,mix", []string{"mix"}}, {"t_cool,hot", []string{"hot"}}},
+			getEnum: func(p *model.Params) int {
+				k := p.WithDefaults().MixCooling
+				for i, m := range model.MixCoolingKinds() {
+					if m == k {
+						return i
+					}
+				}
+				return 0
+			},
+			setEnum: func(p *model.Params, i int) { p.MixCooling = model.MixCoolingKinds()[i] },
+			about:   "the growth model: the cold side's cooling time in v_mix, t_grow, l_cool,cl and the evolution; minmix by default (" + model.MixCoolingReason + ")"},
 		{label: "cooling", field: fieldCooling, advanced: true,
 			about: "cooling function: step through " + coolingNames() + ", or type one, const:Λ, powerlaw:L0,T0,S or a table path"},
 	}
