@@ -14,7 +14,8 @@ import (
 //	Λ(T, Z) = Λ_H+He(T) + (Z/Z☉) (n_e/n_H)(T) Λ_met(T)   per n_H²,
 //
 // (cooling reference §0 and §6), where Λ_H+He is the primordial solver
-// (PrimordialCIE: Cen 1992/KWH96 rates with Voronov 1997 for H) at
+// (PrimordialCIE: Cen 1992/KWH96 rates with Voronov 1997 for H and the He+
+// excitation term without Cen's factor, HepBlack81) at
 // y = n_He/n_H = 0.0851, Λ_met is the fit to the metal part of the CHIANTI
 // curves of Ryden & Pogge (2021), per n_e n_H, and n_e/n_H comes from the
 // same H+He solver. Metal electrons are neglected in n_e/n_H: ≤1% above
@@ -124,7 +125,7 @@ func (b *Builtin) At(z float64) (*PowerLaw, error) {
 func (b *Builtin) meta(z float64) Meta {
 	m := Meta{
 		Name:          fmt.Sprintf("built-in CIE, Z = %.3g Z☉ (KWH96+V97 H+He, CHIANTI-fit metals)", z),
-		Citation:      "H+He: " + citeKWH96 + "; " + citeVoronov + "; " + citeChiantiFit,
+		Citation:      "H+He: " + citeKWH96 + "; " + citeVoronov + "; " + citeBlack81 + "; " + citeChiantiFit,
 		Normalisation: PerNeNH,
 		HeliumRatio:   BuiltinHeliumRatio,
 		Metallicity:   z,
@@ -136,8 +137,7 @@ func (b *Builtin) meta(z float64) Meta {
 			"metal electrons are neglected in n_e/n_H: ≤1% above 1e5 K; below 2e4 K the conversion inherits the " +
 				"H+He solver's n_e/n_H, where KWH96 and CHIANTI disagree most",
 			b.fitAcc,
-			"H+He up to 35% below CHIANTI between 6e4 and 3e5 K (KWH96 He+ excitation; measured, cf. cooling reference §10.1); " +
-				"at Z = 0.1 the total is up to 23% low near 7.6e4 K",
+			caveatHepBlack81 + "; at Z = 0.1 the total is up to 16% above CHIANTI near 1.1e5 K (measured)",
 			"metal part scales linearly with Z at Grevesse & Sauval 1998 abundance ratios",
 		},
 	}

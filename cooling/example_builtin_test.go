@@ -25,20 +25,25 @@ func ExampleBuiltin_At() {
 	m := b.HHe().Meta()
 	fmt.Println(m.Name, m.Normalisation)
 	// Output:
-	// Z = 0.0: Λ(10^5.5 K) = 8.29e-24 erg cm^3 s^-1
-	// Z = 0.1: Λ(10^5.5 K) = 4.93e-23 erg cm^3 s^-1
-	// Z = 1.0: Λ(10^5.5 K) = 4.18e-22 erg cm^3 s^-1
-	// primordial CIE (KWH96+V97 H) nH2
+	// Z = 0.0: Λ(10^5.5 K) = 1.26e-23 erg cm^3 s^-1
+	// Z = 0.1: Λ(10^5.5 K) = 5.36e-23 erg cm^3 s^-1
+	// Z = 1.0: Λ(10^5.5 K) = 4.22e-22 erg cm^3 s^-1
+	// primordial CIE (KWH96+V97 H, B81 He+ excitation) nH2
 }
 
-// The ionisation state and the cooling of hydrogen and helium at 10^5 K.
+// The ionisation state and the cooling of hydrogen and helium at 10^5 K,
+// with the default rates and with KWH96's as published (Cen's factor on
+// the He+ excitation term).
 func ExamplePrimordialCIE() {
 	ion, c := cooling.PrimordialCIE(1e5, 0.0851, cooling.PrimordialOptions{})
 	fmt.Printf("n_e/n_H = %.3g, x_He++ = %.3g\n", ion.NeOverNH, ion.XHepp)
 	fmt.Printf("Λ = %.3g erg cm^3 s^-1, of which He+ excitation %.2f\n", float64(c.Total()), float64(c.ExcitationHep/c.Total()))
+	_, k := cooling.PrimordialCIE(1e5, 0.0851, cooling.KWH96Options())
+	fmt.Printf("KWH96 as published: Λ = %.3g erg cm^3 s^-1\n", float64(k.Total()))
 	// Output:
 	// n_e/n_H = 1.15, x_He++ = 0.821
-	// Λ = 5.52e-23 erg cm^3 s^-1, of which He+ excitation 0.80
+	// Λ = 9.93e-23 erg cm^3 s^-1, of which He+ excitation 0.89
+	// KWH96 as published: Λ = 5.84e-23 erg cm^3 s^-1
 }
 
 // Bremsstrahlung of fully ionised gas at 10^8 K (cooling reference §4.2).

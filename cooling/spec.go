@@ -36,7 +36,7 @@ func Names() []struct{ Name, Summary string } {
 	return []struct{ Name, Summary string }{
 		{"builtin", "CIE: KWH96+Voronov H+He and a CHIANTI fit for metals, scaled by --metallicity (default)"},
 		{"builtin-hhe", "the H+He part of builtin alone (metal-free)"},
-		{"hhe-kwh96", "H+He with the plain KWH96 hydrogen rates, for comparison"},
+		{"hhe-kwh96", "H+He with the KWH96 rates as published (Cen's factor on He+ excitation), for comparison"},
 		{"rosen-bregman-1995", "historical fit (Rosen & Bregman 1995), 300 K–10^9 K"},
 		{"tozzi-norman-2001", "historical fit for Z = 0.3 Z☉ (Tozzi & Norman 2001), kT ≥ 0.1 keV"},
 	}
@@ -102,7 +102,7 @@ func Resolve(flag, spec string, table []string, open Opener) (*Source, error) {
 				p = b.HHe()
 			}
 		} else {
-			p, err = Primordial(BuiltinHeliumRatio, PrimordialOptions{HIonisation: KWH96H})
+			p, err = Primordial(BuiltinHeliumRatio, KWH96Options())
 		}
 		if err != nil {
 			return nil, err
