@@ -6,6 +6,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"sync"
@@ -217,11 +218,19 @@ func TestBuiltinHydrogenPeak(t *testing.T) {
 	b := biMustBuiltin(t)
 	c := biReadChianti(t, "cooling_z0.001.txt")
 	const tol = 0.05 // dex, requirement
+	tj, err := b.JoinTemperature(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	xj := math.Log10(float64(tj))
 	peak := func(f func(i int) float64) float64 {
 		best, at := math.Inf(-1), 0.0
 		for i, x := range c.x {
 			if x > 4.5 { // the H peak; the He+ peak lies above 10^4.8 K
 				break
+			}
+			if x < xj { // below the join the built-in is not CIE
+				continue
 			}
 			if v := f(i); v > best {
 				best, at = v, x
@@ -256,33 +265,70 @@ func TestBuiltinAtErrors(t *testing.T) {
 	}
 }
 
-// TestBuiltinLinearInZ checks Λ(Z) = Λ_H+He + Z Λ_met at every node
-// (derived: the definition, cooling reference §6), At(0) = HHe(), and the
-// node grid 10^4–10^8 K at 0.01 dex.
+// TestBuiltinLinearInZ checks that Λ(Z) is linear in Z where it is built
+// so (derived: the definitions, cooling reference §6 and Builtin): on the
+// KI02 nodes below 10^4 K, Λ = Λ_Lyα + Z Λ_fs, and on the CIE nodes above
+// the join, Λ = Λ_H+He + Z Λ_met; At(0) = HHe(); and the node grid: 0.01
+// dex from 10 K to 10^8 K plus the join node.
 func TestBuiltinLinearInZ(t *testing.T) {
 	b := biMustBuiltin(t)
 	const tol = 1e-12 // rounding of the log10 round trip
-	xH, yH := b.HHe().Nodes()
-	_, yM := b.Metals().Nodes()
-	if len(xH) != 401 || xH[0] != 4 || xH[400] != 8 || math.Abs(xH[123]-5.23) > 1e-15 {
-		t.Fatalf("HHe().Nodes() has %d nodes from 10^%g to 10^%g K, want 401 from 10^4 to 10^8 K at 0.01 dex", len(xH), xH[0], xH[len(xH)-1])
+	xM, yM := b.Metals().Nodes()
+	if len(xM) != 401 || xM[0] != 4 || xM[400] != 8 || math.Abs(xM[123]-5.23) > 1e-15 {
+		t.Fatalf("Metals().Nodes() has %d nodes from 10^%g to 10^%g K, want 401 from 10^4 to 10^8 K at 0.01 dex", len(xM), xM[0], xM[len(xM)-1])
+	}
+	h0, h1 := b.HHe(), mustAt(t, b, 0)
+	if x0, y0 := h0.Nodes(); !slices.Equal(x0, h1.log10T) || !slices.Equal(y0, h1.log10L) {
+		t.Errorf("HHe() differs from At(0)")
 	}
 	for _, z := range []float64{0, 0.1, 1, 3.16, 30} {
-		p, err := b.At(z)
-		if err != nil {
-			t.Fatalf("At(%g) error: %v", z, err)
-		}
+		p := mustAt(t, b, z)
+		tj, _ := b.JoinTemperature(z)
 		x, y := p.Nodes()
+		if len(x) != 702 || x[0] != 1 || x[len(x)-1] != 8 {
+			t.Fatalf("At(%g).Nodes() has %d nodes from 10^%g to 10^%g K, want 702 from 10 K to 10^8 K", z, len(x), x[0], x[len(x)-1])
+		}
+		joins := 0
 		for i := range x {
-			want := math.Pow(10, yH[i]) + z*math.Pow(10, yM[i])
-			if got := math.Pow(10, y[i]); math.Abs(got/want-1) > tol || x[i] != xH[i] {
-				t.Fatalf("At(%g) node %d: Λ(10^%g K) = %.15g, want Λ_HHe + Z Λ_met = %.15g", z, i, x[i], got, want)
+			got := math.Pow(10, y[i])
+			T := math.Pow(10, x[i])
+			var want float64
+			switch {
+			case x[i] <= 4:
+				lya, fs := ki02Terms(T)
+				if x[i] == 4 {
+					lya, fs = ki02Terms(1e4)
+				}
+				want = lya + z*fs
+			case T < float64(tj)*(1-1e-12):
+				continue // the plateau: TestBuiltinLowTemperature
+			default:
+				j := int(math.Round((x[i] - 4) * 100))
+				if math.Abs(x[i]-xM[j]) > 1e-12 {
+					joins++ // the join node
+					continue
+				}
+				_, c := PrimordialCIE(model.Temperature(math.Pow(10, xM[j])), BuiltinHeliumRatio, PrimordialOptions{})
+				want = float64(c.Total()) + z*math.Pow(10, yM[j])
+			}
+			if math.Abs(got/want-1) > tol {
+				t.Fatalf("At(%g) node %d: Λ(10^%g K) = %.15g, want %.15g", z, i, x[i], got, want)
 			}
 		}
-		if lo, hi := p.ValidRange(); math.Abs(float64(lo)/1e4-1) > 1e-12 || math.Abs(float64(hi)/1e8-1) > 1e-12 {
-			t.Errorf("At(%g).ValidRange() = %g, %g K, want 1e4, 1e8 K", z, float64(lo), float64(hi))
+		if joins != 1 {
+			t.Errorf("At(%g) has %d nodes off the 0.01-dex grid, want 1 (the join)", z, joins)
 		}
 	}
+}
+
+// mustAt returns b.At(z) or fails the test.
+func mustAt(t *testing.T, b *Builtin, z float64) *PowerLaw {
+	t.Helper()
+	p, err := b.At(z)
+	if err != nil {
+		t.Fatalf("At(%g) error: %v", z, err)
+	}
+	return p
 }
 
 // TestBuiltinMeta checks the metadata the UI shows.
@@ -297,21 +343,30 @@ func TestBuiltinMeta(t *testing.T) {
 		m.Normalisation != PerNeNH || m.Historical || len(m.Warnings) != 0 {
 		t.Errorf("At(0.3).Meta() = %+v, want Z 0.3, y %g, GS98, nenH, not historical, no warnings", m, BuiltinHeliumRatio)
 	}
-	for _, want := range []string{"Katz, Weinberg & Hernquist", "Voronov 1997", "Ryden & Pogge 2021", "CC-BY-4.0", "derived work"} {
+	for _, want := range []string{"Katz, Weinberg & Hernquist", "Voronov 1997", "Ryden & Pogge 2021", "CC-BY-4.0", "derived work",
+		"Black 1981, MNRAS 197, 553", "Koyama & Inutsuka 2002, ApJ 564, L97", "unverified against the paper"} {
 		if !strings.Contains(m.Citation, want) {
 			t.Errorf("At(0.3).Meta().Citation = %q, want it to contain %q", m.Citation, want)
 		}
 	}
 	caveats := strings.Join(m.Caveats, "\n")
-	for _, want := range []string{CaveatCIE, "metal electrons are neglected", "metal fit reproduces the CHIANTI metal part within"} {
+	// The low-temperature part: what it is, what it leaves out, the join
+	// (T_j(0.3) = 1.297e4 K, measured) and the floor.
+	for _, want := range []string{"above 1.297e4 K: " + CaveatCIE, "metal electrons are neglected", "metal fit reproduces the CHIANTI metal part within",
+		"not CIE", "heating rate of 2e-26 erg/s", "no ionising background", "held at KI02's 1e4 K value", "up to 1.297e4 K",
+		"fine-structure term (metal cooling) is scaled by Z", "Λ = 0 below T_floor"} {
 		if !strings.Contains(caveats, want) {
 			t.Errorf("At(0.3).Meta().Caveats = %q, want one containing %q", m.Caveats, want)
 		}
 	}
+	if !strings.Contains(m.Name, "CIE from 1.297e4 K") || !strings.Contains(m.Name, "KI02 below 1e4 K") {
+		t.Errorf("At(0.3).Meta().Name = %q, want the join temperature and KI02 named", m.Name)
+	}
 	// Each call has its own slices.
+	first := m.Caveats[0]
 	m.Caveats[0] = "changed"
-	if q, _ := b.At(0.3); q.Meta().Caveats[0] != CaveatCIE {
-		t.Errorf("At(0.3).Meta().Caveats[0] = %q after a caller changed another copy, want %q", q.Meta().Caveats[0], CaveatCIE)
+	if q, _ := b.At(0.3); q.Meta().Caveats[0] != first {
+		t.Errorf("At(0.3).Meta().Caveats[0] = %q after a caller changed another copy, want %q", q.Meta().Caveats[0], first)
 	}
 	if q, _ := b.At(0); q.Meta().Normalisation != PerNH2 {
 		t.Errorf("At(0).Meta().Normalisation = %v, want nH2 (no tabulated metal part)", q.Meta().Normalisation)

@@ -5,9 +5,12 @@ import (
 	"fmt"
 
 	"cloudwind/cooling"
+	"cloudwind/model"
 )
 
-// The built-in curve at a few metallicities: Λ per n_H² at 10^5.5 K.
+// The built-in curve at a few metallicities: Λ per n_H² at 10^5.5 K (CIE)
+// and at 10^3 K (the Koyama & Inutsuka 2002 part), and the join
+// temperature where the CIE part takes over.
 func ExampleBuiltin_At() {
 	b, err := cooling.NewBuiltin()
 	if err != nil {
@@ -20,15 +23,29 @@ func ExampleBuiltin_At() {
 			fmt.Println(err)
 			return
 		}
-		fmt.Printf("Z = %.1f: Λ(10^5.5 K) = %.3g erg cm^3 s^-1\n", z, float64(p.Lambda(316227.766)))
+		tj, _ := b.JoinTemperature(z)
+		fmt.Printf("Z = %.1f: Λ(10^5.5 K) = %.3g, Λ(10^3 K) = %.3g erg cm^3 s^-1; CIE from %.4g K\n",
+			z, float64(p.Lambda(316227.766)), float64(p.Lambda(1000)), float64(tj))
 	}
-	m := b.HHe().Meta()
-	fmt.Println(m.Name, m.Normalisation)
+	lo, hi := b.HHe().ValidRange()
+	fmt.Printf("nodes from %g K to %g K\n", float64(lo), float64(hi))
 	// Output:
-	// Z = 0.0: Λ(10^5.5 K) = 1.26e-23 erg cm^3 s^-1
-	// Z = 0.1: Λ(10^5.5 K) = 5.36e-23 erg cm^3 s^-1
-	// Z = 1.0: Λ(10^5.5 K) = 4.22e-22 erg cm^3 s^-1
-	// primordial CIE (KWH96+V97 H, B81 He+ excitation) nH2
+	// Z = 0.0: Λ(10^5.5 K) = 1.26e-23, Λ(10^3 K) = 3.9e-45 erg cm^3 s^-1; CIE from 1.3e+04 K
+	// Z = 0.1: Λ(10^5.5 K) = 5.36e-23, Λ(10^3 K) = 8.08e-28 erg cm^3 s^-1; CIE from 1.299e+04 K
+	// Z = 1.0: Λ(10^5.5 K) = 4.22e-22, Λ(10^3 K) = 8.08e-27 erg cm^3 s^-1; CIE from 1.288e+04 K
+	// nodes from 10 K to 1e+08 K
+}
+
+// The Koyama & Inutsuka (2002) fit for neutral gas: its cooling term, with
+// the fine-structure term scaled by Z.
+func ExampleKoyamaInutsuka02Lambda() {
+	for _, t := range []float64{30, 300, 3000} {
+		fmt.Printf("Λ(%g K) = %.3g erg cm^3 s^-1\n", t, float64(cooling.KoyamaInutsuka02Lambda(model.Temperature(t), 1)))
+	}
+	// Output:
+	// Λ(30 K) = 7.14e-29 erg cm^3 s^-1
+	// Λ(300 K) = 3.57e-27 erg cm^3 s^-1
+	// Λ(3000 K) = 1.49e-26 erg cm^3 s^-1
 }
 
 // The ionisation state and the cooling of hydrogen and helium at 10^5 K,
