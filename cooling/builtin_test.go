@@ -17,45 +17,10 @@ import (
 	"cloudwind/model"
 )
 
-// The CHIANTI reference curves (Ryden & Pogge 2021, CC-BY-4.0) are read from
-// ../shared/reference/cie-cooling-chianti/ beside the module, or from
-// $CLOUDWIND_REFERENCE_DIR (the reference directory holding
-// cie-cooling-chianti/, or that directory itself). They are never copied
-// into the repository (cooling reference §7).
-
-// biChiantiDir returns the directory of the CHIANTI curves. When they are
-// missing the test fails if CI=true and is skipped otherwise.
+// biChiantiDir returns the directory of the CHIANTI curves (chiantiDir).
 func biChiantiDir(t testing.TB) string {
 	t.Helper()
-	var cands []string
-	if d := os.Getenv("CLOUDWIND_REFERENCE_DIR"); d != "" {
-		cands = append(cands, filepath.Join(d, "cie-cooling-chianti"), d)
-	}
-	if dir, err := os.Getwd(); err == nil {
-		for {
-			if _, err := os.Stat(filepath.Join(dir, "go.mod")); err == nil {
-				cands = append(cands, filepath.Join(dir, "..", "shared", "reference", "cie-cooling-chianti"))
-				break
-			}
-			parent := filepath.Dir(dir)
-			if parent == dir {
-				break
-			}
-			dir = parent
-		}
-	}
-	for _, d := range cands {
-		if _, err := os.Stat(filepath.Join(d, "cooling_z1.txt")); err == nil {
-			return d
-		}
-	}
-	msg := "CHIANTI reference curves not found (looked in " + strings.Join(cands, ", ") +
-		"); set CLOUDWIND_REFERENCE_DIR"
-	if os.Getenv("CI") == "true" {
-		t.Fatal(msg)
-	}
-	t.Skip(msg)
-	return ""
+	return chiantiDir(t)
 }
 
 // biChiantiCurve is one CHIANTI file: log10 T and log10 Λ_total per n_e n_H.
