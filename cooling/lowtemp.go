@@ -101,8 +101,9 @@ func KoyamaInutsuka02Lambda(t model.Temperature, z float64) model.CoolingRate {
 const (
 	citeKI02 = "below 1e4 K: Koyama & Inutsuka 2002, ApJ 564, L97 (constants via public code, unverified against " +
 		"the paper; a typo correction by Vázquez-Semadeni et al. 2007 is from memory)"
-	caveatKI02 = "below 1e4 K: the Koyama & Inutsuka 2002 fit for neutral gas, not CIE; cooling term only: KI02 define " +
-		"it with a heating rate of 2e-26 erg/s per H, which is not included, and there is no ionising background"
+	caveatKI02 = "below 1e4 K: the Koyama & Inutsuka 2002 fit for neutral gas, not CIE, per n² with n the H density " +
+		"(from memory), taken as per n_H²; cooling term only: KI02 define it with a heating rate of 2e-26 erg/s per H, " +
+		"which is not included, and there is no ionising background"
 	caveatKI02Z = "below 1e4 K the KI02 fine-structure term (metal cooling) is scaled by Z/Z☉ and the H Lyα term is " +
 		"not (cloudwind's choice); at Z = 0 only Lyα remains, negligible below about 5000 K (no H2 cooling here)"
 	caveatFloor = "the cooling floor still applies: Λ = 0 below T_floor (by default T_cl)"
