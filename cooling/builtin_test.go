@@ -183,19 +183,11 @@ func TestBuiltinHydrogenPeak(t *testing.T) {
 	b := biMustBuiltin(t)
 	c := biReadChianti(t, "cooling_z0.001.txt")
 	const tol = 0.05 // dex, requirement
-	tj, err := b.JoinTemperature(0)
-	if err != nil {
-		t.Fatal(err)
-	}
-	xj := math.Log10(float64(tj))
 	peak := func(f func(i int) float64) float64 {
 		best, at := math.Inf(-1), 0.0
 		for i, x := range c.x {
 			if x > 4.5 { // the H peak; the He+ peak lies above 10^4.8 K
 				break
-			}
-			if x < xj { // below the join the built-in is not CIE
-				continue
 			}
 			if v := f(i); v > best {
 				best, at = v, x
@@ -230,11 +222,12 @@ func TestBuiltinAtErrors(t *testing.T) {
 	}
 }
 
-// TestBuiltinLinearInZ checks that Λ(Z) is linear in Z where it is built
-// so (derived: the definitions, cooling reference §6 and Builtin): on the
-// KI02 nodes below 10^4 K, Λ = Λ_Lyα + Z Λ_fs, and on the CIE nodes above
-// the join, Λ = Λ_H+He + Z Λ_met; At(0) = HHe(); and the node grid: 0.01
-// dex from 10 K to 10^8 K plus the join node.
+// TestBuiltinLinearInZ checks that Λ(Z) is built from parts linear in Z
+// (derived: the definitions, cooling reference §6 and Builtin): on the
+// KI02 nodes below T_cap, Λ = Λ_Lyα + Z Λ_fs; on the nodes from T_cap to
+// 10^4 K, the cap Λ_H+He(10^4 K) + Z Λ_met(10^4 K); on the CIE nodes,
+// Λ = Λ_H+He + Z Λ_met; At(0) = HHe(); and the node grid: 0.01 dex from
+// 10 K to 10^8 K plus the cap node.
 func TestBuiltinLinearInZ(t *testing.T) {
 	b := biMustBuiltin(t)
 	const tol = 1e-12 // rounding of the log10 round trip
@@ -246,42 +239,43 @@ func TestBuiltinLinearInZ(t *testing.T) {
 	if x0, y0 := h0.Nodes(); !slices.Equal(x0, h1.log10T) || !slices.Equal(y0, h1.log10L) {
 		t.Errorf("HHe() differs from At(0)")
 	}
+	cie := func(j int, z float64) float64 {
+		_, c := PrimordialCIE(model.Temperature(math.Pow(10, xM[j])), BuiltinHeliumRatio, PrimordialOptions{})
+		return float64(c.Total()) + z*math.Pow(10, yM[j])
+	}
 	for _, z := range []float64{0, 0.1, 1, 3.16, 30} {
 		p := mustAt(t, b, z)
-		tj, _ := b.JoinTemperature(z)
+		tc, _ := b.CapTemperature(z)
+		xc := math.Log10(float64(tc))
 		x, y := p.Nodes()
 		if len(x) != 702 || x[0] != 1 || x[len(x)-1] != 8 {
 			t.Fatalf("At(%g).Nodes() has %d nodes from 10^%g to 10^%g K, want 702 from 10 K to 10^8 K", z, len(x), x[0], x[len(x)-1])
 		}
-		joins := 0
+		off := 0
 		for i := range x {
-			got := math.Pow(10, y[i])
-			T := math.Pow(10, x[i])
+			if math.Abs(x[i]*100-math.Round(x[i]*100)) > 1e-9 {
+				off++
+				if math.Abs(x[i]-xc) > 1e-12 {
+					t.Errorf("At(%g) node %d at 10^%.6f K, off the 0.01-dex grid and not T_cap = 10^%.6f K", z, i, x[i], xc)
+				}
+			}
 			var want float64
 			switch {
-			case x[i] <= 4:
-				lya, fs := ki02Terms(T)
-				if x[i] == 4 {
-					lya, fs = ki02Terms(1e4)
-				}
+			case x[i] < xc:
+				lya, fs := ki02Terms(math.Pow(10, x[i]))
 				want = lya + z*fs
-			case T < float64(tj)*(1-1e-12):
-				continue // the plateau: TestBuiltinLowTemperature
+			case x[i] < 4:
+				want = cie(0, z) // the cap
 			default:
 				j := int(math.Round((x[i] - 4) * 100))
-				if math.Abs(x[i]-xM[j]) > 1e-12 {
-					joins++ // the join node
-					continue
-				}
-				_, c := PrimordialCIE(model.Temperature(math.Pow(10, xM[j])), BuiltinHeliumRatio, PrimordialOptions{})
-				want = float64(c.Total()) + z*math.Pow(10, yM[j])
+				want = cie(j, z)
 			}
-			if math.Abs(got/want-1) > tol {
+			if got := math.Pow(10, y[i]); math.Abs(got/want-1) > tol {
 				t.Fatalf("At(%g) node %d: Λ(10^%g K) = %.15g, want %.15g", z, i, x[i], got, want)
 			}
 		}
-		if joins != 1 {
-			t.Errorf("At(%g) has %d nodes off the 0.01-dex grid, want 1 (the join)", z, joins)
+		if off != 1 {
+			t.Errorf("At(%g) has %d nodes off the 0.01-dex grid, want 1 (T_cap)", z, off)
 		}
 	}
 }
@@ -315,17 +309,24 @@ func TestBuiltinMeta(t *testing.T) {
 		}
 	}
 	caveats := strings.Join(m.Caveats, "\n")
-	// The low-temperature part: what it is, what it leaves out, the join
-	// (T_j(0.3) = 1.297e4 K, measured) and the floor.
-	for _, want := range []string{"above 1.297e4 K: " + CaveatCIE, "metal electrons are neglected", "metal fit reproduces the CHIANTI metal part within",
-		"not CIE", "heating rate of 2e-26 erg/s", "no ionising background", "held at KI02's 1e4 K value", "up to 1.297e4 K",
+	// The low-temperature part: what it is, what it leaves out, the cap
+	// (T_cap(0.3) = 5396 K and the cap 7.9e-27, measured; KI02 536 times
+	// CIE at 10^4 K, measured) and the floor.
+	for _, want := range []string{"at and above 1e4 K: " + CaveatCIE, "results for T_cl ≥ 1e4 K are as before",
+		"metal electrons are neglected", "metal fit reproduces the CHIANTI metal part within",
+		"not CIE", "heating rate of 2e-26 erg/s", "no ionising background", "min(KI02, the CIE value at 1e4 K, 7.9e-27 erg cm³ s⁻¹)",
+		"so that the CIE curve stays unchanged at and above 1e4 K", "KI02 up to T_cap = 5396 K", "discards KI02 between 5396 K and 1e4 K",
+		"536 times CIE at 1e4 K", "ionised by more than collisions, with a heating term not included",
 		"fine-structure term (metal cooling) is scaled by Z", "Λ = 0 below T_floor"} {
 		if !strings.Contains(caveats, want) {
 			t.Errorf("At(0.3).Meta().Caveats = %q, want one containing %q", m.Caveats, want)
 		}
 	}
-	if !strings.Contains(m.Name, "CIE from 1.297e4 K") || !strings.Contains(m.Name, "KI02 below 1e4 K") {
-		t.Errorf("At(0.3).Meta().Name = %q, want the join temperature and KI02 named", m.Name)
+	if !strings.Contains(m.Name, "built-in CIE, Z = 0.3 Z☉") || !strings.Contains(m.Name, "below 1e4 K KI02, capped") {
+		t.Errorf("At(0.3).Meta().Name = %q, want CIE and the capped KI02 named", m.Name)
+	}
+	if mm := strings.Join(b.Metals().Meta().Caveats, "\n"); strings.Contains(mm, "KI02") || !strings.Contains(mm, CaveatCIE) {
+		t.Errorf("Metals().Meta().Caveats = %q, want the CIE caveats only", b.Metals().Meta().Caveats)
 	}
 	// Each call has its own slices.
 	first := m.Caveats[0]

@@ -1,7 +1,7 @@
 // Package cooling provides cooling functions Λ(T, Z) for cloudwind: a
 // built-in curve (collisional ionisation equilibrium from published rates
-// and a fit above about 1.3×10^4 K, the Koyama & Inutsuka 2002 fit for
-// neutral gas from 10 K to 10^4 K, joined continuously; see Builtin),
+// and a fit from 10^4 K, and from 10 K to 10^4 K the Koyama & Inutsuka 2002
+// fit for neutral gas capped at the CIE value at 10^4 K; see Builtin),
 // historical fits for comparison, the user's own tables, and exact cooling
 // times.
 //

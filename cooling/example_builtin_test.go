@@ -8,9 +8,10 @@ import (
 	"cloudwind/model"
 )
 
-// The built-in curve at a few metallicities: Λ per n_H² at 10^5.5 K (CIE)
-// and at 10^3 K (the Koyama & Inutsuka 2002 part), and the join
-// temperature where the CIE part takes over.
+// The built-in curve at a few metallicities: Λ per n_H² at 10^5.5 K and
+// at 10^4 K (CIE), and at 10^3 K (the Koyama & Inutsuka 2002 part, capped
+// at the CIE value at 10^4 K), and the cap temperature from which the cap
+// applies.
 func ExampleBuiltin_At() {
 	b, err := cooling.NewBuiltin()
 	if err != nil {
@@ -23,16 +24,16 @@ func ExampleBuiltin_At() {
 			fmt.Println(err)
 			return
 		}
-		tj, _ := b.JoinTemperature(z)
-		fmt.Printf("Z = %.1f: Λ(10^5.5 K) = %.3g, Λ(10^3 K) = %.3g erg cm^3 s^-1; CIE from %.4g K\n",
-			z, float64(p.Lambda(316227.766)), float64(p.Lambda(1000)), float64(tj))
+		tc, _ := b.CapTemperature(z)
+		fmt.Printf("Z = %.1f: Λ(10^5.5 K) = %.3g, Λ(10^4 K) = %.3g, Λ(10^3 K) = %.3g erg cm^3 s^-1; capped from %.4g K\n",
+			z, float64(p.Lambda(316227.766)), float64(p.Lambda(1e4)), float64(p.Lambda(1000)), float64(tc))
 	}
 	lo, hi := b.HHe().ValidRange()
 	fmt.Printf("nodes from %g K to %g K\n", float64(lo), float64(hi))
 	// Output:
-	// Z = 0.0: Λ(10^5.5 K) = 1.26e-23, Λ(10^3 K) = 3.9e-45 erg cm^3 s^-1; CIE from 1.3e+04 K
-	// Z = 0.1: Λ(10^5.5 K) = 5.36e-23, Λ(10^3 K) = 8.08e-28 erg cm^3 s^-1; CIE from 1.299e+04 K
-	// Z = 1.0: Λ(10^5.5 K) = 4.22e-22, Λ(10^3 K) = 8.08e-27 erg cm^3 s^-1; CIE from 1.288e+04 K
+	// Z = 0.0: Λ(10^5.5 K) = 1.26e-23, Λ(10^4 K) = 6.05e-27, Λ(10^3 K) = 3.9e-45 erg cm^3 s^-1; capped from 5839 K
+	// Z = 0.1: Λ(10^5.5 K) = 5.36e-23, Λ(10^4 K) = 6.67e-27, Λ(10^3 K) = 8.08e-28 erg cm^3 s^-1; capped from 5730 K
+	// Z = 1.0: Λ(10^5.5 K) = 4.22e-22, Λ(10^4 K) = 1.22e-26, Λ(10^3 K) = 8.08e-27 erg cm^3 s^-1; capped from 2084 K
 	// nodes from 10 K to 1e+08 K
 }
 

@@ -8,7 +8,8 @@ import (
 
 // Cooling below 10^4 K: the fit of Koyama & Inutsuka (2002, ApJ 564, L97;
 // KI02) to the cooling of the neutral interstellar medium, which the
-// built-in curve uses from 10 K to 10^4 K.
+// built-in curve uses below 10^4 K, capped at the CIE value at 10^4 K
+// (see Builtin).
 //
 // Status (cooling reference §4.3): the formula and its constants are
 // CONFIRMED only through secondary sources, several public code files
@@ -51,8 +52,9 @@ const (
 	ki02T3    = 92      // K ("KI_T3")
 )
 
-// ki02Top is the highest temperature at which the built-in curve uses the
-// KI02 fit, 10^4 K (cooling reference §4.3: the fit describes T ≲ 10^4 K).
+// ki02Top is the top of the range of the KI02 fit, 10^4 K (cooling
+// reference §4.3: the fit describes T ≲ 10^4 K), and the bottom of the
+// built-in curve's CIE part.
 const ki02Top = 1e4
 
 // ki02Terms returns the two terms of the KI02 fit at T (K) in

@@ -1,9 +1,12 @@
 package cooling
 
 import (
+	"fmt"
 	"math"
+	"slices"
 	"testing"
 
+	"cloudwind/assets"
 	"cloudwind/model"
 	"gonum.org/v1/gonum/floats/scalar"
 )
@@ -27,7 +30,7 @@ func TestKoyamaInutsuka02Lambda(t *testing.T) {
 		{1000, 1, 8.076123e-27},  // Lyα 3.9e-45: negligible
 		{3000, 1, 1.487309e-26},  //
 		{8000, 1, 4.116987e-25},  // Lyα dominates
-		{1e4, 1, 4.258735e-24},   // the plateau of the built-in at Z = 1
+		{1e4, 1, 4.258735e-24},   // 348 times the CIE cap at Z = 1
 		{1e4, 0, 4.230991e-24},   // Lyα alone
 		{1000, 0, 3.897595e-45},  // Lyα alone: tiny but positive
 		{100, 0.3, 3.347559e-28}, // 0.3 × 1.115853e-27 + 3.6e-66
@@ -88,17 +91,22 @@ func TestKoyamaInutsuka02Equilibrium(t *testing.T) {
 	}
 }
 
-// ltCIE returns the CIE part of the built-in at metallicity z as a
-// PowerLaw on its own nodes, 10^4–10^8 K (the curve of the previous
-// release, built from the parts).
-func ltCIE(t *testing.T, b *Builtin, z float64) *PowerLaw {
+// ltCIE returns the CIE curve of the versions without the part below
+// 10^4 K, Λ_H+He + z (n_e/n_H) Λ_met on the 0.01-dex nodes from 10^4 to
+// 10^8 K, as a PowerLaw built here from its definition (cooling reference
+// §0, §6; Builtin): PrimordialCIE and the embedded metal fit, not the
+// Builtin's stored parts.
+func ltCIE(t testing.TB, z float64) *PowerLaw {
 	t.Helper()
-	xs := b.Metals().log10T
-	_, ym := b.Metals().Nodes()
-	ys := make([]float64, len(xs))
-	for i, x := range xs {
-		_, c := PrimordialCIE(biAt10(x), BuiltinHeliumRatio, PrimordialOptions{})
-		ys[i] = math.Log10(float64(c.Total()) + z*math.Pow(10, ym[i]))
+	fit, err := loadMetalFit(assets.FS, metalFitFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	xs, ys := make([]float64, 401), make([]float64, 401)
+	for i := range xs {
+		xs[i] = float64(400+i) / 100
+		ion, c := PrimordialCIE(biAt10(xs[i]), BuiltinHeliumRatio, PrimordialOptions{})
+		ys[i] = math.Log10(float64(c.Total()) + z*ion.NeOverNH*math.Pow(10, fit.log10Lambda(xs[i])))
 	}
 	p, err := NewPowerLaw(xs, ys, Meta{})
 	if err != nil {
@@ -107,41 +115,49 @@ func ltCIE(t *testing.T, b *Builtin, z float64) *PowerLaw {
 	return p
 }
 
+// ltCap returns the cap of the built-in curve at metallicity z: the CIE
+// curve at 10^4 K, its bottom node (Builtin).
+func ltCap(t testing.TB, z float64) float64 { return float64(ltCIE(t, z).Lambda(1e4)) }
+
 // ltZs are the metallicities the low-temperature tests run at.
 var ltZs = []float64{0, 0.01, 0.1, 1, 3.16, 10, 30}
 
 // TestBuiltinLowTemperature checks the three parts of the built-in curve
-// (see Builtin): KI02 at and between its nodes from 10 K to 10^4 K, the
-// plateau at KI02's 10^4 K value up to T_j, and the CIE curve above T_j,
-// node by node and between nodes; and the range, 10 K to 10^8 K.
+// (see Builtin) node by node and between nodes, every 0.0025 dex from 10 K
+// to 10^8 K: KI02 below T_cap, the cap Λ_CIE(10^4 K, Z) from T_cap to
+// 10^4 K, and at and above 10^4 K the CIE curve of the versions without
+// the part below 10^4 K (ltCIE); and the range, 10 K to 10^8 K.
 func TestBuiltinLowTemperature(t *testing.T) {
 	b := biMustBuiltin(t)
 	for _, z := range ltZs {
-		p, err := b.At(z)
-		if err != nil {
-			t.Fatalf("At(%g): %v", z, err)
-		}
+		p := mustAt(t, b, z)
 		if lo, hi := p.ValidRange(); !scalar.EqualWithinRel(float64(lo), 10, 1e-12) || !scalar.EqualWithinRel(float64(hi), 1e8, 1e-12) {
 			t.Errorf("At(%g).ValidRange() = %g, %g K, want 10, 1e8 K", z, float64(lo), float64(hi))
 		}
-		tj, err := b.JoinTemperature(z)
+		tc, err := b.CapTemperature(z)
 		if err != nil {
-			t.Fatalf("JoinTemperature(%g): %v", z, err)
+			t.Fatalf("CapTemperature(%g): %v", z, err)
 		}
-		plateau := ltKI02(1e4, z)
-		cie := ltCIE(t, b, z)
+		cie := ltCIE(t, z)
+		capV := float64(cie.Lambda(1e4))
+		// The premise of continuity at 10^4 K (Builtin): KI02 lies above
+		// the cap there.
+		if ki := ltKI02(1e4, z); !(ki > capV) {
+			t.Errorf("Z = %g: KI02(10^4 K) = %g, not above the CIE value %g", z, ki, capV)
+		}
 		worst := 0.0
-		for x := 1.0; x <= 8; x += 0.0025 { // nodes and three points between each pair
+		for i := 400; i <= 3200; i++ { // log10 T = i/400: nodes and three points between each pair
+			x := float64(i) / 400
 			T := biAt10(x)
 			got := float64(p.Lambda(T))
-			onNode := math.Abs(x*100-math.Round(x*100)) < 1e-6
 			switch {
-			case x <= 4+1e-12:
+			case T < tc:
 				// KI02: exact at nodes (rounding of the log round trip), and
-				// within the measured 0.43% of log-log interpolation at
-				// 0.01 dex between them (derived by evaluating the formula).
+				// between them within 0.5%, above the measured 0.43% of
+				// log-log interpolation at 0.01 dex (derived by evaluating
+				// the formula).
 				want, tol := ltKI02(float64(T), z), 0.005
-				if onNode {
+				if i%4 == 0 {
 					tol = 1e-12
 				} else if e := math.Abs(got/want - 1); e > worst {
 					worst = e
@@ -149,51 +165,111 @@ func TestBuiltinLowTemperature(t *testing.T) {
 				if !scalar.EqualWithinRel(got, want, tol) {
 					t.Errorf("At(%g).Lambda(10^%.4f K) = %.6g, want KI02 %.6g ± %g", z, x, got, want, tol)
 				}
-			case T <= tj:
-				if !scalar.EqualWithinRel(got, plateau, 1e-12) {
-					t.Errorf("At(%g).Lambda(10^%.4f K) = %.6g, want the plateau %.6g (T_j = %.6g K)", z, x, got, plateau, float64(tj))
+			case i < 1600:
+				if !scalar.EqualWithinRel(got, capV, 1e-12) {
+					t.Errorf("At(%g).Lambda(10^%.4f K) = %.12g, want the cap %.12g (T_cap = %.6g K)", z, x, got, capV, float64(tc))
 				}
 			default:
 				if want := float64(cie.Lambda(T)); !scalar.EqualWithinRel(got, want, 1e-12) {
-					t.Errorf("At(%g).Lambda(10^%.4f K) = %.6g, want the CIE curve %.6g", z, x, got, want)
+					t.Errorf("At(%g).Lambda(10^%.4f K) = %.12g, want the CIE curve %.12g", z, x, got, want)
 				}
 			}
 		}
-		if worst > 0.0045 || worst < 0.0005 {
-			t.Errorf("At(%g): largest KI02 interpolation error %.3g%%, want the measured 0.08–0.43%%", z, 100*worst)
+		// Measured largest interpolation error below T_cap: 0.076% at Z = 0,
+		// 0.43% at Z = 0.01, 0.35% at Z = 0.1, 0.060% at Z ≥ 1. The lower
+		// bound shows that the points between nodes are interpolated, not
+		// the formula.
+		if worst > 0.0045 || worst < 0.0004 {
+			t.Errorf("At(%g): largest KI02 interpolation error %.3g%%, want the measured 0.06–0.43%%", z, 100*worst)
 		}
 	}
 }
 
-// TestBuiltinJoin checks the join at T_j: the pieces on both sides agree
-// there (relative jump ≤ 1e-9; by construction it is rounding), T_j lies
-// where it is measured to lie, and the curve does not decrease from 10 K
-// up to the hydrogen peak.
-func TestBuiltinJoin(t *testing.T) {
+// TestBuiltinCIEUnchanged checks that the built-in curve at and above
+// 10^4 K is the CIE curve of the versions without the part below 10^4 K
+// at every CIE node, Λ = Λ_H+He + Z (n_e/n_H) Λ_met (ltCIE, built from
+// the definition; 1e-12, the rounding of the log round trip), that
+// 10^4 K is a node, and that model results for clouds at 10^4 K and above
+// are the same with the built-in curve as with that CIE curve alone, at
+// the default floor (T_cl) and with a floor of 10 K.
+func TestBuiltinCIEUnchanged(t *testing.T) {
 	b := biMustBuiltin(t)
-	// T_j per Z, measured (4 significant figures).
-	wantTj := map[float64]float64{0: 1.300e4, 0.1: 1.299e4, 1: 1.288e4, 10: 1.227e4}
 	for _, z := range ltZs {
-		p, err := b.At(z)
+		p, cie := mustAt(t, b, z), ltCIE(t, z)
+		xs, ys := p.Nodes()
+		xc, yc := cie.Nodes()
+		k := slices.Index(xs, 4.0)
+		if k < 0 || len(xs)-k != len(xc) {
+			t.Fatalf("At(%g): 10^4 K node at %d of %d, want one followed by the %d CIE nodes", z, k, len(xs), len(xc))
+		}
+		for i := range xc {
+			if xs[k+i] != xc[i] || !scalar.EqualWithinRel(math.Pow(10, ys[k+i]), math.Pow(10, yc[i]), 1e-12) {
+				t.Errorf("At(%g) node %d: (10^%g K, %.15g), want the CIE node (10^%g K, %.15g)", z, k+i, xs[k+i], math.Pow(10, ys[k+i]), xc[i], math.Pow(10, yc[i]))
+			}
+		}
+	}
+	cs := model.BuiltinCriteria()
+	for _, z := range []float64{0.1, 1, 3.16} {
+		p, cie := mustAt(t, b, z), ltCIE(t, z)
+		for _, tcl := range []model.Temperature{1e4, 3e4} {
+			for _, floor := range []model.Temperature{0, 10} {
+				q := model.Fiducial()
+				q.Metallicity, q.TCloud, q.TFloor = z, tcl, floor
+				r1, err1 := model.Evaluate(q, p, cs)
+				r0, err0 := model.Evaluate(q, cie, cs)
+				if err1 != nil || err0 != nil {
+					t.Fatalf("Evaluate(Z = %g, T_cl = %g K): %v, %v", z, float64(tcl), err1, err0)
+				}
+				// Every derived quantity, caution and outcome, to the last bit
+				// (%v prints a float64 so that it parses back exactly; NaN
+				// thresholds compare equal this way).
+				g, w := fmt.Sprintf("%+v %+v", r1.State, r1.Outcomes), fmt.Sprintf("%+v %+v", r0.State, r0.Outcomes)
+				if g != w {
+					t.Errorf("Evaluate(Z = %g, T_cl = %g K, floor %g K):\nbuilt-in   %s\nCIE alone  %s\nwant the same", z, float64(tcl), float64(floor), g, w)
+				}
+			}
+		}
+	}
+}
+
+// TestBuiltinCap checks the cap temperature: the pieces meeting at T_cap
+// (KI02 interpolated between its formula values at the two 0.01-dex nodes
+// around it, and the cap) and at 10^4 K (the cap and the CIE curve) agree
+// to 1e-9 relative (by construction it is rounding); T_cap lies where it
+// is measured to lie; KI02 lies above the cap at 10^4 K for every Z; and
+// the curve does not decrease from 10 K up to the hydrogen peak.
+func TestBuiltinCap(t *testing.T) {
+	b := biMustBuiltin(t)
+	// T_cap per Z, measured (4 significant figures).
+	wantTc := map[float64]float64{0: 5839, 0.1: 5730, 1: 2084, 10: 750.2}
+	for _, z := range ltZs {
+		p := mustAt(t, b, z)
+		tc, err := b.CapTemperature(z)
 		if err != nil {
 			t.Fatal(err)
 		}
-		tj, _ := b.JoinTemperature(z)
-		// The pieces meeting at T_j: on the left the plateau, KI02 at
-		// 10^4 K (the formula); on the right the CIE curve as interpolated
-		// (built here from its parts); and the curve's own node.
-		left, right := ltKI02(1e4, z), float64(ltCIE(t, b, z).Lambda(tj))
-		if jump := math.Abs(right/left - 1); jump > 1e-9 {
-			t.Errorf("At(%g): the CIE curve at T_j = %.6g K is %.12g, KI02 at 10^4 K %.12g: a jump of %.3g, want ≤ 1e-9", z, float64(tj), right, left, jump)
+		capV := ltCap(t, z)
+		xc := math.Log10(float64(tc))
+		x0 := math.Floor(xc*100) / 100
+		y0, y1 := math.Log10(ltKI02(math.Pow(10, x0), z)), math.Log10(ltKI02(math.Pow(10, x0+0.01), z))
+		left := math.Pow(10, y0+(y1-y0)*(xc-x0)/0.01) // KI02 interpolated at T_cap
+		if jump := math.Abs(left/capV - 1); jump > 1e-9 {
+			t.Errorf("At(%g): KI02 interpolated at T_cap = %.6g K is %.12g, the cap %.12g: a jump of %.3g, want ≤ 1e-9", z, float64(tc), left, capV, jump)
 		}
-		if node := float64(p.Lambda(tj)); !scalar.EqualWithinRel(node, left, 1e-12) {
-			t.Errorf("At(%g).Lambda(T_j = %.6g K) = %.12g, want %.12g", z, float64(tj), node, left)
+		for _, T := range []float64{float64(tc), float64(tc) * (1 - 1e-12), float64(tc) * (1 + 1e-12)} {
+			if got := float64(p.Lambda(model.Temperature(T))); !scalar.EqualWithinRel(got, capV, 1e-9) {
+				t.Errorf("At(%g).Lambda(%.15g K) = %.12g, want the cap %.12g at T_cap", z, T, got, capV)
+			}
 		}
-		if w, ok := wantTj[z]; ok && !biRoundsTo(float64(tj), w, 4) {
-			t.Errorf("JoinTemperature(%g) = %.6g K, want %.4g K (measured)", z, float64(tj), w)
+		below, at := float64(p.Lambda(model.Temperature(1e4*(1-1e-12)))), float64(ltCIE(t, z).Lambda(1e4))
+		if jump := math.Abs(below/at - 1); jump > 1e-9 {
+			t.Errorf("At(%g): Λ just below 10^4 K is %.12g, the CIE curve at 10^4 K %.12g: a jump of %.3g, want ≤ 1e-9", z, below, at, jump)
 		}
-		if !(float64(tj) > 1e4 && float64(tj) < math.Pow(10, 4.3)) {
-			t.Errorf("JoinTemperature(%g) = %g K, want between 1e4 K and 10^4.3 K, below the CHIANTI comparisons", z, float64(tj))
+		if w, ok := wantTc[z]; ok && !biRoundsTo(float64(tc), w, 4) {
+			t.Errorf("CapTemperature(%g) = %.6g K, want %.4g K (measured)", z, float64(tc), w)
+		}
+		if !(float64(tc) > 100 && float64(tc) < 1e4) {
+			t.Errorf("CapTemperature(%g) = %g K, want between 100 K and 10^4 K", z, float64(tc))
 		}
 		xs, ys := p.Nodes()
 		for i := 1; i < len(xs) && xs[i] <= 4.2; i++ {
@@ -202,74 +278,90 @@ func TestBuiltinJoin(t *testing.T) {
 			}
 		}
 	}
+	// KI02 lies above the cap at 10^4 K for every Z ≥ 0, since both are
+	// linear in Z and each KI02 term exceeds its CIE counterpart there
+	// (derived); the ratios, measured: Lyα/H+He 699.4, fine
+	// structure/metals 4.490 (4 significant figures).
+	hheCap, metCap := ltCap(t, 0), ltCap(t, 1)-ltCap(t, 0)
+	lya, fs := ltKI02(1e4, 0), ltKI02(1e4, 1)-ltKI02(1e4, 0)
+	if r := lya / hheCap; !biRoundsTo(r, 699.4, 4) {
+		t.Errorf("KI02 Lyα / CIE H+He at 10^4 K = %.6g, want 699.4 (measured)", r)
+	}
+	if r := fs / metCap; !biRoundsTo(r, 4.490, 4) {
+		t.Errorf("KI02 fine structure / CIE metals at 10^4 K = %.6g, want 4.490 (measured)", r)
+	}
 	for _, z := range []float64{-1, math.NaN(), math.Inf(1)} {
-		if tj, err := b.JoinTemperature(z); err == nil {
-			t.Errorf("JoinTemperature(%g) = %g, nil; want an error", z, float64(tj))
+		if tc, err := b.CapTemperature(z); err == nil {
+			t.Errorf("CapTemperature(%g) = %g, nil; want an error", z, float64(tc))
 		}
 	}
 }
 
 // TestBuiltinColdCloud checks that a 10³ K cloud, below the old table
-// (10^4 K), now cools: Λ(10³ K) is KI02's, so the instantaneous cooling
-// time is finite, and so is the time to cool isobarically from 10^6 K to
-// 10³ K with the floor there (the cold-clump demo: P/k = 10^4 K cm⁻³,
-// Z = 1). The model's t_cool of the cloud is finite too, with no
-// below-table caution.
+// (10^4 K), now cools: at Z = 1 Λ(10³ K) is KI02's (T_cap = 2084 K lies
+// above), at Z = 10 it is the cap (T_cap = 750 K lies below), so the
+// instantaneous cooling time is finite, and so is the time to cool
+// isobarically from 10^6 K to 10³ K with the floor there (the cold-clump
+// demo: P/k = 10^4 K cm⁻³). The model's t_cool of the cloud is finite
+// too, with no below-table caution.
 func TestBuiltinColdCloud(t *testing.T) {
 	b := biMustBuiltin(t)
-	p, err := b.At(1)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if got := float64(p.Lambda(1000)); !scalar.EqualWithinRel(got, 8.076123e-27, 5e-7) || p.Classify(1000) != InTable {
-		t.Errorf("At(1).Lambda(1000 K) = %g (%v), want 8.076e-27 in table (KI02, derived)", got, p.Classify(1000))
-	}
-	g := Gas{NH: 1e4 / 1e6 / 2.25, TotalPerH: 2.25} // n_tot = P/kT at 10^6 K
-	ct, err := p.TimeToCool(Isobaric, g, 1e6, 1000, 1000)
-	if err != nil || !(float64(ct.Time) > 0) || math.IsInf(float64(ct.Time), 0) {
-		t.Errorf("At(1).TimeToCool(isobaric, 1e6 → 1000 K, floor 1000 K) = %+v, %v; want a finite time", ct, err)
-	}
-	to1e4, _ := p.TimeToCool(Isobaric, g, 1e6, 1e4, 1000)
-	if !(ct.Time > to1e4.Time) {
-		t.Errorf("TimeToCool to 1000 K = %g s, not above the time to 10^4 K, %g s", float64(ct.Time), float64(to1e4.Time))
-	}
-	q := model.Params{Chi: 3000, Mach: 1, Pressure: 1e4, TCloud: 1000, RCloud: 0.5 * model.Parsec, Metallicity: 1}
-	r, err := model.Evaluate(q, p, model.BuiltinCriteria())
-	if err != nil {
-		t.Fatal(err)
-	}
-	if tc := float64(r.TCoolCold); !(tc > 0) || math.IsInf(tc, 0) {
-		t.Errorf("Evaluate(cold clump).TCoolCold = %g s, want finite", tc)
-	}
-	for _, c := range r.Cautions {
-		if c.Field == model.FieldTCloud {
-			t.Errorf("Evaluate(cold clump) caution %q, want none about T_cl", c.Message)
+	for _, tc := range []struct {
+		z, want float64
+		what    string
+	}{
+		{1, 8.076123e-27, "KI02 (derived: TestKoyamaInutsuka02Lambda)"},
+		{10, ltCap(t, 10), "the cap, CIE at 10^4 K (ltCIE)"},
+	} {
+		p := mustAt(t, b, tc.z)
+		if got := float64(p.Lambda(1000)); !scalar.EqualWithinRel(got, tc.want, 5e-7) || p.Classify(1000) != InTable {
+			t.Errorf("At(%g).Lambda(1000 K) = %g (%v), want %.4g in table, %s", tc.z, got, p.Classify(1000), tc.want, tc.what)
+		}
+		g := Gas{NH: 1e4 / 1e6 / 2.25, TotalPerH: 2.25} // n_tot = P/kT at 10^6 K
+		ct, err := p.TimeToCool(Isobaric, g, 1e6, 1000, 1000)
+		if err != nil || !(float64(ct.Time) > 0) || math.IsInf(float64(ct.Time), 0) {
+			t.Errorf("At(%g).TimeToCool(isobaric, 1e6 → 1000 K, floor 1000 K) = %+v, %v; want a finite time", tc.z, ct, err)
+		}
+		to1e4, _ := p.TimeToCool(Isobaric, g, 1e6, 1e4, 1000)
+		if !(ct.Time > to1e4.Time) {
+			t.Errorf("At(%g): TimeToCool to 1000 K = %g s, not above the time to 10^4 K, %g s", tc.z, float64(ct.Time), float64(to1e4.Time))
+		}
+		q := model.Params{Chi: 3000, Mach: 1, Pressure: 1e4, TCloud: 1000, RCloud: 0.5 * model.Parsec, Metallicity: tc.z}
+		r, err := model.Evaluate(q, p, model.BuiltinCriteria())
+		if err != nil {
+			t.Fatal(err)
+		}
+		if tcool := float64(r.TCoolCold); !(tcool > 0) || math.IsInf(tcool, 0) {
+			t.Errorf("Evaluate(cold clump, Z = %g).TCoolCold = %g s, want finite", tc.z, tcool)
+		}
+		for _, c := range r.Cautions {
+			if c.Field == model.FieldTCloud {
+				t.Errorf("Evaluate(cold clump, Z = %g) caution %q, want none about T_cl", tc.z, c.Message)
+			}
 		}
 	}
 }
 
-// TestBuiltinIntegralAcrossJoin checks the exact integrals and cooling
+// TestBuiltinIntegralAcrossCap checks the exact integrals and cooling
 // times on the built-in curve against Gauss–Legendre quadrature of its
 // own nodes (the quadrature does not use the code under test; cooling
-// reference §8 row 13: 1e-12 relative), over ranges that cross 10^4 K and
-// T_j, and over the whole table.
-func TestBuiltinIntegralAcrossJoin(t *testing.T) {
+// reference §8 row 13: 1e-12 relative), over ranges that cross T_cap and
+// 10^4 K, and over the whole table.
+func TestBuiltinIntegralAcrossCap(t *testing.T) {
 	b := biMustBuiltin(t)
 	for _, z := range []float64{0, 0.1, 1, 10} {
-		p, err := b.At(z)
-		if err != nil {
-			t.Fatal(err)
-		}
-		tj, _ := b.JoinTemperature(z)
+		p := mustAt(t, b, z)
+		tc, _ := b.CapTemperature(z)
 		xs, ys := p.Nodes()
 		c := twCurve{p: p, xs: xs, ys: ys}
 		for i := 0; i+1 < len(xs); i++ {
 			c.slopes = append(c.slopes, (ys[i+1]-ys[i])/(xs[i+1]-xs[i]))
 		}
 		for _, r := range [][2]float64{
+			{float64(tc) / 1.01, float64(tc) * 1.01},
+			{float64(tc) / 1.5, math.Pow(10, 4.3)},
 			{math.Pow(10, 3.9), math.Pow(10, 4.3)},
-			{float64(tj) / 1.01, float64(tj) * 1.01},
-			{1e4, float64(tj)},
+			{float64(tc), 1e4},
 			{1000, 1e6},
 			{10, 1e8},
 		} {
@@ -292,8 +384,8 @@ func TestBuiltinIntegralAcrossJoin(t *testing.T) {
 }
 
 // BenchmarkTimeToCoolBuiltin times one isobaric cooling time on the
-// built-in curve from 10^8 K to 10^3 K: 500 segments, the KI02 part and
-// the join included.
+// built-in curve from 10^8 K to 10^3 K: 500 segments, the KI02 part, the
+// cap node and 10^4 K included.
 func BenchmarkTimeToCoolBuiltin(b *testing.B) {
 	bi := biMustBuiltin(b)
 	p, err := bi.At(1)
@@ -309,7 +401,7 @@ func BenchmarkTimeToCoolBuiltin(b *testing.B) {
 }
 
 // BenchmarkLambdaBuiltin measures one Λ(T) lookup on the built-in curve
-// (702 nodes, not evenly spaced because of the join node), 10 K to 10^8 K.
+// (702 nodes, not evenly spaced because of the cap node), 10 K to 10^8 K.
 func BenchmarkLambdaBuiltin(b *testing.B) {
 	bi := biMustBuiltin(b)
 	p, err := bi.At(1)

@@ -152,9 +152,10 @@ func TestSutherlandDopita93(t *testing.T) {
 		rows []sdCheck
 	}{
 		{"m-00.cie", 1, []sdCheck{
-			// §12.1 row 4.00: KI02's plateau, 4.26e-24, against SD93's
-			// collapsing CIE, 2.2e-26: 190× (measured).
-			{logT: 4.00, ne: "0.0023", net: -25.65, norm: -23.06, ratio: 190.2},
+			// §12.1 row 4.00: the built-in's CIE value at 10^4 K, 1.22e-26
+			// (the bottom CIE node; the cap of the KI02 part), against
+			// SD93's 2.24e-26, both collapsing there: 0.546 (measured).
+			{logT: 4.00, ne: "0.0023", net: -25.65, norm: -23.06, ratio: 0.5462},
 			{logT: 4.20, ne: "0.568", net: -21.99, norm: -21.79, ratio: 0.8734}, // §12.1 row 4.20; measured
 			// §12.1 row 5.00: SD93 solar 2.1× the built-in (measured 0.479;
 			// §12.1 reported 2.2× before the He II change).

@@ -34,8 +34,8 @@ const DefaultSpec = "builtin"
 // summary each.
 func Names() []struct{ Name, Summary string } {
 	return []struct{ Name, Summary string }{
-		{"builtin", "CIE (KWH96+Voronov H+He, CHIANTI-fit metals) and KI02 below 10^4 K, scaled by --metallicity (default)"},
-		{"builtin-hhe", "builtin without metals: H+He CIE, and KI02's Lyα term below 10^4 K"},
+		{"builtin", "CIE (KWH96+Voronov H+He, CHIANTI-fit metals) from 10^4 K; below, KI02 capped at the CIE value at 10^4 K; scaled by --metallicity (default)"},
+		{"builtin-hhe", "builtin without metals: H+He CIE from 10^4 K; below, KI02's Lyα term, capped the same way"},
 		{"hhe-kwh96", "H+He with the KWH96 rates as published (Cen's factor on He+ excitation), for comparison"},
 		{"rosen-bregman-1995", "historical fit (Rosen & Bregman 1995), 300 K–10^9 K"},
 		{"tozzi-norman-2001", "historical fit for Z = 0.3 Z☉ (Tozzi & Norman 2001), kT ≥ 0.1 keV"},
@@ -99,7 +99,7 @@ func Resolve(flag, spec string, table []string, open Opener) (*Source, error) {
 		}
 		m0, _ := b.At(1)
 		meta := m0.Meta()
-		return &Source{Spec: spec, Desc: "built-in (CIE: KWH96+V97 H+He, CHIANTI-fit metals; KI02 below 1e4 K), metals scaled with Z", Meta: &meta,
+		return &Source{Spec: spec, Desc: "built-in (CIE from 1e4 K: KWH96+V97 H+He, CHIANTI-fit metals; below, KI02 capped at the CIE value at 1e4 K), metals scaled with Z", Meta: &meta,
 			ZDependent: true, at: b.At, NeOverNH: neBuiltin}, nil
 	case "builtin-hhe":
 		b, err := builtinCurve()

@@ -18,17 +18,17 @@ func spNoFiles(t *testing.T) Opener {
 }
 
 // TestResolveBuiltinLowTemperature checks what the commands get for the
-// built-in names: the KI02 part and the join named in Meta, the range from
+// built-in names: the capped KI02 part named in Meta, the range from
 // 10 K, and n_e/n_H given only where the curve is CIE (NaN, "not known",
-// below 10^4 K, where it is KI02's).
+// below 10^4 K, where it is KI02's or the cap).
 func TestResolveBuiltinLowTemperature(t *testing.T) {
 	for _, spec := range []string{"builtin", "builtin-hhe"} {
 		src, err := Resolve("--cooling", spec, nil, spNoFiles(t))
 		if err != nil {
 			t.Fatalf("Resolve(%q): %v", spec, err)
 		}
-		if !strings.Contains(src.Meta.Name, "KI02") || !strings.Contains(src.Meta.Citation, "Koyama & Inutsuka 2002") {
-			t.Errorf("Resolve(%q).Meta = %q / %q, want KI02 named", spec, src.Meta.Name, src.Meta.Citation)
+		if !strings.Contains(src.Meta.Name, "KI02") || !strings.Contains(src.Meta.Name, "capped") || !strings.Contains(src.Meta.Citation, "Koyama & Inutsuka 2002") {
+			t.Errorf("Resolve(%q).Meta = %q / %q, want the capped KI02 named", spec, src.Meta.Name, src.Meta.Citation)
 		}
 		cf, err := src.Function(1)
 		if err != nil {
