@@ -6,6 +6,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"sync"
@@ -16,45 +17,10 @@ import (
 	"cloudwind/model"
 )
 
-// The CHIANTI reference curves (Ryden & Pogge 2021, CC-BY-4.0) are read from
-// ../shared/reference/cie-cooling-chianti/ beside the module, or from
-// $CLOUDWIND_REFERENCE_DIR (the reference directory holding
-// cie-cooling-chianti/, or that directory itself). They are never copied
-// into the repository (cooling reference §7).
-
-// biChiantiDir returns the directory of the CHIANTI curves. When they are
-// missing the test fails if CI=true and is skipped otherwise.
+// biChiantiDir returns the directory of the CHIANTI curves (chiantiDir).
 func biChiantiDir(t testing.TB) string {
 	t.Helper()
-	var cands []string
-	if d := os.Getenv("CLOUDWIND_REFERENCE_DIR"); d != "" {
-		cands = append(cands, filepath.Join(d, "cie-cooling-chianti"), d)
-	}
-	if dir, err := os.Getwd(); err == nil {
-		for {
-			if _, err := os.Stat(filepath.Join(dir, "go.mod")); err == nil {
-				cands = append(cands, filepath.Join(dir, "..", "shared", "reference", "cie-cooling-chianti"))
-				break
-			}
-			parent := filepath.Dir(dir)
-			if parent == dir {
-				break
-			}
-			dir = parent
-		}
-	}
-	for _, d := range cands {
-		if _, err := os.Stat(filepath.Join(d, "cooling_z1.txt")); err == nil {
-			return d
-		}
-	}
-	msg := "CHIANTI reference curves not found (looked in " + strings.Join(cands, ", ") +
-		"); set CLOUDWIND_REFERENCE_DIR"
-	if os.Getenv("CI") == "true" {
-		t.Fatal(msg)
-	}
-	t.Skip(msg)
-	return ""
+	return chiantiDir(t)
 }
 
 // biChiantiCurve is one CHIANTI file: log10 T and log10 Λ_total per n_e n_H.
@@ -122,45 +88,13 @@ func biMustBuiltin(t testing.TB) *Builtin {
 // biAt10 returns 10^x as a Temperature.
 func biAt10(x float64) model.Temperature { return model.Temperature(math.Pow(10, x)) }
 
-// biKnownDeviation is a band of log10 T where the built-in misses an
-// accuracy target, measured and explained. Inside it the test still
-// asserts the measured error (rounded up), so the deviation cannot grow
-// unnoticed; outside it the target applies.
-type biKnownDeviation struct {
-	file   string  // CHIANTI file
-	lo, hi float64 // log10 T band
-	bound  float64 // measured largest error there, rounded up
-}
-
-// biDeviations lists where the targets are not met. The cause is the
-// KWH96 (Cen 1992) H+He set: its He+ collisional excitation, the only He+
-// line cooling it has, is 0.57–0.69 of the CHIANTI He line cooling from
-// 10^4.75 to 10^6 K (measured against the He column of cooling_z1.txt;
-// cooling reference §10.1 reports the same shortfall against Cloudy). No
-// sourced correction is available here, and the curve is not rescaled.
-var biDeviations = []biKnownDeviation{
-	// Z = 0.1: 23.2% low at 10^4.88 K (measured), target 20%.
-	{"cooling_z0.1.txt", 4.815, 4.955, 0.235},
-	// H+He alone: 35.2% low at 10^4.86 K against the Z = 0.001 file
-	// (measured), target 35%; 34.9% against its metal-free part.
-	{"cooling_z0.001.txt", 4.845, 4.885, 0.355},
-}
-
-// biTolerance returns the tolerance at log10 T = x for a CHIANTI file: the
-// target, or the bound of a known deviation covering x.
-func biTolerance(file string, x, target float64) float64 {
-	for _, d := range biDeviations {
-		if d.file == file && x >= d.lo && x <= d.hi {
-			return d.bound
-		}
-	}
-	return target
-}
-
 // TestBuiltinAgainstChianti checks the built-in total against the CHIANTI
 // curves converted to n_H² with the built-in's n_e/n_H, from 10^4.3 to
-// 10^8 K, at Z = 0.1, 0.316, 1, 3.16 and 10. Target: 20% (the project's
-// accuracy requirement for the built-in), apart from biDeviations.
+// 10^8 K, at Z = 0.1, 0.316, 1, 3.16 and 10. Target: 20% at every node
+// (the project's accuracy requirement for the built-in; common practice,
+// no source), no exceptions. Measured largest errors (He+ excitation
+// without Cen's factor): Z = 0.1 16.4% high at 10^5.03 K, 0.316 8.4% at
+// 10^5.02 K, 1 5.2% at 10^7.94 K, 3.16 6.0% and 10 8.7% at 10^8 K.
 // The effective Z of the files labelled z0.5 and z5 are 10^-0.5 and
 // 10^0.5 (cooling reference §7 table).
 func TestBuiltinAgainstChianti(t *testing.T) {
@@ -192,8 +126,8 @@ func TestBuiltinAgainstChianti(t *testing.T) {
 			if e > worst {
 				worst, where = e, x
 			}
-			if tol := biTolerance(tc.file, x, target); e > tol {
-				t.Errorf("At(%.3g).Lambda(10^%.2f K) = %.4g, want %.4g ± %.1f%% (%s × n_e/n_H)", tc.z, x, got, ref, 100*tol, tc.file)
+			if e > target {
+				t.Errorf("At(%.3g).Lambda(10^%.2f K) = %.4g, want %.4g ± %.0f%% (%s × n_e/n_H)", tc.z, x, got, ref, 100*target, tc.file)
 			}
 		}
 		t.Logf("Z = %.3g (%s): largest error %.1f%% at 10^%.2f K", tc.z, tc.file, 100*worst, where)
@@ -202,12 +136,13 @@ func TestBuiltinAgainstChianti(t *testing.T) {
 
 // TestBuiltinHHeAgainstChianti checks the H+He part alone against the
 // Z = 0.001 CHIANTI curve (file values × n_e/n_H) from 1.5×10^4 to 10^8 K.
-// Target: 35% (requirement). H+He alone has no metals, so the target is
-// asserted against the metal-free part of that curve, Λ_z0.001 − 0.001
-// Λ_met with Λ_met from the files themselves (biChiantiMetals). Against
-// the file as it stands, whose 0.001 Z☉ of metals add up to 0.8% near
-// 10^4.9 K, the error is also asserted: the target, apart from
-// biDeviations.
+// Target: 35% at every node (requirement; common practice, no source),
+// asserted both against the metal-free part of that curve, Λ_z0.001 −
+// 0.001 Λ_met with Λ_met from the files themselves (biChiantiMetals), and
+// against the file as it stands, whose 0.001 Z☉ of metals add up to about
+// 1% near 10^5 K. Measured: 32.4% high at 10^5.12 K against the
+// metal-free part, 30.8% at 10^5.10 K against the file; the cause is the
+// KWH96 He+ ionisation fraction (see TestHepExcitationGnatFerland).
 func TestBuiltinHHeAgainstChianti(t *testing.T) {
 	b := biMustBuiltin(t)
 	const target = 0.35 // requirement
@@ -226,12 +161,12 @@ func TestBuiltinHHeAgainstChianti(t *testing.T) {
 			if e > worst[k] {
 				worst[k], where[k] = e, x
 			}
-			tol, what := target, "the metal-free part of "+file
+			what := "the metal-free part of " + file
 			if k == 1 {
-				tol, what = biTolerance(file, x, target), file
+				what = file
 			}
-			if e > tol {
-				t.Errorf("HHe().Lambda(10^%.2f K) = %.4g, want %.4g ± %.1f%% (%s × n_e/n_H)", x, got, ref, 100*tol, what)
+			if e > target {
+				t.Errorf("HHe().Lambda(10^%.2f K) = %.4g, want %.4g ± %.0f%% (%s × n_e/n_H)", x, got, ref, 100*target, what)
 			}
 		}
 	}
@@ -287,33 +222,72 @@ func TestBuiltinAtErrors(t *testing.T) {
 	}
 }
 
-// TestBuiltinLinearInZ checks Λ(Z) = Λ_H+He + Z Λ_met at every node
-// (derived: the definition, cooling reference §6), At(0) = HHe(), and the
-// node grid 10^4–10^8 K at 0.01 dex.
+// TestBuiltinLinearInZ checks that Λ(Z) is built from parts linear in Z
+// (derived: the definitions, cooling reference §6 and Builtin): on the
+// KI02 nodes below T_cap, Λ = Λ_Lyα + Z Λ_fs; on the nodes from T_cap to
+// 10^4 K, the cap Λ_H+He(10^4 K) + Z Λ_met(10^4 K); on the CIE nodes,
+// Λ = Λ_H+He + Z Λ_met; At(0) = HHe(); and the node grid: 0.01 dex from
+// 10 K to 10^8 K plus the cap node.
 func TestBuiltinLinearInZ(t *testing.T) {
 	b := biMustBuiltin(t)
 	const tol = 1e-12 // rounding of the log10 round trip
-	xH, yH := b.HHe().Nodes()
-	_, yM := b.Metals().Nodes()
-	if len(xH) != 401 || xH[0] != 4 || xH[400] != 8 || math.Abs(xH[123]-5.23) > 1e-15 {
-		t.Fatalf("HHe().Nodes() has %d nodes from 10^%g to 10^%g K, want 401 from 10^4 to 10^8 K at 0.01 dex", len(xH), xH[0], xH[len(xH)-1])
+	xM, yM := b.Metals().Nodes()
+	if len(xM) != 401 || xM[0] != 4 || xM[400] != 8 || math.Abs(xM[123]-5.23) > 1e-15 {
+		t.Fatalf("Metals().Nodes() has %d nodes from 10^%g to 10^%g K, want 401 from 10^4 to 10^8 K at 0.01 dex", len(xM), xM[0], xM[len(xM)-1])
+	}
+	h0, h1 := b.HHe(), mustAt(t, b, 0)
+	if x0, y0 := h0.Nodes(); !slices.Equal(x0, h1.log10T) || !slices.Equal(y0, h1.log10L) {
+		t.Errorf("HHe() differs from At(0)")
+	}
+	cie := func(j int, z float64) float64 {
+		_, c := PrimordialCIE(model.Temperature(math.Pow(10, xM[j])), BuiltinHeliumRatio, PrimordialOptions{})
+		return float64(c.Total()) + z*math.Pow(10, yM[j])
 	}
 	for _, z := range []float64{0, 0.1, 1, 3.16, 30} {
-		p, err := b.At(z)
-		if err != nil {
-			t.Fatalf("At(%g) error: %v", z, err)
-		}
+		p := mustAt(t, b, z)
+		tc, _ := b.CapTemperature(z)
+		xc := math.Log10(float64(tc))
 		x, y := p.Nodes()
+		if len(x) != 702 || x[0] != 1 || x[len(x)-1] != 8 {
+			t.Fatalf("At(%g).Nodes() has %d nodes from 10^%g to 10^%g K, want 702 from 10 K to 10^8 K", z, len(x), x[0], x[len(x)-1])
+		}
+		off := 0
 		for i := range x {
-			want := math.Pow(10, yH[i]) + z*math.Pow(10, yM[i])
-			if got := math.Pow(10, y[i]); math.Abs(got/want-1) > tol || x[i] != xH[i] {
-				t.Fatalf("At(%g) node %d: Λ(10^%g K) = %.15g, want Λ_HHe + Z Λ_met = %.15g", z, i, x[i], got, want)
+			if math.Abs(x[i]*100-math.Round(x[i]*100)) > 1e-9 {
+				off++
+				if math.Abs(x[i]-xc) > 1e-12 {
+					t.Errorf("At(%g) node %d at 10^%.6f K, off the 0.01-dex grid and not T_cap = 10^%.6f K", z, i, x[i], xc)
+				}
+			}
+			var want float64
+			switch {
+			case x[i] < xc:
+				lya, fs := ki02Terms(math.Pow(10, x[i]))
+				want = lya + z*fs
+			case x[i] < 4:
+				want = cie(0, z) // the cap
+			default:
+				j := int(math.Round((x[i] - 4) * 100))
+				want = cie(j, z)
+			}
+			if got := math.Pow(10, y[i]); math.Abs(got/want-1) > tol {
+				t.Fatalf("At(%g) node %d: Λ(10^%g K) = %.15g, want %.15g", z, i, x[i], got, want)
 			}
 		}
-		if lo, hi := p.ValidRange(); math.Abs(float64(lo)/1e4-1) > 1e-12 || math.Abs(float64(hi)/1e8-1) > 1e-12 {
-			t.Errorf("At(%g).ValidRange() = %g, %g K, want 1e4, 1e8 K", z, float64(lo), float64(hi))
+		if off != 1 {
+			t.Errorf("At(%g) has %d nodes off the 0.01-dex grid, want 1 (T_cap)", z, off)
 		}
 	}
+}
+
+// mustAt returns b.At(z) or fails the test.
+func mustAt(t *testing.T, b *Builtin, z float64) *PowerLaw {
+	t.Helper()
+	p, err := b.At(z)
+	if err != nil {
+		t.Fatalf("At(%g) error: %v", z, err)
+	}
+	return p
 }
 
 // TestBuiltinMeta checks the metadata the UI shows.
@@ -328,21 +302,37 @@ func TestBuiltinMeta(t *testing.T) {
 		m.Normalisation != PerNeNH || m.Historical || len(m.Warnings) != 0 {
 		t.Errorf("At(0.3).Meta() = %+v, want Z 0.3, y %g, GS98, nenH, not historical, no warnings", m, BuiltinHeliumRatio)
 	}
-	for _, want := range []string{"Katz, Weinberg & Hernquist", "Voronov 1997", "Ryden & Pogge 2021", "CC-BY-4.0", "derived work"} {
+	for _, want := range []string{"Katz, Weinberg & Hernquist", "Voronov 1997", "Ryden & Pogge 2021", "CC-BY-4.0", "derived work",
+		"Black 1981, MNRAS 197, 553", "Koyama & Inutsuka 2002, ApJ 564, L97", "unverified against the paper"} {
 		if !strings.Contains(m.Citation, want) {
 			t.Errorf("At(0.3).Meta().Citation = %q, want it to contain %q", m.Citation, want)
 		}
 	}
 	caveats := strings.Join(m.Caveats, "\n")
-	for _, want := range []string{CaveatCIE, "metal electrons are neglected", "metal fit reproduces the CHIANTI metal part within"} {
+	// The low-temperature part: what it is, what it leaves out, the cap
+	// (T_cap(0.3) = 5396 K and the cap 7.9e-27, measured; KI02 536 times
+	// CIE at 10^4 K, measured) and the floor.
+	for _, want := range []string{"at and above 1e4 K: " + CaveatCIE, "results for T_cl ≥ 1e4 K are as before",
+		"metal electrons are neglected", "metal fit reproduces the CHIANTI metal part within",
+		"not CIE", "heating rate of 2e-26 erg/s", "no ionising background", "min(KI02, the CIE value at 1e4 K, 7.9e-27 erg cm³ s⁻¹)",
+		"so that the CIE curve stays unchanged at and above 1e4 K", "KI02 up to T_cap = 5396 K", "discards KI02 between 5396 K and 1e4 K",
+		"536 times CIE at 1e4 K", "ionised by more than collisions, with a heating term not included",
+		"fine-structure term (metal cooling) is scaled by Z", "Λ = 0 below T_floor"} {
 		if !strings.Contains(caveats, want) {
 			t.Errorf("At(0.3).Meta().Caveats = %q, want one containing %q", m.Caveats, want)
 		}
 	}
+	if !strings.Contains(m.Name, "built-in CIE, Z = 0.3 Z☉") || !strings.Contains(m.Name, "below 1e4 K KI02, capped") {
+		t.Errorf("At(0.3).Meta().Name = %q, want CIE and the capped KI02 named", m.Name)
+	}
+	if mm := strings.Join(b.Metals().Meta().Caveats, "\n"); strings.Contains(mm, "KI02") || !strings.Contains(mm, CaveatCIE) {
+		t.Errorf("Metals().Meta().Caveats = %q, want the CIE caveats only", b.Metals().Meta().Caveats)
+	}
 	// Each call has its own slices.
+	first := m.Caveats[0]
 	m.Caveats[0] = "changed"
-	if q, _ := b.At(0.3); q.Meta().Caveats[0] != CaveatCIE {
-		t.Errorf("At(0.3).Meta().Caveats[0] = %q after a caller changed another copy, want %q", q.Meta().Caveats[0], CaveatCIE)
+	if q, _ := b.At(0.3); q.Meta().Caveats[0] != first {
+		t.Errorf("At(0.3).Meta().Caveats[0] = %q after a caller changed another copy, want %q", q.Meta().Caveats[0], first)
 	}
 	if q, _ := b.At(0); q.Meta().Normalisation != PerNH2 {
 		t.Errorf("At(0).Meta().Normalisation = %v, want nH2 (no tabulated metal part)", q.Meta().Normalisation)

@@ -1,7 +1,9 @@
 // Package cooling provides cooling functions Λ(T, Z) for cloudwind: a
-// built-in collisional-ionisation-equilibrium curve computed from published
-// rates and a fit, historical fits for comparison, the user's own tables,
-// and exact cooling times.
+// built-in curve (collisional ionisation equilibrium from published rates
+// and a fit from 10^4 K, and from 10 K to 10^4 K the Koyama & Inutsuka 2002
+// fit for neutral gas capped at the CIE value at 10^4 K; see Builtin),
+// historical fits for comparison, the user's own tables, and exact cooling
+// times.
 //
 // Every curve has one canonical form, *PowerLaw: a piecewise power law in
 // log10 T – log10 Λ with Λ per n_H² in erg cm³ s⁻¹, which satisfies

@@ -60,7 +60,7 @@ func RosenBregman95Lambda(t model.Temperature) model.CoolingRate {
 func RosenBregman95() (*PowerLaw, error) {
 	meta := Meta{
 		Name:          "Rosen & Bregman 1995 (historical fit)",
-		Citation:      "Rosen & Bregman 1995 (coefficients via public code, cooling reference §4.3)",
+		Citation:      "Rosen & Bregman 1995, ApJ 440, 634 (journal reference from memory; coefficients via several public code files, unverified against the paper)",
 		Normalisation: PerN2,
 		Metallicity:   math.NaN(), // not stated in the cooling reference
 		Historical:    true,
@@ -139,7 +139,7 @@ func TozziNorman01() (*PowerLaw, error) {
 	}
 	meta := Meta{
 		Name:          "Tozzi & Norman 2001, Z = 0.3 Z☉ (historical fit)",
-		Citation:      "Tozzi & Norman 2001 (coefficients via public code, cooling reference §4.3)",
+		Citation:      "Tozzi & Norman 2001, ApJ 546, 63 (journal reference from memory; coefficients via public code, unverified against the paper)",
 		Normalisation: PerNeNH,
 		HeliumRatio:   0, // not stated by the source; the conversion uses 0.0851
 		Metallicity:   0.3,

@@ -10,7 +10,9 @@ import (
 // Primordial (hydrogen + helium) cooling in collisional ionisation
 // equilibrium, from the rate coefficients of Cen (1992) as adopted by Katz,
 // Weinberg & Hernquist (1996, KWH96), with Voronov (1997) for the collisional
-// ionisation of H by default (cooling reference §4.1 and §5.3).
+// ionisation of H by default (cooling reference §4.1 and §5.3), and by
+// default without Cen's factor (1 + T_5^{1/2})⁻¹ on the He+ excitation
+// cooling (HepBlack81; cooling reference §12.2).
 //
 // Provenance of the coefficients: the original KWH96 table was not viewed.
 // The ionisation and recombination rates are those of a table adapted from
@@ -48,10 +50,53 @@ func (h HIonisation) String() string {
 	return fmt.Sprintf("HIonisation(%d)", int(h))
 }
 
+// HepExcitation selects the form of the He+ collisional-excitation
+// cooling coefficient,
+//
+//	5.54e-17 T^-0.397 exp(−473638/T) erg cm³ s⁻¹   (× n_e n_He+),
+//
+// with or without Cen's (1992) factor (1 + T_5^{1/2})⁻¹.
+type HepExcitation int
+
+const (
+	// HepBlack81 is the coefficient without Cen's factor, the form usually
+	// attributed to Black (1981, MNRAS 197, 553); that attribution is
+	// SECONDARY (a public code's documentation) and from memory, not read
+	// in Black's paper. It gives 0.90–1.02 of the He+ cooling efficiency of
+	// Gnat & Ferland (2012, ApJS 199, 20, Table 1B, helium) from 7.1×10^4
+	// to 1.24×10^5 K, where the factor leaves 0.43–0.55 (measured against
+	// the rows of their table). The default.
+	HepBlack81 HepExcitation = iota
+	// HepKWH96 is the coefficient with Cen's factor, as Cen (1992) and
+	// KWH96 publish it, for comparison: it makes the H+He curve 25–35% low
+	// between 5×10^4 and 3×10^5 K against Cloudy- and CHIANTI-based curves.
+	HepKWH96
+)
+
+// String returns "Black 1981 form" or "KWH96".
+func (h HepExcitation) String() string {
+	switch h {
+	case HepBlack81:
+		return "Black 1981 form"
+	case HepKWH96:
+		return "KWH96"
+	}
+	return fmt.Sprintf("HepExcitation(%d)", int(h))
+}
+
 // PrimordialOptions configures the primordial CIE solver. The zero value
-// is the default: Voronov (1997) for H ionisation.
+// is the default: Voronov (1997) for H ionisation and the He+ excitation
+// coefficient without Cen's factor (HepBlack81).
 type PrimordialOptions struct {
-	HIonisation HIonisation // H0 collisional ionisation rate; default (and any unknown value) VoronovH
+	HIonisation   HIonisation   // H0 collisional ionisation rate; default (and any unknown value) VoronovH
+	HepExcitation HepExcitation // He+ excitation cooling; default (and any unknown value) HepBlack81
+}
+
+// KWH96Options returns the rates of Cen (1992)/KWH96 as published: their H
+// ionisation rate and Cen's factor on the He+ excitation cooling. They give
+// the "hhe-kwh96" comparison curve.
+func KWH96Options() PrimordialOptions {
+	return PrimordialOptions{HIonisation: KWH96H, HepExcitation: HepKWH96}
 }
 
 // Ionisation is the ionisation state of hydrogen and helium. Hydrogen
@@ -234,7 +279,8 @@ func NeOverNH(t model.Temperature, y float64) float64 {
 // cooling terms are those of Cen (1992) as adopted by KWH96 (cooling
 // reference §4.1), each multiplied by its density product and divided by
 // n_H²; with VoronovH the H ionisation cooling is 13.6 eV × the Voronov
-// rate (cooling reference §4.1, §5.3).
+// rate (cooling reference §4.1, §5.3), and with HepBlack81 (the default)
+// the He+ excitation term lacks Cen's factor (see HepExcitation).
 //
 // Special cases are:
 //
@@ -259,8 +305,17 @@ func PrimordialCIE(t model.Temperature, y float64, opt PrimordialOptions) (Ionis
 	nH0, nHp := s.XH0, s.XHp                           // per n_H
 	nHe0, nHep, nHepp := y*s.XHe0, y*s.XHep, y*s.XHepp // per n_H
 	var c PrimordialCooling
-	c.ExcitationH0 = model.CoolingRate(7.50e-19 * math.Exp(-118348/T) * f * ne * nH0)                         // KWH96 via §4.1
-	c.ExcitationHep = model.CoolingRate(5.54e-17 * math.Pow(T, -0.397) * math.Exp(-473638/T) * f * ne * nHep) // KWH96 via §4.1
+	c.ExcitationH0 = model.CoolingRate(7.50e-19 * math.Exp(-118348/T) * f * ne * nH0) // KWH96 via §4.1
+	// He+ excitation: the KWH96 coefficient (via cooling reference §4.1,
+	// SECONDARY) with Cen's factor f only for HepKWH96; without it, the
+	// form attributed to Black (1981) (SECONDARY, from memory), which
+	// matches Gnat & Ferland (2012) Table 1B to 0.90–1.02 over
+	// 7×10^4–1.2×10^5 K (cooling reference §12.2; measured).
+	hep := 5.54e-17 * math.Pow(T, -0.397) * math.Exp(-473638/T)
+	if opt.HepExcitation == HepKWH96 {
+		hep *= f
+	}
+	c.ExcitationHep = model.CoolingRate(hep * ne * nHep)
 	if opt.HIonisation == KWH96H {
 		c.IonisationH0 = model.CoolingRate(1.27e-21 * sqrtT * math.Exp(-157809.1/T) * f * ne * nH0) // KWH96 via §4.1
 	} else {
@@ -295,9 +350,15 @@ func Primordial(y float64, opt PrimordialOptions) (*PowerLaw, error) {
 
 // primordialMeta describes the primordial curve.
 func primordialMeta(y float64, opt PrimordialOptions) Meta {
-	name, cite := "primordial CIE (KWH96+V97 H)", citeKWH96+"; "+citeVoronov
-	if opt.HIonisation == KWH96H {
-		name, cite = "primordial CIE (KWH96)", citeKWH96
+	name, cite := "primordial CIE (KWH96+V97 H, B81 He+ excitation)", citeKWH96+"; "+citeVoronov+"; "+citeBlack81
+	caveat := caveatHepBlack81
+	switch {
+	case opt.HIonisation == KWH96H && opt.HepExcitation == HepKWH96:
+		name, cite, caveat = "primordial CIE (KWH96 as published)", citeKWH96, caveatHepKWH96
+	case opt.HIonisation == KWH96H:
+		name, cite = "primordial CIE (KWH96 H, B81 He+ excitation)", citeKWH96+"; "+citeBlack81
+	case opt.HepExcitation == HepKWH96:
+		name, cite, caveat = "primordial CIE (KWH96+V97 H)", citeKWH96+"; "+citeVoronov, caveatHepKWH96
 	}
 	return Meta{
 		Name:          name,
@@ -308,8 +369,7 @@ func primordialMeta(y float64, opt PrimordialOptions) Meta {
 		Caveats: []string{
 			CaveatCIE,
 			"H+He rates of Cen (1992)/KWH96 from secondary sources (original table not viewed)",
-			"about 25-30% below Cloudy-based tables (cooling reference §10.1) and up to 35% below CHIANTI (measured) between 5e4 and 3e5 K, " +
-				"where KWH96 He+ excitation is the only He+ line cooling",
+			caveat,
 		},
 	}
 }
@@ -318,4 +378,16 @@ func primordialMeta(y float64, opt PrimordialOptions) Meta {
 const (
 	citeKWH96   = "Cen 1992, ApJS 78, 341, as adopted by Katz, Weinberg & Hernquist 1996 (rates via secondary sources)"
 	citeVoronov = "Voronov 1997 (H ionisation; coefficients from mocassin-data cion.dat, to be checked against the paper)"
+	citeBlack81 = "He+ excitation without Cen's factor: the form attributed to Black 1981, MNRAS 197, 553 " +
+		"(attribution secondary, from memory), checked against Gnat & Ferland 2012, ApJS 199, 20, Table 1B"
+)
+
+// Caveats on the He+ region, measured against the CHIANTI curves of Ryden &
+// Pogge (2021) and the helium table of Gnat & Ferland (2012).
+const (
+	caveatHepBlack81 = "He+ excitation without Cen's factor matches Gnat & Ferland 2012's He+ cooling efficiency to 0.90-1.02 " +
+		"at 7e4-1.2e5 K, but the KWH96 ionisation balance keeps about 1.5 times their He+ fraction at 1e5-1.7e5 K, " +
+		"so H+He is up to 32% above the metal-free CHIANTI curve near 1.3e5 K (measured)"
+	caveatHepKWH96 = "Cen's factor (1 + T_5^1/2)^-1 on He+ excitation, as published: 0.43-0.55 of Gnat & Ferland 2012's " +
+		"He+ cooling efficiency at 7e4-1.2e5 K, so H+He is up to 35% below the CHIANTI curves between 5e4 and 3e5 K (measured)"
 )

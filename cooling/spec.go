@@ -34,9 +34,9 @@ const DefaultSpec = "builtin"
 // summary each.
 func Names() []struct{ Name, Summary string } {
 	return []struct{ Name, Summary string }{
-		{"builtin", "CIE: KWH96+Voronov H+He and a CHIANTI fit for metals, scaled by --metallicity (default)"},
-		{"builtin-hhe", "the H+He part of builtin alone (metal-free)"},
-		{"hhe-kwh96", "H+He with the plain KWH96 hydrogen rates, for comparison"},
+		{"builtin", "CIE (KWH96+Voronov H+He, CHIANTI-fit metals) from 10^4 K; below, KI02 capped at the CIE value at 10^4 K; scaled by --metallicity (default)"},
+		{"builtin-hhe", "builtin without metals: H+He CIE from 10^4 K; below, KI02's Lyα term, capped the same way"},
+		{"hhe-kwh96", "H+He with the KWH96 rates as published (Cen's factor on He+ excitation), for comparison"},
 		{"rosen-bregman-1995", "historical fit (Rosen & Bregman 1995), 300 K–10^9 K"},
 		{"tozzi-norman-2001", "historical fit for Z = 0.3 Z☉ (Tozzi & Norman 2001), kT ≥ 0.1 keV"},
 	}
@@ -83,6 +83,14 @@ func Resolve(flag, spec string, table []string, open Opener) (*Source, error) {
 	ne := func(y float64) func(model.Temperature) float64 {
 		return func(t model.Temperature) float64 { return NeOverNH(t, y) }
 	}
+	// The built-in curves are not CIE below 10^4 K (KI02), where the CIE
+	// n_e/n_H would not describe them: NaN there, "not known".
+	neBuiltin := func(t model.Temperature) float64 {
+		if t < ki02Top {
+			return math.NaN()
+		}
+		return NeOverNH(t, BuiltinHeliumRatio)
+	}
 	switch spec {
 	case "builtin":
 		b, err := builtinCurve()
@@ -91,19 +99,16 @@ func Resolve(flag, spec string, table []string, open Opener) (*Source, error) {
 		}
 		m0, _ := b.At(1)
 		meta := m0.Meta()
-		return &Source{Spec: spec, Desc: "built-in CIE (KWH96+V97 H+He, CHIANTI-fit metals), metals scaled with Z", Meta: &meta,
-			ZDependent: true, at: b.At, NeOverNH: ne(BuiltinHeliumRatio)}, nil
-	case "builtin-hhe", "hhe-kwh96":
-		var p *PowerLaw
-		var err error
-		if spec == "builtin-hhe" {
-			var b *Builtin
-			if b, err = builtinCurve(); err == nil {
-				p = b.HHe()
-			}
-		} else {
-			p, err = Primordial(BuiltinHeliumRatio, PrimordialOptions{HIonisation: KWH96H})
+		return &Source{Spec: spec, Desc: "built-in (CIE from 1e4 K: KWH96+V97 H+He, CHIANTI-fit metals; below, KI02 capped at the CIE value at 1e4 K), metals scaled with Z", Meta: &meta,
+			ZDependent: true, at: b.At, NeOverNH: neBuiltin}, nil
+	case "builtin-hhe":
+		b, err := builtinCurve()
+		if err != nil {
+			return nil, err
 		}
+		return fixedCurve(spec, b.HHe(), neBuiltin), nil
+	case "hhe-kwh96":
+		p, err := Primordial(BuiltinHeliumRatio, KWH96Options())
 		if err != nil {
 			return nil, err
 		}

@@ -9,36 +9,13 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 )
 
-// Tests that read the CHIANTI reference set beside the repository
-// (cooling reference §7; never copied into it).
+// Tests that read the CHIANTI reference set (testdata/cie-cooling-chianti,
+// Ryden & Pogge 2021 companion data, CC-BY-4.0; see its README).
 
-// tblReferenceDir finds ../shared/reference beside the module root, or
-// $CLOUDWIND_REFERENCE_DIR. With CI=true a missing directory fails the test.
+// tblReferenceDir returns the directory of the CHIANTI curves (chiantiDir).
 func tblReferenceDir(t *testing.T) string {
 	t.Helper()
-	dir := os.Getenv("CLOUDWIND_REFERENCE_DIR")
-	if dir == "" {
-		wd, err := os.Getwd()
-		if err != nil {
-			t.Fatal(err)
-		}
-		for d := wd; ; d = filepath.Dir(d) {
-			if _, err := os.Stat(filepath.Join(d, "go.mod")); err == nil {
-				dir = filepath.Join(d, "..", "shared", "reference")
-				break
-			}
-			if filepath.Dir(d) == d {
-				break
-			}
-		}
-	}
-	if _, err := os.Stat(filepath.Join(dir, "cie-cooling-chianti")); dir == "" || err != nil {
-		if os.Getenv("CI") == "true" {
-			t.Fatalf("reference data not found (dir %q): set CLOUDWIND_REFERENCE_DIR", dir)
-		}
-		t.Skipf("reference data not found (dir %q)", dir)
-	}
-	return filepath.Join(dir, "cie-cooling-chianti")
+	return chiantiDir(t)
 }
 
 // TestTableChiantiReference loads the CHIANTI reference files by naming
