@@ -276,7 +276,7 @@ func (b *Builtin) meta(z, tcap float64) Meta {
 	cie4 := b.hhe[0] + z*b.met[0]             // the cap
 	tcs := model.FormatNumber(tcap, 4)
 	m := Meta{
-		Name:          fmt.Sprintf("built-in CIE, Z = %.3g Z☉ (KWH96+V97 H+He, CHIANTI-fit metals; below 1e4 K KI02, capped)", z),
+		Name:          fmt.Sprintf("built-in, Z = %.3g Z☉ (CIE from 1e4 K; KI02 below, capped)", z),
 		Citation:      "H+He: " + citeKWH96 + "; " + citeVoronov + "; " + citeBlack81 + "; " + citeChiantiFit + "; " + citeKI02,
 		Normalisation: PerNeNH,
 		HeliumRatio:   BuiltinHeliumRatio,
@@ -295,7 +295,7 @@ func (b *Builtin) meta(z, tcap float64) Meta {
 		}, b.cieCaveats()...),
 	}
 	if z == 0 {
-		m.Name = "built-in H+He, metal-free (CIE: KWH96+V97, B81 He+ excitation; below 1e4 K KI02 Lyα, capped)"
+		m.Name = "built-in H+He, metal-free (CIE from 1e4 K; KI02 Lyα below, capped)"
 		m.Citation = citeKWH96 + "; " + citeVoronov + "; " + citeBlack81 + "; " + citeKI02
 		m.Normalisation = PerNH2
 	}

@@ -322,7 +322,7 @@ func TestBuiltinMeta(t *testing.T) {
 			t.Errorf("At(0.3).Meta().Caveats = %q, want one containing %q", m.Caveats, want)
 		}
 	}
-	if !strings.Contains(m.Name, "built-in CIE, Z = 0.3 Z☉") || !strings.Contains(m.Name, "below 1e4 K KI02, capped") {
+	if !strings.Contains(m.Name, "built-in, Z = 0.3 Z☉ (CIE from 1e4 K") || !strings.Contains(m.Name, "KI02 below, capped") {
 		t.Errorf("At(0.3).Meta().Name = %q, want CIE and the capped KI02 named", m.Name)
 	}
 	if mm := strings.Join(b.Metals().Meta().Caveats, "\n"); strings.Contains(mm, "KI02") || !strings.Contains(mm, CaveatCIE) {

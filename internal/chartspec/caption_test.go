@@ -32,7 +32,7 @@ func TestCaptions(t *testing.T) {
 		}
 	}
 	r.CoolingName = ""
-	if c := Caption(r); !strings.Contains(c, "cooling: built-in CIE") {
+	if c := Caption(r); !strings.Contains(c, "cooling: built-in, Z = 1 Z☉ (CIE") {
 		t.Errorf("Caption without a cooling name = %q, want the table's name", c)
 	}
 }

@@ -71,12 +71,13 @@ metallicity = 0.5       # Z/Z_sun
 spec = "builtin"
 `
 
-// demoColdClump is a cloud at 10³ K, below the built-in cooling table,
-// so the explorer shows the cooling-table caution.
+// demoColdClump is a cloud at 10³ K, where the built-in curve is its
+// low-temperature part (Koyama & Inutsuka 2002, capped), in the regime of
+// Farber & Gronke 2022's three outcomes.
 const demoColdClump = `# cloudwind demo scenario: fictional, invented numbers
 [scenario]
 name = "Demo (fictional): cold dense clump below 1e4 K"
-description = "Invented numbers, no real object: a 1000 K clump at chi = 3000, below the built-in cooling table (from 1e4 K), so Lambda = 0 in the cloud; watch the table caution and the criteria calibrated on warmer clouds."
+description = "Invented numbers, no real object: a 1000 K clump at chi = 3000, where the built-in curve is Koyama & Inutsuka 2002's neutral-gas fit (capped, no heating); watch Farber & Gronke 2022's three outcomes and the criteria calibrated on warmer clouds."
 demo = true
 
 [inputs]
