@@ -17,7 +17,7 @@ import (
 const evolveSynopsis = `Usage: cloudwind evolve [scenario flags] [--until TCC] [--criterion ID|all] [evolution flags] [--format text|csv|ecsv|json]
 
 Integrate the semi-analytic evolution of the cloud: its mass m, velocity v
-and position x in the wind against t/t_cc (physics reference §6.5). The
+and position x in the wind against t/t_cc. The
 cloud grows by accreting cooled wind gas (ṁ = ρ_hot v_mix A, the mixing-layer
 scaling of Gronke & Oh 2020 and Tan et al. 2021) when the chosen criterion
 says it survives at its current radius, and loses mass on t_destroy = κ t_cc
