@@ -186,8 +186,8 @@ type Criterion struct {
 	// WarmTemperature is the temperature a colder cloud may be transformed to
 	// (~10⁴ K, Farber & Gronke 2022); 0 for two-outcome criteria.
 	WarmTemperature Temperature
-	Verified        bool    // true when α and β were checked against the paper
-	Status          string  // the verification status of α and β, for people
+	Verified        bool   // true when α and β were checked against the paper
+	Status          string // the verification status of α and β, for people
 	// Uncertainty is the factor ≥ 1 by which an unverified α may be off:
 	// r_crit is shown as a range from it. 0 means the default: 2 (×/÷ 2,
 	// cloudwind's choice) when Verified is false, 1 when it is true.
