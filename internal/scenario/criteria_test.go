@@ -248,14 +248,17 @@ func writeCriterion(b *strings.Builder, c model.Criterion) {
 		tomlString(c.Citation.ArXiv), tomlString(c.Citation.Equation))
 	fmt.Fprintf(b, "cooling_time = %s\ndynamical_time = %s\nalpha = %s\nbeta = %s\n", tomlString(c.Cool.String()),
 		tomlString(c.Dyn.String()), tomlNumber(c.Alpha), tomlNumber(c.Beta))
+	fmt.Fprintf(b, "f_mix = %s\nwarm_temperature = %s\nuncertainty = %s\n", tomlNumber(c.FMix), tomlNumber(float64(c.WarmTemperature)), tomlNumber(c.Uncertainty))
 	fmt.Fprintf(b, "verified = %v\nstatus = %s\nnote = %s\n[criterion.range]\n", c.Verified,
 		tomlString(c.Status), tomlString(c.Note))
 	for _, iv := range []struct {
 		key string
 		i   model.Interval
-	}{{"chi", c.Range.Chi}, {"mach", c.Range.Mach}, {"t_cloud", c.Range.TCloud}} {
+	}{{"chi", c.Range.Chi}, {"mach", c.Range.Mach}, {"t_cloud", c.Range.TCloud}, {"mach_turb", c.Range.MachTurb}} {
 		if !math.IsInf(iv.i.Min, 0) && !math.IsInf(iv.i.Max, 0) {
 			fmt.Fprintf(b, "%s = [%s, %s]\n", iv.key, tomlNumber(iv.i.Min), tomlNumber(iv.i.Max))
+		} else if iv.key == "mach_turb" && iv.i.IsUnbounded() {
+			fmt.Fprintf(b, "%s = [-inf, inf]\n", iv.key)
 		}
 	}
 	fmt.Fprintf(b, "status = %s\n\n", tomlString(c.Range.Status))
