@@ -19,7 +19,9 @@ const (
 var runOutcomeNames = [...]string{"destroyed", "survived", "grew", "transformed"}
 
 // RunOutcomes lists the outcomes in display order.
-func RunOutcomes() []RunOutcome { return []RunOutcome{RunGrew, RunSurvived, RunTransformed, RunDestroyed} }
+func RunOutcomes() []RunOutcome {
+	return []RunOutcome{RunGrew, RunSurvived, RunTransformed, RunDestroyed}
+}
 
 // String returns "destroyed", "survived", "grew" or "transformed".
 func (o RunOutcome) String() string {
