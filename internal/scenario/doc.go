@@ -122,6 +122,7 @@
 //	t_cloud = 1e4             # K
 //	radius = 10               # pc
 //	metallicity = 1           # Z/Z_sun
+//	mach_turb = 0             # turbulent Mach number of the hot gas (optional, default 0)
 //
 //	[conventions]             # every key optional; left out = the model default
 //	gamma = 1.6666666666666667
