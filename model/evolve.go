@@ -121,6 +121,9 @@ type cloudODE struct {
 	sqrtChi  float64 // χ^{1/2} = (v_w t_cc,0/r0)
 	ratio0   float64 // the criterion's ratio at r0; +Inf gives S = 0 always
 	thr      float64 // its threshold α (χ/100)^β
+	power    float64 // p in ratio ∝ r^{-p}: 1 for cooling times, 1/4 for t_grow
+	warm0    float64 // a three-outcome criterion's warm-gas ratio at r0 (∝ 1/r); +Inf when none
+	warmThr  float64 // its threshold
 	width    float64 // n of the smooth branch
 	smooth   bool
 	fragment bool
@@ -134,7 +137,14 @@ func (o *cloudODE) branch(rho float64) float64 {
 	if math.IsInf(o.ratio0, 1) {
 		return 0
 	}
-	u := o.ratio0 / (rho * o.thr) // ratio/threshold
+	rp := rho
+	if o.power != 1 {
+		rp = math.Pow(rho, o.power)
+	}
+	u := o.ratio0 / (rp * o.thr) // ratio/threshold
+	if w := o.warm0 / (rho * o.warmThr); w < u {
+		u = w // transformed to warm gas, which survives and grows (a three-outcome criterion)
+	}
 	if o.smooth {
 		return 1 / (1 + math.Pow(u, o.width)) // a modelling choice, not a published result (§6.5)
 	}
@@ -181,7 +191,7 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 	if err := c.Validate(); err != nil {
 		return nil, fmt.Errorf("evolve: criterion %q: %w", c.ID, err)
 	}
-	o := &cloudODE{sqrtChi: math.Sqrt(s.Params.Chi), width: set.Width, ratio0: math.Inf(1), thr: 1,
+	o := &cloudODE{sqrtChi: math.Sqrt(s.Params.Chi), width: set.Width, ratio0: math.Inf(1), thr: 1, power: 1, warm0: math.Inf(1), warmThr: 1,
 		smooth: set.Branch == BranchSmooth, fragment: set.Area == AreaFragmented}
 	mixCooling := s.Params.WithDefaults().MixCooling // the one growth model of the state
 	tc := s.CoolingTime(mixCooling)
@@ -206,7 +216,10 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 		if !(out.Ratio >= 0) || !(out.Threshold > 0) || math.IsInf(out.Threshold, 1) {
 			return nil, fmt.Errorf("evolve: criterion %q gives ratio %s and threshold %s", c.ID, num(out.Ratio), num(out.Threshold))
 		}
-		o.ratio0, o.thr = out.Ratio, out.Threshold
+		o.ratio0, o.thr, o.power = out.Ratio, out.Threshold, c.Cool.radiusPower()
+		if out.WarmRatio >= 0 && out.WarmThreshold > 0 {
+			o.warm0, o.warmThr = out.WarmRatio, out.WarmThreshold
+		}
 	}
 	return o, nil
 }

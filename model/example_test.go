@@ -28,10 +28,13 @@ func ExampleEvaluate() {
 	}
 	// Output:
 	// gronke-oh-2018      r_crit = 2.55   pc  destroyed
-	// li-2020             r_crit = 25.5   pc  destroyed
+	// li-2020             r_crit = 22.1   pc  destroyed
 	// sparre-2020         r_crit = 25.5   pc  destroyed
 	// abruzzo-2023        r_crit = 0.255  pc  survives-and-grows
 	// farber-gronke-2022  r_crit = 2.55   pc  destroyed
+	// tan-oh-gronke-2023  r_crit = 123    pc  destroyed
+	// turbulent-wind-2025 r_crit = 2.55   pc  destroyed
+	// turbulent-box       r_crit = 2.55   pc  destroyed
 	// adiabatic           no threshold       destroyed
 }
 
@@ -74,7 +77,7 @@ func ExampleCriterion_Threshold() {
 	fmt.Println(c.Formula())
 	fmt.Printf("%.3g\n", c.Threshold(1000))
 	// Output:
-	// t_cool,mix / t_cc < (χ/100)^-0.5
+	// t_cool,mix / t_cc < (χ/100)^-0.5; else transformed to 10000 K gas if that gas passes
 	// 0.316
 }
 
@@ -134,12 +137,18 @@ func ExampleComparePlans() {
 		fmt.Printf("  survive %v\n  destroy %v\n", c.Survive, c.Destroy)
 	}
 	// Output:
-	// [abruzzo-2023] vs [gronke-oh-2018 farber-gronke-2022]: r_cl = 0.807 pc for 16 t_cc on the branch of abruzzo-2023, 310 core-hours
+	// [abruzzo-2023] vs [gronke-oh-2018 farber-gronke-2022 turbulent-wind-2025 turbulent-box]: r_cl = 0.807 pc for 16 t_cc on the branch of abruzzo-2023, 310 core-hours
 	//   survive [abruzzo-2023]
-	//   destroy [gronke-oh-2018 li-2020 sparre-2020 farber-gronke-2022 adiabatic]
-	// [gronke-oh-2018 farber-gronke-2022] vs [li-2020 sparre-2020]: r_cl = 8.07 pc for 10 t_cc on the branch of gronke-oh-2018, 194 core-hours
-	//   survive [gronke-oh-2018 abruzzo-2023 farber-gronke-2022]
-	//   destroy [li-2020 sparre-2020 adiabatic]
+	//   destroy [gronke-oh-2018 li-2020 sparre-2020 farber-gronke-2022 tan-oh-gronke-2023 turbulent-wind-2025 turbulent-box adiabatic]
+	// [gronke-oh-2018 farber-gronke-2022 turbulent-wind-2025 turbulent-box] vs [li-2020]: r_cl = 7.51 pc for 10 t_cc on the branch of gronke-oh-2018, 194 core-hours
+	//   survive [gronke-oh-2018 abruzzo-2023 farber-gronke-2022 turbulent-wind-2025 turbulent-box]
+	//   destroy [li-2020 sparre-2020 tan-oh-gronke-2023 adiabatic]
+	// [li-2020] vs [sparre-2020]: r_cl = 23.8 pc for 10 t_cc on the branch of li-2020, 194 core-hours
+	//   survive [gronke-oh-2018 li-2020 abruzzo-2023 farber-gronke-2022 turbulent-wind-2025 turbulent-box]
+	//   destroy [sparre-2020 tan-oh-gronke-2023 adiabatic]
+	// [sparre-2020] vs [tan-oh-gronke-2023]: r_cl = 56.1 pc for 10 t_cc on the branch of sparre-2020, 194 core-hours
+	//   survive [gronke-oh-2018 li-2020 sparre-2020 abruzzo-2023 farber-gronke-2022 turbulent-wind-2025 turbulent-box]
+	//   destroy [tan-oh-gronke-2023 adiabatic]
 }
 
 // Evolve a 30 pc cloud in the fiducial wind. It lies above the

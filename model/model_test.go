@@ -406,7 +406,8 @@ func TestNoSilentNaN(t *testing.T) {
 }
 
 func TestBuiltinCriteria(t *testing.T) {
-	want := []string{"gronke-oh-2018", "li-2020", "sparre-2020", "abruzzo-2023", "farber-gronke-2022", "adiabatic"}
+	want := []string{"gronke-oh-2018", "li-2020", "sparre-2020", "abruzzo-2023", "farber-gronke-2022",
+		"tan-oh-gronke-2023", "turbulent-wind-2025", "turbulent-box", "adiabatic"}
 	cs := BuiltinCriteria()
 	if len(cs) != len(want) {
 		t.Fatalf("BuiltinCriteria() has %d criteria, want %d", len(cs), len(want))
@@ -423,7 +424,7 @@ func TestBuiltinCriteria(t *testing.T) {
 		}
 	}
 	// Physics reference §5.12: what it marks FROM MEMORY must be unverified here.
-	for _, id := range []string{"li-2020", "sparre-2020", "abruzzo-2023", "farber-gronke-2022"} {
+	for _, id := range []string{"li-2020", "sparre-2020", "abruzzo-2023", "farber-gronke-2022", "turbulent-box"} {
 		if c, _ := CriterionByID(cs, id); c.Verified {
 			t.Errorf("%s is marked verified; the reference has its constants from memory", id)
 		}
@@ -433,9 +434,12 @@ func TestBuiltinCriteria(t *testing.T) {
 func TestCriterionFormula(t *testing.T) {
 	cs := BuiltinCriteria()
 	for id, want := range map[string]string{
-		"gronke-oh-2018":     "t_cool,mix / t_cc < 1",
-		"abruzzo-2023":       "t_cool,minmix / t_shear < 1",
-		"farber-gronke-2022": "t_cool,mix / t_cc < (χ/100)^-0.5",
+		"gronke-oh-2018":      "t_cool,mix / t_cc < 1",
+		"abruzzo-2023":        "t_cool,minmix / t_shear < 1",
+		"farber-gronke-2022":  "t_cool,mix / t_cc < (χ/100)^-0.5; else transformed to 10000 K gas if that gas passes",
+		"tan-oh-gronke-2023":  "t_grow / t_cc < 4",
+		"li-2020":             "t_cool,shocked / t_cc < 10",
+		"turbulent-wind-2025": "t_cool,mix / t_cc,turb < 1, t_cc,turb = t_cc/(1 + (M_turb/(0.6 M))²)^1/2",
 	} {
 		c, _ := CriterionByID(cs, id)
 		if got := c.Formula(); got != want {

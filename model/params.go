@@ -46,14 +46,43 @@ const (
 	// analytic estimates use. It is a labelled convention, not a unit
 	// conversion; it gives cooling times shorter by (n_H/n)² ≈ 0.196.
 	N2
+	// NeNi uses 𝒩 = n_e n_i for fully ionised gas of the mixture's
+	// composition: n_e = n_H (1 + X)/(2X) and n_i = n_H (1 + Y/(4X)), metals
+	// neglected (standard approximations; the formulas are from memory, the
+	// A09 values 1.1774 and 1.0842 derived). It is the normalisation of
+	// Sutherland & Dopita 1993's Λ_N.
+	NeNi
 )
 
-// String returns "nh2" or "n2", the names used on the command line.
+// DensityProducts lists the density-product conventions, the default first.
+func DensityProducts() []DensityProduct { return []DensityProduct{NH2, N2, NeNi} }
+
+// String returns "nh2", "n2" or "neni", the names used on the command line.
 func (d DensityProduct) String() string {
-	if d == N2 {
+	switch d {
+	case N2:
 		return "n2"
+	case NeNi:
+		return "neni"
 	}
 	return "nh2"
+}
+
+// ParseDensityProduct parses the String form of a DensityProduct.
+func ParseDensityProduct(s string) (DensityProduct, error) {
+	for _, d := range DensityProducts() {
+		if d.String() == s {
+			return d, nil
+		}
+	}
+	return 0, fmt.Errorf("unknown density product %q (want nh2, n2 or neni)", s)
+}
+
+// electronIonPerH2 returns n_e n_i / n_H² for fully ionised gas with
+// hydrogen mass fraction x and helium-to-hydrogen mass ratio y/x:
+// (1 + X)/(2X) × (1 + Y/(4X)) (standard approximations, metals neglected).
+func electronIonPerH2(x, yOverX float64) float64 {
+	return (1 + x) / (2 * x) * (1 + yOverX/4)
 }
 
 // Params holds the inputs of a cloud-in-wind problem. A zero value in an
@@ -77,6 +106,11 @@ type Params struct {
 
 	HeatCapacity   HeatCapacity   // f in t_cool; default Isochoric (3/2)
 	DensityProduct DensityProduct // 𝒩 in t_cool; default NH2
+
+	// MachTurb is the turbulent Mach number of the hot gas, M_turb =
+	// σ_turb/c_s,hot; default 0 (no turbulence). It enters only the
+	// turbulent criteria (DynTurbulentCC).
+	MachTurb float64
 
 	// MixCooling is the cooling time on the cold side of the mixing layer:
 	// the one growth model of v_mix, t_grow, l_cool,cl and the evolution.
@@ -178,6 +212,7 @@ const (
 	FieldHeatCapacity     = "heat_capacity"
 	FieldDensityProduct   = "density_product"
 	FieldMixCooling       = "mix_cooling"
+	FieldMachTurb         = "mach_turb"
 )
 
 // Sentinel errors wrapped by FieldError.
@@ -244,6 +279,7 @@ var fieldRanges = map[string]fieldRange{
 	FieldMuCold:           {MinMu, MaxMu, false, 1, ""},
 	FieldMuHot:            {MinMu, MaxMu, false, 1, ""},
 	FieldHydrogenFraction: {MinHydrogenFrac, MaxHydrogenFrac, false, 1, ""},
+	FieldMachTurb:         {0, MaxMach, false, 1, ""},
 
 	// PlanSettings. The bounds catch typos, not physics: R from 1 to 10⁴,
 	// boxes from 2 r_cl (one cloud diameter), C in (0, 1].
@@ -329,6 +365,7 @@ func (p Params) Validate() error {
 		{FieldChi, p.Chi}, {FieldMach, p.Mach}, {FieldPressure, float64(p.Pressure)}, {FieldTCloud, float64(p.TCloud)},
 		{FieldRCloud, float64(p.RCloud)}, {FieldMetallicity, p.Metallicity}, {FieldGamma, q.Gamma}, {FieldMu, q.Mu},
 		{FieldMuCold, q.MuCold}, {FieldMuHot, q.MuHot}, {FieldHydrogenFraction, q.HydrogenFraction},
+		{FieldMachTurb, q.MachTurb},
 	} {
 		if err := CheckField(c.field, c.v); err != nil {
 			return err
@@ -348,7 +385,7 @@ func (p Params) Validate() error {
 	if q.MixCooling < CoolHot || q.MixCooling > CoolCold {
 		return &FieldError{FieldMixCooling, float64(q.MixCooling), fmt.Sprintf("unknown cooling time %d for the growth model (want hot, mix, minmix or cold)", q.MixCooling), ErrUnknown}
 	}
-	if q.DensityProduct != NH2 && q.DensityProduct != N2 {
+	if q.DensityProduct != NH2 && q.DensityProduct != N2 && q.DensityProduct != NeNi {
 		return &FieldError{FieldDensityProduct, float64(q.DensityProduct), fmt.Sprintf("unknown density-product convention %d", q.DensityProduct), ErrUnknown}
 	}
 	if th := HotTemperature(q.TCloud, q.Chi, q.MuCold, q.MuHot); th > MaxTHot {
@@ -382,6 +419,7 @@ var numericFields = [...]struct {
 	{FieldMuHot, func(p *Params) *float64 { return &p.MuHot }},
 	{FieldHydrogenFraction, func(p *Params) *float64 { return &p.HydrogenFraction }},
 	{FieldTFloor, func(p *Params) *float64 { return (*float64)(&p.TFloor) }},
+	{FieldMachTurb, func(p *Params) *float64 { return &p.MachTurb }},
 }
 
 // field returns a pointer to the numeric input named by a Field… name.

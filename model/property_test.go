@@ -98,10 +98,52 @@ func TestPropertiesEvaluate(t *testing.T) {
 				t.Fatalf("Evaluate(%+v): %s ratio %g, r_crit %g", p, cs[k].ID, o.Ratio, float64(o.RCrit))
 			}
 			rc := float64(o.RCrit)
-			if p.Mach*2 <= model.MaxMach && rc > 0 && !math.IsInf(rc, 0) {
+			c := &cs[k]
+			linear := c.Cool != model.CoolShocked && c.Cool != model.CoolGrow && c.Dyn != model.DynTurbulentCC
+			if linear && p.Mach*2 <= model.MaxMach && rc > 0 && !math.IsInf(rc, 0) {
 				if got := float64(r2.Outcomes[k].RCrit) / rc; math.Abs(got-2) > 1e-9 {
 					t.Fatalf("%s: r_crit(2M)/r_crit(M) = %.12g, want 2 (%+v)", cs[k].ID, got, p)
 				}
+			}
+		}
+	}
+}
+
+// TestPropertiesRoundTrip: every criterion evaluated at its own threshold
+// radius returns its threshold (the closed form of r_crit, derived), and
+// the uncertainty band brackets r_crit.
+func TestPropertiesRoundTrip(t *testing.T) {
+	b, err := cooling.NewBuiltin()
+	if err != nil {
+		t.Fatal(err)
+	}
+	rng := rand.New(rand.NewPCG(7, 8))
+	cs := model.BuiltinCriteria()
+	for i := 0; i < 500; i++ {
+		p := randomParams(rng)
+		p.MachTurb = rng.Float64()
+		if p.Validate() != nil {
+			continue
+		}
+		r, err := model.Evaluate(p, builtinAt(t, b, p.Metallicity), cs)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for k, o := range r.Outcomes {
+			if !o.HasThreshold() || o.RCrit < model.MinRCloud || o.RCrit > model.MaxRCloud {
+				continue
+			}
+			if !(o.RCritLow <= o.RCrit && o.RCrit <= o.RCritHigh) {
+				t.Fatalf("%s: band [%g, %g] does not hold r_crit %g", cs[k].ID, float64(o.RCritLow), float64(o.RCritHigh), float64(o.RCrit))
+			}
+			r2 := r
+			r2.Outcomes = append([]model.Outcome(nil), r.Outcomes...)
+			r2.Cautions = append([]model.Caution(nil), r.Cautions...)
+			if err := r2.Reevaluate(p.Mach, o.RCrit); err != nil {
+				t.Fatal(err)
+			}
+			if got := r2.Outcomes[k].Ratio / r2.Outcomes[k].Threshold; math.Abs(got-1) > 1e-9 {
+				t.Fatalf("%s at its r_crit: ratio/threshold = %.12g, want 1 (%+v)", cs[k].ID, got, p)
 			}
 		}
 	}

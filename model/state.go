@@ -32,6 +32,16 @@ type State struct {
 	TCoolMinMix Time // minimum isobaric t_cool over T ∈ [T_cl, T_hot]
 	TMinMix     Temperature
 
+	// The wind gas swept up in the cloud's leading bow shock (Li et al. 2020,
+	// arXiv:1909.02632, abstract): for M > 1 the post-shock state of the
+	// Rankine–Hugoniot jump, for M ≤ 1 the gas compressed isentropically to
+	// stagnation ahead of the cloud (textbook relations, from memory; checks
+	// derived). Shocked says which.
+	Shocked      bool
+	TShocked     Temperature
+	NShocked     NumberDensity
+	TCoolShocked Time
+
 	LambdaHot, LambdaMix, LambdaCold CoolingRate // Λ at T_hot, T_mix, T_cl
 
 	MassCold   Mass          // (4π/3) r_cl³ ρ_cl, CloudMass
@@ -43,7 +53,8 @@ type State struct {
 	TGrow      Time          // GrowthTime with VMix
 	Cautions   []Caution     // inputs outside the cooling function's range, physically absurd inputs, and similar
 
-	nThermal int // Cautions[:nThermal] do not depend on the Mach number or the radius
+	nThermal int             // Cautions[:nThermal] do not depend on the Mach number or the radius
+	cf       CoolingFunction // the cooling function derived with, for the Mach-dependent cooling times
 }
 
 // A Caution is a warning about the inputs that does not make them invalid.
@@ -68,7 +79,7 @@ func (s *State) derive(p Params, cf CoolingFunction) error {
 		return fmt.Errorf("model: no cooling function")
 	}
 	q := p.WithDefaults()
-	*s = State{Params: q, Cautions: s.Cautions[:0]}
+	*s = State{Params: q, Cautions: s.Cautions[:0], cf: cf}
 	f := q.HeatCapacity.Factor()
 
 	s.THot = HotTemperature(q.TCloud, q.Chi, q.MuCold, q.MuHot)
@@ -118,7 +129,57 @@ func (s *State) deriveFlow() {
 	s.ColumnCold = CloudColumn(s.NCold, q.RCloud)
 	s.VMix = MixingVelocity(1, s.CsCold, s.CoolingTime(q.MixCooling), s.TSoundCold)
 	s.TGrow = GrowthTime(q.RCloud, q.Chi, s.VMix)
+	s.deriveShocked()
 	s.flowCautions()
+}
+
+// ShockJump returns the density, pressure and temperature ratios across a
+// normal shock of Mach number m in gas of adiabatic index γ (the
+// Rankine–Hugoniot jump conditions; textbook, formulas from memory):
+//
+//	ρ₂/ρ₁ = (γ+1)M²/((γ−1)M² + 2),  P₂/P₁ = (2γM² − (γ−1))/(γ+1),
+//	T₂/T₁ = (P₂/P₁)/(ρ₂/ρ₁).
+//
+// Special cases are:
+//
+//	ShockJump(1, γ) = 1, 1, 1
+//	ShockJump(m < 1, γ) = the same formulas (an expansion shock, unphysical)
+func ShockJump(m, gamma float64) (rho, p, t float64) {
+	m2 := m * m
+	rho = (gamma + 1) * m2 / ((gamma-1)*m2 + 2)
+	p = (2*gamma*m2 - (gamma - 1)) / (gamma + 1)
+	return rho, p, p / rho
+}
+
+// Stagnation returns the temperature and density ratios of gas brought to
+// rest isentropically from Mach number m (textbook, from memory):
+//
+//	T₀/T = 1 + (γ−1)M²/2,  ρ₀/ρ = (T₀/T)^{1/(γ−1)}.
+func Stagnation(m, gamma float64) (t, rho float64) {
+	t = 1 + (gamma-1)*m*m/2
+	return t, math.Pow(t, 1/(gamma-1))
+}
+
+// deriveShocked computes the state and cooling time of the wind gas swept
+// up ahead of the cloud: the post-shock state for M > 1, the stagnation
+// state for M ≤ 1. It depends on the Mach number, so it belongs to the flow
+// part of the state (the sweep fast path re-derives it).
+func (s *State) deriveShocked() {
+	q := &s.Params
+	var rhoR, tR float64
+	if s.Shocked = q.Mach > 1; s.Shocked {
+		rhoR, _, tR = ShockJump(q.Mach, q.Gamma)
+	} else {
+		tR, rhoR = Stagnation(q.Mach, q.Gamma)
+	}
+	s.TShocked = Temperature(float64(s.THot) * tR)
+	s.NShocked = NumberDensity(float64(s.NHot) * rhoR)
+	nH := NumberDensity(float64(s.NHHot) * rhoR)
+	lam := CoolingRate(0)
+	if s.cf != nil {
+		lam = s.lambda(s.cf, s.TShocked)
+	}
+	s.TCoolShocked = CoolingTime(q.HeatCapacity.Factor(), s.NShocked, s.TShocked, s.densityProduct(s.NShocked, nH), lam)
 }
 
 // GrowthTimeWith returns t_grow of s (α_v = 1, A = 4π r², as State.TGrow)
@@ -160,6 +221,11 @@ func (s *State) flowCautions() {
 	case beta >= RelativisticWind:
 		s.Cautions = append(s.Cautions, Caution{FieldMach, fmt.Sprintf("the wind speed M c_s,hot = %s c is a noticeable fraction of the speed of light; every formula here is Newtonian", num3(beta))})
 	}
+	// Li et al. 2020's "failed pressure confinement" regime (arXiv:1909.02632,
+	// abstract: the ambient hot gas cools too fast to confine the cloud).
+	if s.TCoolHot < s.TCC {
+		s.Cautions = append(s.Cautions, Caution{FieldChi, fmt.Sprintf("the wind cools faster than the cloud is crushed (t_cool,hot = %s t_cc): Li et al. 2020's failed-pressure-confinement regime, outside every criterion's wind-tunnel picture", num3(float64(s.TCoolHot/s.TCC)))})
+	}
 	if s.Params.RCloud > MaxCloudRadius {
 		s.Cautions = append(s.Cautions, Caution{FieldRCloud, fmt.Sprintf("r_cl = %s kpc is larger than a galaxy's halo (~100 kpc): check the unit", num3(float64(s.Params.RCloud/Kiloparsec)))})
 	}
@@ -176,10 +242,24 @@ func (s *State) lambda(cf CoolingFunction, t Temperature) CoolingRate {
 // densityProduct returns 𝒩 for gas of particle density n and hydrogen
 // density nH under the chosen convention.
 func (s *State) densityProduct(n, nH NumberDensity) float64 {
-	if s.Params.DensityProduct == N2 {
+	switch s.Params.DensityProduct {
+	case N2:
 		return float64(n) * float64(n)
+	case NeNi:
+		return float64(nH) * float64(nH) * s.eiPerH2()
 	}
 	return float64(nH) * float64(nH)
+}
+
+// eiPerH2 is n_e n_i/n_H² for the state's composition (fully ionised).
+func (s *State) eiPerH2() float64 {
+	q := &s.Params
+	m := q.Mixture
+	yOverX := m.Y / m.X
+	if q.HydrogenFraction != m.X { // the mixture's Y:Z split for another X
+		yOverX = (1 - q.HydrogenFraction) * m.Y / (m.Y + m.Z) / q.HydrogenFraction
+	}
+	return electronIonPerH2(q.HydrogenFraction, yOverX)
 }
 
 // minimaAlongIsobar finds the minimum cooling time and the shattering length
@@ -201,11 +281,15 @@ func (s *State) minimaAlongIsobar(cf CoolingFunction, f float64) {
 		delta = math.Log(q.MuHot/q.MuCold) / math.Log(float64(hi)/float64(lo))
 	}
 	mu := func(t Temperature) float64 { return q.MuCold * math.Pow(float64(t)/float64(lo), delta) }
+	ei := s.eiPerH2()
 	xi := func(t Temperature) float64 {
 		if q.DensityProduct == N2 {
 			return 1
 		}
 		r := q.HydrogenFraction * mu(t) * float64(ProtonMass) / float64(HydrogenAtomMass)
+		if q.DensityProduct == NeNi {
+			return r * r * ei // 𝒩 = n_e n_i = n_H² (n_e n_i/n_H²)
+		}
 		return r * r
 	}
 	tcool := func(m isobarPoint) Time {
@@ -216,7 +300,7 @@ func (s *State) minimaAlongIsobar(cf CoolingFunction, f float64) {
 		return Time(f * Boltzmann * t * t / (xi(m.T) * float64(q.Pressure) * float64(m.Lambda)))
 	}
 	eT := 2.0
-	if q.DensityProduct == NH2 {
+	if q.DensityProduct != N2 {
 		eT -= 2 * delta
 	}
 	eL := eT + 0.5 - 0.5*delta

@@ -71,7 +71,7 @@ func TestBadInputCatalogue(t *testing.T) {
 		// Enumerations.
 		{[]string{"eval", "--mixture", "solar"}, "", 2, "--mixture: unknown mixture \"solar\""},
 		{[]string{"eval", "--heat-capacity", "isobar"}, "", 2, "--heat-capacity: want isochoric or isobaric"},
-		{[]string{"eval", "--density-product", "ne"}, "", 2, "--density-product: want nh2 or n2"},
+		{[]string{"eval", "--density-product", "ne"}, "", 2, "--density-product: want nh2, n2 or neni"},
 		{[]string{"eval", "--format", "xml"}, "", 2, "--format"},
 		{[]string{"plan", "--question", "why"}, "", 2, "--question"},
 		{[]string{"evolve", "--branch", "soft"}, "", 2, "--branch"},

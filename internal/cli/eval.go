@@ -3,6 +3,7 @@ package cli
 import (
 	"fmt"
 	"io"
+	"math"
 	"strings"
 	"text/tabwriter"
 
@@ -36,15 +37,41 @@ func runEval(e *env) error {
 	var sf scenarioFlags
 	sf.register(f)
 	format := f.fs.String("format", "text", "output format: text or json")
+	var spreadSpec string
+	var spreadTable tableSettings
+	registerCoolingFlags(f, &spreadSpec, &spreadTable, "spread-cooling", "spread-table")
+	outcomes := f.fs.String("outcomes", "", "score every criterion against simulation outcomes in FILE (CSV or ECSV; '-' for stdin;\n'demo' for cloudwind's fictional example)")
 	if err := f.parse(e); err != nil {
 		return err
 	}
 	if err := checkFormat(*format, "text", "json"); err != nil {
 		return err
 	}
+	if *outcomes == "-" && (sf.scenario == "-" || sf.cooling == "-" || sf.criteria == "-") {
+		return usagef("only one input can read standard input; --outcomes - and another '-' were given")
+	}
 	sc, err := sf.evaluate(e)
 	if err != nil {
 		return err
+	}
+	var second model.CoolingFunction
+	if f.set("spread-cooling") {
+		src, err := resolveCooling(e, "--spread-cooling", spreadSpec, spreadTable)
+		if err != nil {
+			return err
+		}
+		if second, err = src.Function(sc.params.Metallicity); err != nil {
+			return usagef("--spread-cooling at --metallicity: %v", err)
+		}
+		sc.spreadName = report.CoolingName(src, second)
+	}
+	if sc.spreadCases, sc.spread, err = model.ConventionSpread(sc.params, sc.cf, second, sc.criteria); err != nil {
+		return err
+	}
+	if *outcomes != "" {
+		if sc.scores, err = scoreOutcomes(e, sc, *outcomes); err != nil {
+			return err
+		}
 	}
 	if *format == "json" {
 		return writeEvalJSON(e.stdout, sc)
@@ -53,7 +80,12 @@ func runEval(e *env) error {
 }
 
 func writeEvalJSON(w io.Writer, sc *evaluated) error {
-	return report.WriteJSON(w, report.StateDocument(&sc.res, sc.cooling, sc.cf, versionString()))
+	doc := report.StateDocument(&sc.res, sc.cooling, sc.cf, versionString())
+	doc["convention_spread"] = report.SpreadDocument(sc.spreadCases, sc.spread, sc.criteria)
+	if sc.scores != nil {
+		doc["outcomes"] = scoresJSON(sc)
+	}
+	return report.WriteJSON(w, doc)
 }
 
 // finite returns v, or nil (JSON null) when v is NaN or ±Inf.
@@ -130,39 +162,75 @@ func writeEvalText(w io.Writer, sc *evaluated) error {
 	}
 	fmt.Fprintf(&b, ".\n  t_grow under each choice: %s\n", strings.Join(alt, ", "))
 
-	fmt.Fprintf(&b, "\nCriteria: survives and grows when τ_cool/τ_dyn < α (χ/100)^β\n")
-	tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  id\ttest\tratio\tlimit\tr_crit\tmargin\tverdict\tnotes")
-	unverified, outside := false, false
+	fmt.Fprintf(&b, "\nCriteria: survives and grows when τ_X/τ_dyn < α (χ/100)^β\n")
+	ct := report.Table{Indent: "  ", Wrap: []bool{true, true, true, false, true}, MinWidths: []int{16, 21, 14, 0, 20}}
+	ct.Row("criterion", "test: ratio < limit", "r_crit (range)", "margin", "verdict")
+	unverified, outside, depends, third := false, false, false, false
 	for i := range r.Criteria {
 		c, o := &r.Criteria[i], r.Outcomes[i]
 		marks := ""
 		if !c.Verified {
-			marks += " *"
+			marks += "*"
 			unverified = true
 		}
+		if o.DependsOnConstant {
+			marks += "~"
+			depends = true
+		}
 		if !o.InRange() {
-			marks += " ! " + strings.Join(o.Leaves.Names(), ",")
+			marks += " !" + strings.Join(o.Leaves.Names(), ",")
 			outside = true
+		}
+		if c.HasThirdOutcome() {
+			third = true
 		}
 		test := c.Cool.Symbol() + "/" + c.Dyn.String()
 		limit := quantity.FormatSig(o.Threshold, 3)
 		rc := quantity.Format(model.DimLength, float64(o.RCrit))
+		if o.RCritLow != o.RCritHigh && o.HasThreshold() {
+			rc += " (" + quantity.Number(model.DimLength, float64(o.RCritLow)) + "–" + quantity.Format(model.DimLength, float64(o.RCritHigh)) + ")"
+		}
 		if c.Cool == model.CoolNone {
 			test, limit, rc = "no cooling", "—", "none"
 		}
-		verdict := "✗ destroyed"
-		if o.Verdict == model.Survives {
-			verdict = "✓ survives-and-grows"
+		cmp := test + " = " + quantity.FormatSig(o.Ratio, 3) + " < " + limit
+		if c.Cool == model.CoolNone {
+			cmp = test
 		}
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", quantity.Sanitize(c.ID), test, quantity.FormatSig(o.Ratio, 3), limit, rc, quantity.FormatSig(o.Margin, 3), verdict, marks)
+		ct.Row(quantity.Sanitize(c.Label), cmp, rc, quantity.FormatSig(o.Margin, 3), verdictWord(o.Verdict)+" "+marks)
 	}
-	tw.Flush()
+	b.WriteString(ct.String())
 	if unverified {
-		fmt.Fprintf(&b, "  * constants not verified against the paper; see 'status' in --format json\n")
+		fmt.Fprintf(&b, "  * constant not verified against the paper: the range is r_crit with α ×/÷ the uncertainty factor (2 by default)\n")
+	}
+	if depends {
+		fmt.Fprintf(&b, "  ~ the verdict depends on the constant: r_cl lies inside that range\n")
 	}
 	if outside {
 		fmt.Fprintf(&b, "  ! inputs outside the range the criterion was calibrated on\n")
+	}
+	if third {
+		fmt.Fprintf(&b, "  Farber & Gronke 2022 has a third outcome: a cloud colder than 10⁴ K can be transformed entirely to 10⁴ K gas\n")
+	}
+	// The convention spread: r_crit under every f × 𝒩 (× cooling function).
+	n := len(sc.spreadCases)
+	what := "f = 3/2 or 5/2 × 𝒩 = n_H², n² or n_e n_i"
+	if sc.spreadName != "" {
+		what += ", with " + sc.cooling.Desc + " and with " + sc.spreadName
+	}
+	fmt.Fprintf(&b, "\nConvention spread (%s: %d cases)\n", what, n)
+	st := report.Table{Indent: "  ", Wrap: []bool{true, false, true}, MinWrap: 20}
+	for i := range r.Criteria {
+		sp := sc.spread[i]
+		span := "no threshold"
+		if !math.IsInf(float64(sp.RCritMin), 1) {
+			span = quantity.Number(model.DimLength, float64(sp.RCritMin)) + "–" + quantity.Format(model.DimLength, float64(sp.RCritMax))
+		}
+		st.Row(quantity.Sanitize(r.Criteria[i].Label), span, report.SpreadSummary(r.Criteria[i], sp, n))
+	}
+	b.WriteString(st.String())
+	if sc.scores != nil {
+		writeScoresText(&b, sc)
 	}
 	if len(r.Cautions) > 0 {
 		fmt.Fprintf(&b, "\nCautions\n")
@@ -197,4 +265,15 @@ func conventionText(q model.Params) string {
 		n = "𝒩 = n² (total particles)"
 	}
 	return "t_cool = f n k_B T/(𝒩 Λ) with " + f + ", " + n
+}
+
+// verdictWord writes a verdict for text output, never by colour alone.
+func verdictWord(v model.Verdict) string {
+	switch v {
+	case model.Survives:
+		return "✓ survives-and-grows"
+	case model.Transformed:
+		return "◐ transformed"
+	}
+	return "✗ destroyed"
 }

@@ -201,6 +201,7 @@ func (f *flagSet) set(name string) bool {
 type scenarioFlags struct {
 	chi, mach, pressure, tCloud, radius, metallicity string
 	gamma, mu, muCloud, muHot, hydrogen, tFloor      string
+	machTurb                                         string
 	mixture, heatCapacity, densityProduct, mixCool   string
 	cooling, criteria                                string
 	table                                            tableSettings
@@ -231,6 +232,7 @@ func numericScenarioFlags() []scenarioFlag {
 		{"t-cloud", model.FieldTCloud, model.DimTemperature, func(s *scenarioFlags) *string { return &s.tCloud }, g(float64(fid.TCloud)), "cloud temperature in K (or \"1 keV\")"},
 		{"radius", model.FieldRCloud, model.DimLength, func(s *scenarioFlags) *string { return &s.radius }, "1 pc", "cloud radius: number with optional unit pc (default), kpc, au, km, m, cm"},
 		{"metallicity", model.FieldMetallicity, model.DimMetallicity, func(s *scenarioFlags) *string { return &s.metallicity }, g(fid.Metallicity), "metallicity Z in solar units"},
+		{"mach-turb", model.FieldMachTurb, model.Dimensionless, func(s *scenarioFlags) *string { return &s.machTurb }, "0", "turbulent Mach number M_turb of the hot gas (turbulent criteria)"},
 		{"gamma", model.FieldGamma, model.Dimensionless, func(s *scenarioFlags) *string { return &s.gamma }, "5/3", "adiabatic index γ"},
 		{"mu", model.FieldMu, model.Dimensionless, func(s *scenarioFlags) *string { return &s.mu }, g(model.DefaultMu), "mean molecular weight μ of both phases"},
 		{"mu-cloud", model.FieldMuCold, model.Dimensionless, func(s *scenarioFlags) *string { return &s.muCloud }, "", "μ of the cloud, if different (then T_hot = χ T_cl μ_hot/μ_cl)"},
@@ -251,7 +253,7 @@ func (s *scenarioFlags) register(f *flagSet) {
 	}
 	f.fs.StringVar(&s.mixture, "mixture", model.Asplund2009.Name, "solar mixture for n_H: "+strings.Join(mix, ", "))
 	f.fs.StringVar(&s.heatCapacity, "heat-capacity", "isochoric", "f in t_cool = f n k T/(𝒩 Λ): isochoric (3/2) or isobaric (5/2)")
-	f.fs.StringVar(&s.densityProduct, "density-product", "nh2", "𝒩 in t_cool: nh2 (n_H², physical) or n2 (n², total particles)")
+	f.fs.StringVar(&s.densityProduct, "density-product", "nh2", "𝒩 in t_cool: nh2 (n_H², physical), n2 (n², total particles) or neni (n_e n_i, fully ionised)")
 	f.fs.StringVar(&s.mixCool, "mix-cooling", model.DefaultMixCooling.String(), "the growth model: the cold side's cooling time in v_mix, t_grow, l_cool,cl and the evolution:\nminmix (the shortest along the mixing isobar; cloudwind's choice, because t_cool at the\nfloor T_cl sits on the steep edge of the cooling table), cold (at T_cl), mix or hot")
 	registerCoolingFlags(f, &s.cooling, &s.table, "cooling", "table")
 	f.fs.StringVar(&s.criteria, "criteria", "", "TOML file that corrects or adds criteria ('-' for stdin)")
@@ -399,14 +401,11 @@ func (s *scenarioFlags) parse() (model.Params, error) {
 		p.MixCooling = k
 	}
 	if apply("density-product") {
-		switch s.densityProduct {
-		case "nh2":
-			p.DensityProduct = model.NH2
-		case "n2":
-			p.DensityProduct = model.N2
-		default:
-			return p, usagef("--density-product: want nh2 or n2 (got %q)", sanitizeArg(s.densityProduct))
+		d, err := model.ParseDensityProduct(s.densityProduct)
+		if err != nil {
+			return p, usagef("--density-product: want nh2, n2 or neni (got %q)", sanitizeArg(s.densityProduct))
 		}
+		p.DensityProduct = d
 	}
 	return p, nil
 }
@@ -421,6 +420,11 @@ type evaluated struct {
 	cf       model.CoolingFunction // the cooling function at params.Metallicity
 	criteria []model.Criterion
 	res      model.Result
+
+	spreadCases []model.ConventionCase // eval's convention spread
+	spread      []model.Spread
+	spreadName  string // the second cooling function of the spread, if any
+	scores      *outcomeScores
 }
 
 // evaluate parses the scenario flags, resolves the cooling function at the

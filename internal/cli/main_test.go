@@ -8,6 +8,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"cloudwind/model"
 )
 
 // runCmd runs cloudwind with args and returns status, stdout and stderr.
@@ -57,8 +59,8 @@ func TestEvalJSONSchema(t *testing.T) {
 			t.Errorf("derived.%s missing or null", k)
 		}
 	}
-	if len(doc.Criteria) != 6 {
-		t.Fatalf("criteria: %d entries, want 6", len(doc.Criteria))
+	if len(doc.Criteria) != len(model.BuiltinCriteria()) {
+		t.Fatalf("criteria: %d entries, want %d", len(doc.Criteria), len(model.BuiltinCriteria()))
 	}
 	go18 := doc.Criteria[0]
 	if go18.ID != "gronke-oh-2018" || go18.RCrit == nil || math.Abs(*go18.RCrit-2.5528) > 1e-4*2.5528 {
@@ -69,7 +71,7 @@ func TestEvalJSONSchema(t *testing.T) {
 			t.Errorf("criterion %s lacks a field: %+v", c.ID, c)
 		}
 	}
-	if ad := doc.Criteria[5]; ad.RCrit != nil || ad.Verdict != "destroyed" {
+	if ad := doc.Criteria[len(doc.Criteria)-1]; ad.RCrit != nil || ad.Verdict != "destroyed" {
 		t.Errorf("adiabatic: radius_crit_pc %v, verdict %q; want null, destroyed", ad.RCrit, ad.Verdict)
 	}
 }
@@ -79,7 +81,7 @@ func TestEvalText(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("eval exit %d", code)
 	}
-	for _, frag := range []string{"r_cl", "30 pc", "t_cc", "Myr", "gronke-oh-2018", "survives-and-grows", "km s⁻¹", "* constants not verified"} {
+	for _, frag := range []string{"r_cl", "30 pc", "t_cc", "Myr", "Gronke & Oh 2018", "survives-and-grows", "km s⁻¹", "* constant not verified", "Convention spread"} {
 		if !strings.Contains(out, frag) {
 			t.Errorf("eval text lacks %q:\n%s", frag, out)
 		}
@@ -100,7 +102,7 @@ func TestEvalBadInput(t *testing.T) {
 		{[]string{"--t-floor", "2e4"}, "--t-floor: the cooling floor"},
 		{[]string{"--pressure", "NaN"}, "--pressure"},
 		{[]string{"--heat-capacity", "isothermal"}, "--heat-capacity: want isochoric or isobaric"},
-		{[]string{"--density-product", "ne"}, "--density-product: want nh2 or n2"},
+		{[]string{"--density-product", "ne"}, "--density-product: want nh2, n2 or neni"},
 		{[]string{"--cooling", "const:-1"}, "--cooling const: Λ must be a finite number greater than 0"},
 		{[]string{"--cooling", "bultin"}, `--cooling: "bultin" is neither a cooling function name nor a file (did you mean "builtin"?)`},
 		{[]string{"--cooling", "builtin", "--table", "norm: nH2"}, "table settings apply to a table file, but --cooling is \"builtin\""},

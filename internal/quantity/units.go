@@ -58,6 +58,9 @@ var inputUnits = map[Kind][]inputUnit{
 	model.DimCooling: {
 		{names: []string{"erg cm3 s-1", "erg cm^3 s^-1", "erg cm³ s⁻¹", "erg cm3 / s"}, factor: 1},
 	},
+	model.DimNumberDensity: {
+		{names: []string{"cm-3", "cm^-3", "cm⁻³", "1/cm3", "/cm3"}, factor: 1},
+	},
 	model.DimMetallicity: {
 		{names: []string{"Zsun", "Z☉", "solar"}, factor: 1},
 	},

@@ -86,7 +86,7 @@ func SweepColumns(cs []model.Criterion) []Column {
 				Num: func(r *model.Result) float64 { return quantity.Convert(model.DimLength, float64(r.Outcomes[i].RCrit)) }},
 			Column{Name: base + "_margin", Description: label + ": r_cl/r_crit (> 1 survives)",
 				Num: func(r *model.Result) float64 { return r.Outcomes[i].Margin }},
-			Column{Name: base + "_verdict", Description: label + ": survives-and-grows or destroyed", IsString: true,
+			Column{Name: base + "_verdict", Description: label + ": survives-and-grows, transformed or destroyed", IsString: true,
 				Str: func(r *model.Result) string { return r.Outcomes[i].Verdict.String() }},
 		)
 		for k := 0; k < 3; k++ {

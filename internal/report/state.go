@@ -4,7 +4,9 @@
 package report
 
 import (
+	"fmt"
 	"math"
+	"strings"
 
 	"cloudwind/internal/quantity"
 	"cloudwind/internal/safetext"
@@ -54,6 +56,7 @@ func StateDocument(r *model.Result, src *cooling.Source, cf model.CoolingFunctio
 			"heat_capacity_f":   q.HeatCapacity.Factor(),
 			"density_product":   q.DensityProduct.String(),
 			"mix_cooling":       q.MixCooling.String(),
+			"mach_turb":         q.MachTurb,
 		},
 		"cooling": CoolingDocument(src, cf),
 	}
@@ -90,15 +93,23 @@ func StateDocument(r *model.Result, src *cooling.Source, cf model.CoolingFunctio
 			"threshold":      JSONNumber(o.Threshold),
 			"ratio":          JSONNumber(o.Ratio),
 			"radius_crit_pc": JSONNumber(quantity.Convert(model.DimLength, float64(o.RCrit))),
-			"margin":         JSONNumber(o.Margin),
-			"verdict":        o.Verdict.String(),
-			"verified":       c.Verified,
-			"status":         c.Status,
-			"in_range":       o.InRange(),
-			"out_of_range":   leaves,
+			"radius_crit_range_pc": []any{JSONNumber(quantity.Convert(model.DimLength, float64(o.RCritLow))),
+				JSONNumber(quantity.Convert(model.DimLength, float64(o.RCritHigh)))},
+			"uncertainty_factor":  c.UncertaintyFactor(),
+			"depends_on_constant": o.DependsOnConstant,
+			"third_outcome":       c.HasThirdOutcome(),
+			"warm_ratio":          JSONNumber(o.WarmRatio),
+			"warm_threshold":      JSONNumber(o.WarmThreshold),
+			"margin":              JSONNumber(o.Margin),
+			"verdict":             o.Verdict.String(),
+			"verified":            c.Verified,
+			"status":              c.Status,
+			"in_range":            o.InRange(),
+			"out_of_range":        leaves,
 			"calibrated_range": map[string]any{
 				"chi": jsonInterval(c.Range.Chi), "mach": jsonInterval(c.Range.Mach), "t_cloud_k": jsonInterval(c.Range.TCloud),
-				"status": c.Range.Status,
+				"mach_turb": jsonInterval(c.Range.MachTurb),
+				"status":    c.Range.Status,
 			},
 			"citation": c.Citation.String(),
 			"arxiv":    c.Citation.ArXiv,
@@ -106,6 +117,14 @@ func StateDocument(r *model.Result, src *cooling.Source, cf model.CoolingFunctio
 		}
 	}
 	doc["criteria"] = crit
+	doc["shocked_gas"] = map[string]any{
+		"state":          map[bool]string{true: "post-shock (Rankine–Hugoniot, M > 1)", false: "stagnation (M ≤ 1)"}[r.Shocked],
+		"t_k":            JSONNumber(float64(r.TShocked)),
+		"n_cm3":          JSONNumber(float64(r.NShocked)),
+		"t_cool_myr":     JSONNumber(quantity.Convert(model.DimTime, float64(r.TCoolShocked))),
+		"used_by":        "criteria with cooling_time shocked (li-2020)",
+		"relations_from": "textbook Rankine–Hugoniot and isentropic stagnation relations (from memory)",
+	}
 	cautions := make([]map[string]string, 0, len(r.Cautions))
 	for _, c := range r.Cautions {
 		cautions = append(cautions, map[string]string{"field": c.Field, "message": c.Message})
@@ -155,4 +174,51 @@ func nonNil(s []string) []string {
 func floorK(p model.Params) float64 {
 	tf, _ := p.Floor()
 	return float64(tf)
+}
+
+// SpreadDocument describes the convention spread (model.ConventionSpread)
+// of criteria cs for JSON: per criterion the range of r_crit over every
+// convention, how many conventions give each verdict, and each case.
+func SpreadDocument(cases []model.ConventionCase, spreads []model.Spread, cs []model.Criterion) []map[string]any {
+	out := make([]map[string]any, len(spreads))
+	for i, sp := range spreads {
+		var rows []map[string]any
+		for k, c := range cases {
+			rows = append(rows, map[string]any{"heat_capacity": c.HeatCapacity.String(), "density_product": c.DensityProduct.String(),
+				"cooling": c.Cooling + 1, "radius_crit_pc": JSONNumber(quantity.Convert(model.DimLength, float64(sp.RCrit[k]))),
+				"verdict": sp.Verdict[k].String()})
+		}
+		counts := map[string]int{}
+		for _, v := range model.Verdicts() {
+			counts[v.String()] = sp.Count[v]
+		}
+		out[i] = map[string]any{
+			"id": cs[i].ID, "label": cs[i].Label,
+			"radius_crit_min_pc": JSONNumber(quantity.Convert(model.DimLength, float64(sp.RCritMin))),
+			"radius_crit_max_pc": JSONNumber(quantity.Convert(model.DimLength, float64(sp.RCritMax))),
+			"verdict_counts":     counts, "unanimous": sp.Unanimous(), "summary": SpreadSummary(cs[i], sp, len(cases)),
+			"cases": rows,
+		}
+	}
+	return out
+}
+
+// SpreadSummary says in one line what the spread means for the verdict:
+// "survives-and-grows under every convention (6)", or "depends on the
+// convention: 4 survive, 2 destroyed".
+func SpreadSummary(c model.Criterion, sp model.Spread, n int) string {
+	if sp.Unanimous() {
+		for _, v := range model.Verdicts() {
+			if sp.Count[v] > 0 {
+				return fmt.Sprintf("%s under every convention (%d)", v, n)
+			}
+		}
+	}
+	var parts []string
+	for _, v := range model.Verdicts() {
+		if sp.Count[v] > 0 {
+			parts = append(parts, fmt.Sprintf("%d %s", sp.Count[v], v))
+		}
+	}
+	return "depends on the convention: " + strings.Join(parts, ", ")
 }

@@ -60,7 +60,9 @@ type Table struct {
 	Indent  string // written before every line, e.g. "  "
 	Wrap    []bool // Wrap[i]: column i may wrap; columns beyond the slice may not
 	MinWrap int    // the narrowest a wrapping column becomes; 16 when 0
-	rows    [][]string
+	// MinWidths[i], when > 0, is the narrowest column i becomes instead.
+	MinWidths []int
+	rows      [][]string
 }
 
 // Row adds a row. Missing cells are empty.
@@ -101,7 +103,11 @@ func (t *Table) String() string {
 	for total() > width {
 		best := -1
 		for i := range w {
-			if wraps(i) && w[i] > minWrap && (best < 0 || w[i] > w[best]) {
+			lim := minWrap
+			if i < len(t.MinWidths) && t.MinWidths[i] > 0 {
+				lim = t.MinWidths[i]
+			}
+			if wraps(i) && w[i] > lim && (best < 0 || w[i] > w[best]) {
 				best = i
 			}
 		}

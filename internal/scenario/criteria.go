@@ -18,7 +18,8 @@ import (
 // criterionKeys returns the keys of a [[criterion]] table.
 func criterionKeys() []string {
 	return []string{"id", "label", "authors", "year", "journal", "arxiv", "equation",
-		"cooling_time", "dynamical_time", "alpha", "beta", "verified", "status", "note"}
+		"cooling_time", "dynamical_time", "alpha", "beta", "f_mix", "warm_temperature", "uncertainty",
+		"verified", "status", "note"}
 }
 
 // requiredNewKeys returns the keys a criterion with a new id must set.
@@ -28,7 +29,7 @@ func requiredNewKeys() []string {
 }
 
 // rangeKeys returns the keys of a [criterion.range] table.
-func rangeKeys() []string { return []string{"chi", "mach", "t_cloud", "status"} }
+func rangeKeys() []string { return []string{"chi", "mach", "t_cloud", "mach_turb", "status"} }
 
 // LoadCriteria reads a criteria file and applies it to base (normally
 // model.BuiltinCriteria()), returning the merged list: base order first
@@ -247,7 +248,8 @@ func tableHint(ch child) string {
 func (f *criteriaFile) settleStatus(c *model.Criterion, old model.Criterion, isNew bool, lines map[string]int, rangeChanged bool) {
 	_, hasStatus := lines["status"]
 	_, hasVerified := lines["verified"]
-	formulaChanged := !isNew && (c.Alpha != old.Alpha || c.Beta != old.Beta || c.Cool != old.Cool || c.Dyn != old.Dyn)
+	formulaChanged := !isNew && (c.Alpha != old.Alpha || c.Beta != old.Beta || c.Cool != old.Cool || c.Dyn != old.Dyn ||
+		c.FMix != old.FMix || c.WarmTemperature != old.WarmTemperature)
 	switch {
 	case isNew && !hasStatus:
 		c.Status = "from " + f.label() + ", no status given"
@@ -312,6 +314,14 @@ func setCriterionKey(c *model.Criterion, key string, v Value) error {
 		c.Alpha, err = numberValue(key, v)
 	case "beta":
 		c.Beta, err = numberValue(key, v)
+	case "f_mix":
+		c.FMix, err = numberValue(key, v)
+	case "uncertainty":
+		c.Uncertainty, err = numberValue(key, v)
+	case "warm_temperature":
+		var w float64
+		w, err = numberValue(key, v)
+		c.WarmTemperature = model.Temperature(w)
 	case "verified":
 		err = kindError(key, v, "true or false", KindBool)
 		c.Verified = v.Bool
@@ -337,6 +347,8 @@ func setRange(c *model.Criterion, t *Table, lines map[string]int) (bool, error) 
 			c.Range.Mach, err = intervalValue(k, v)
 		case "t_cloud":
 			c.Range.TCloud, err = intervalValue(k, v)
+		case "mach_turb":
+			c.Range.MachTurb, err = intervalValue(k, v)
 		case "status":
 			c.Range.Status, err = stringValue("range.status", v)
 		default:
@@ -358,7 +370,7 @@ func setRange(c *model.Criterion, t *Table, lines map[string]int) (bool, error) 
 			return false, err
 		}
 	}
-	changed := c.Range.Chi != old.Chi || c.Range.Mach != old.Mach || c.Range.TCloud != old.TCloud
+	changed := c.Range.Chi != old.Chi || c.Range.Mach != old.Mach || c.Range.TCloud != old.TCloud || c.Range.MachTurb != old.MachTurb
 	return changed, nil
 }
 

@@ -33,10 +33,13 @@ year = 2026
 journal = "MNRAS 999, 1" # "" when not known
 arxiv = "2601.00001"     # "" when there is none
 equation = "12"          # "" when not read from the paper
-cooling_time = "mix"     # none | hot | mix | minmix | cold
-dynamical_time = "t_cc"  # t_cc | t_shear
+cooling_time = "mix"     # none | hot | mix | minmix | cold | shocked | grow (t_grow, not a cooling time)
+dynamical_time = "t_cc"  # t_cc | t_shear | t_cc,turb (t_cc/(1 + (M_turb/(f_mix M))²)^1/2)
 alpha = 1.0
 beta = -0.5              # optional, default 0
+f_mix = 0.6              # optional, for t_cc,turb; default 0.6
+warm_temperature = 1e4   # optional: a colder cloud failing the test is "transformed" when gas at this T passes
+uncertainty = 2          # optional: the factor α may be off by; default 2 unverified, 1 verified
 verified = false         # optional, default false
 status = "from memory — check the paper"
 note = "one-line summary"
@@ -44,6 +47,7 @@ note = "one-line summary"
 chi = [100, 1000]        # [min, max]; omit a key for no limit
 mach = [1, 10]
 t_cloud = [1e4, 4e4]     # K
+mach_turb = [0.25, 0.75] # turbulent Mach number; omitted = calibrated without turbulence
 status = "from the paper's Table 1"
 `
 
@@ -111,10 +115,10 @@ func TestLoadCriteriaExample(t *testing.T) {
 	wantNew := model.Criterion{
 		ID: "my-2026", Label: "Me et al. 2026",
 		Citation: model.Citation{Authors: "Me, You & Them", Year: 2026, Journal: "MNRAS 999, 1", ArXiv: "2601.00001", Equation: "12"},
-		Cool:     model.CoolMix, Dyn: model.DynCloudCrushing, Alpha: 1, Beta: -0.5,
+		Cool:     model.CoolMix, Dyn: model.DynCloudCrushing, Alpha: 1, Beta: -0.5, FMix: 0.6, WarmTemperature: 1e4, Uncertainty: 2,
 		Verified: false, Status: "from memory — check the paper",
 		Range: model.Calibration{Chi: model.Interval{Min: 100, Max: 1000}, Mach: model.Interval{Min: 1, Max: 10},
-			TCloud: model.Interval{Min: 1e4, Max: 4e4}, Status: "from the paper's Table 1"},
+			TCloud: model.Interval{Min: 1e4, Max: 4e4}, MachTurb: model.Interval{Min: 0.25, Max: 0.75}, Status: "from the paper's Table 1"},
 		Note: "one-line summary",
 	}
 	if !reflect.DeepEqual(got, wantNew) {
@@ -248,14 +252,17 @@ func writeCriterion(b *strings.Builder, c model.Criterion) {
 		tomlString(c.Citation.ArXiv), tomlString(c.Citation.Equation))
 	fmt.Fprintf(b, "cooling_time = %s\ndynamical_time = %s\nalpha = %s\nbeta = %s\n", tomlString(c.Cool.String()),
 		tomlString(c.Dyn.String()), tomlNumber(c.Alpha), tomlNumber(c.Beta))
+	fmt.Fprintf(b, "f_mix = %s\nwarm_temperature = %s\nuncertainty = %s\n", tomlNumber(c.FMix), tomlNumber(float64(c.WarmTemperature)), tomlNumber(c.Uncertainty))
 	fmt.Fprintf(b, "verified = %v\nstatus = %s\nnote = %s\n[criterion.range]\n", c.Verified,
 		tomlString(c.Status), tomlString(c.Note))
 	for _, iv := range []struct {
 		key string
 		i   model.Interval
-	}{{"chi", c.Range.Chi}, {"mach", c.Range.Mach}, {"t_cloud", c.Range.TCloud}} {
+	}{{"chi", c.Range.Chi}, {"mach", c.Range.Mach}, {"t_cloud", c.Range.TCloud}, {"mach_turb", c.Range.MachTurb}} {
 		if !math.IsInf(iv.i.Min, 0) && !math.IsInf(iv.i.Max, 0) {
 			fmt.Fprintf(b, "%s = [%s, %s]\n", iv.key, tomlNumber(iv.i.Min), tomlNumber(iv.i.Max))
+		} else if iv.key == "mach_turb" && iv.i.IsUnbounded() {
+			fmt.Fprintf(b, "%s = [-inf, inf]\n", iv.key)
 		}
 	}
 	fmt.Fprintf(b, "status = %s\n\n", tomlString(c.Range.Status))

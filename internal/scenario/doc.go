@@ -59,10 +59,13 @@
 //	journal = "MNRAS 999, 1" # "" when not known
 //	arxiv = "2601.00001"     # "" when there is none
 //	equation = "12"          # "" when not read from the paper
-//	cooling_time = "mix"     # none | hot | mix | minmix | cold
-//	dynamical_time = "t_cc"  # t_cc | t_shear
+//	cooling_time = "mix"     # none | hot | mix | minmix | cold | shocked | grow (t_grow, not a cooling time)
+//	dynamical_time = "t_cc"  # t_cc | t_shear | t_cc,turb (t_cc/(1 + (M_turb/(f_mix M))²)^1/2)
 //	alpha = 1.0
 //	beta = -0.5              # optional, default 0
+//	f_mix = 0.6              # optional, for t_cc,turb; default 0.6
+//	warm_temperature = 1e4   # optional: a colder cloud failing the test is "transformed" when gas at this T passes
+//	uncertainty = 2          # optional: the factor α may be off by; default 2 unverified, 1 verified
 //	verified = false         # optional, default false
 //	status = "from memory — check the paper"
 //	note = "one-line summary"
@@ -70,6 +73,7 @@
 //	chi = [100, 1000]        # [min, max]; omit a key for no limit
 //	mach = [1, 10]
 //	t_cloud = [1e4, 4e4]     # K
+//	mach_turb = [0.25, 0.75] # turbulent Mach number; omitted = calibrated without turbulence
 //	status = "from the paper's Table 1"
 //
 // The criterion tested is τ_cool,X / τ_dyn,Y < α (χ/100)^β, with X the
@@ -118,6 +122,7 @@
 //	t_cloud = 1e4             # K
 //	radius = 10               # pc
 //	metallicity = 1           # Z/Z_sun
+//	mach_turb = 0             # turbulent Mach number of the hot gas (optional, default 0)
 //
 //	[conventions]             # every key optional; left out = the model default
 //	gamma = 1.6666666666666667

@@ -47,7 +47,7 @@ chi = [100, 1000]
 	// file's α and β; the built-in li-2020 form is in model/builtin.go.
 
 	// Output:
-	// li-2020: t_cool,hot / t_cc < 5, threshold at χ = 1000: 5, verified: false
+	// li-2020: t_cool,shocked / t_cc < 5, threshold at χ = 1000: 5, verified: false
 	//   status: changed by criteria file my.toml: not verified
 	// my-2026: t_cool,mix / t_cc < (χ/100)^-0.5, threshold at χ = 1000: 0.316, verified: false
 	//   status: from criteria file my.toml, no status given

@@ -50,7 +50,7 @@ func coolingKeys() []string { return []string{"spec", "table"} }
 // inputKeys returns the keys of [inputs], which are model.Field… names.
 func inputKeys() []string {
 	return []string{model.FieldChi, model.FieldMach, model.FieldPressure, model.FieldTCloud,
-		model.FieldRCloud, model.FieldMetallicity}
+		model.FieldRCloud, model.FieldMetallicity, model.FieldMachTurb}
 }
 
 // conventionKeys returns the keys of [conventions]; all but mixture are
@@ -417,6 +417,9 @@ func Write(w io.Writer, s Scenario) error {
 	kv(model.FieldTCloud, formatFloat(float64(p.TCloud)), "K")
 	kv(model.FieldRCloud, formatParsecs(p.RCloud), "pc")
 	kv(model.FieldMetallicity, formatFloat(p.Metallicity), "Z/Z_sun")
+	if p.MachTurb != 0 {
+		kv(model.FieldMachTurb, formatFloat(p.MachTurb), "turbulent Mach number of the hot gas")
+	}
 
 	var conv []string
 	num := func(key string, v float64) {
