@@ -4,10 +4,12 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 	"testing"
 
 	"cloudwind/assets"
 	"cloudwind/model"
+
 	"gonum.org/v1/gonum/floats/scalar"
 )
 
@@ -223,7 +225,7 @@ func TestBuiltinCIEUnchanged(t *testing.T) {
 				// Every derived quantity, caution and outcome, to the last bit
 				// (%v prints a float64 so that it parses back exactly; NaN
 				// thresholds compare equal this way).
-				g, w := fmt.Sprintf("%+v %+v", r1.State, r1.Outcomes), fmt.Sprintf("%+v %+v", r0.State, r0.Outcomes)
+				g, w := stateText(&r1), stateText(&r0)
 				if g != w {
 					t.Errorf("Evaluate(Z = %g, T_cl = %g K, floor %g K):\nbuilt-in   %s\nCIE alone  %s\nwant the same", z, float64(tcl), float64(floor), g, w)
 				}
@@ -419,4 +421,15 @@ func BenchmarkLambdaBuiltin(b *testing.B) {
 		i++
 	}
 	_ = sink
+}
+
+// stateText prints every derived quantity, caution and outcome of r so that
+// a float64 parses back exactly (%v; NaN thresholds compare equal this way).
+func stateText(r *model.Result) string {
+	var b strings.Builder
+	for _, q := range model.Quantities() {
+		fmt.Fprintf(&b, "%s=%v ", q.Key, q.Value(&r.State))
+	}
+	fmt.Fprintf(&b, "%+v %+v", r.Cautions, r.Outcomes)
+	return b.String()
 }
