@@ -255,7 +255,7 @@ func (c *Criterion) Formula() string {
 		f += ", t_cc,turb = t_cc/(1 + (M_turb/(" + num(c.fMix()) + " M))²)^1/2"
 	}
 	if c.HasThirdOutcome() {
-		f += "; else transformed to " + num(float64(c.WarmTemperature)) + " K gas if that gas passes"
+		f += "; below " + num(float64(c.WarmTemperature)) + " K: the same test for the " + num(float64(c.WarmTemperature)) + " K gas and for the cold side, transformed when only the first passes"
 	}
 	return f
 }
@@ -348,10 +348,14 @@ type Outcome struct {
 	// DependsOnConstant is true when r_cl lies inside [RCritLow, RCritHigh]:
 	// the verdict then rests on the unverified constant.
 	DependsOnConstant bool
-	// WarmRatio and WarmThreshold are the test of the transformed gas for a
-	// three-outcome criterion whose cloud is colder than WarmTemperature;
-	// NaN otherwise.
+	// For a three-outcome criterion whose cloud is colder than its
+	// WarmTemperature, Ratio is the cold side's test (its mixed gas between
+	// T_cl and T_w), WarmRatio and WarmThreshold the test of the gas at T_w
+	// against the hot wind, and RWarm the radius above which that gas
+	// survives (transformed, or survives when r_cl > RCrit too). NaN and 0
+	// otherwise.
 	WarmRatio, WarmThreshold float64
+	RWarm                    Length
 }
 
 // HasThreshold reports whether a finite threshold radius exists.
@@ -451,6 +455,10 @@ func (s *State) evaluate(c *Criterion, threshold float64) Outcome {
 	}
 	tc := float64(s.CoolingTime(c.Cool))
 	td := float64(s.dynamicalTime(c))
+	threeWay := c.HasThirdOutcome() && q.TCloud < c.WarmTemperature
+	if threeWay {
+		tc = float64(s.coldSideCoolingTime(c.WarmTemperature))
+	}
 	o.Threshold = threshold
 	o.Ratio = tc / td
 	p := c.Cool.radiusPower()
@@ -464,15 +472,46 @@ func (s *State) evaluate(c *Criterion, threshold float64) Outcome {
 	o.RCritLow, o.RCritHigh = Length(rc/u), Length(rc*u)
 	o.DependsOnConstant = u > 1 && q.RCloud > o.RCritLow && q.RCloud < o.RCritHigh
 	switch {
-	case o.Ratio < o.Threshold:
-		o.Verdict = Survives
-	case c.HasThirdOutcome() && q.TCloud < c.WarmTemperature:
+	case threeWay:
+		// Three outcomes (Farber & Gronke 2022, abstract; the forms are
+		// cloudwind's reading, from memory): the gas at T_w survives when it
+		// passes the test against the hot wind (warmTest); the cold phase
+		// survives too when its own mixed gas, between T_cl and T_w, cools
+		// back within the same form (Ratio above); gas at T_w that survives
+		// while the cold phase does not is the transformed cloud.
 		o.WarmRatio, o.WarmThreshold = s.warmTest(c)
-		if o.WarmRatio < o.WarmThreshold {
+		o.RWarm = Length(float64(q.RCloud) * o.WarmRatio / o.WarmThreshold) // the warm ratio ∝ 1/r_cl too
+		switch {
+		case !(o.WarmRatio < o.WarmThreshold):
+			o.Verdict = Destroyed
+		case o.Ratio < o.Threshold:
+			o.Verdict = Survives
+		default:
 			o.Verdict = Transformed
 		}
+	case o.Ratio < o.Threshold:
+		o.Verdict = Survives
 	}
 	return o
+}
+
+// coldSideCoolingTime returns the cooling time of the gas that mixes the
+// cold cloud with warm gas at T_w at the common pressure: at the geometric
+// mean T = (T_cl T_w)^{1/2} (the mixed-gas temperature of Begelman & Fabian
+// 1990 applied to the cold and warm phases; cloudwind's reading of Farber
+// & Gronke 2022, from memory). Below 10⁴ K its Λ is the low-temperature
+// part of the cooling function.
+func (s *State) coldSideCoolingTime(tw Temperature) Time {
+	q := &s.Params
+	t := MixTemperature(q.TCloud, tw)
+	n := ParticleDensity(q.Pressure, t)
+	mu := q.MuCold // both phases are cold-side gas
+	nH := HydrogenDensity(MassDensity(n, mu), q.HydrogenFraction)
+	lam := CoolingRate(0)
+	if s.cf != nil {
+		lam = s.lambda(s.cf, t)
+	}
+	return CoolingTime(q.HeatCapacity.Factor(), n, t, s.densityProduct(n, nH), lam)
 }
 
 // radiusFactor returns x^{1/p} for the closed form of r_crit; x for p = 1.

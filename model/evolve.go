@@ -142,8 +142,8 @@ func (o *cloudODE) branch(rho float64) float64 {
 		rp = math.Pow(rho, o.power)
 	}
 	u := o.ratio0 / (rp * o.thr) // ratio/threshold
-	if w := o.warm0 / (rho * o.warmThr); w < u {
-		u = w // transformed to warm gas, which survives and grows (a three-outcome criterion)
+	if !math.IsInf(o.warm0, 1) {
+		u = o.warm0 / (rho * o.warmThr) // a three-outcome criterion: the gas at T_w grows, survived or transformed
 	}
 	if o.smooth {
 		return 1 / (1 + math.Pow(u, o.width)) // a modelling choice, not a published result (§6.5)

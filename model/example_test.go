@@ -77,7 +77,7 @@ func ExampleCriterion_Threshold() {
 	fmt.Println(c.Formula())
 	fmt.Printf("%.3g\n", c.Threshold(1000))
 	// Output:
-	// t_cool,mix / t_cc < (χ/100)^-0.5; else transformed to 10000 K gas if that gas passes
+	// t_cool,mix / t_cc < (χ/100)^-0.5; below 10000 K: the same test for the 10000 K gas and for the cold side, transformed when only the first passes
 	// 0.316
 }
 

@@ -436,7 +436,7 @@ func TestCriterionFormula(t *testing.T) {
 	for id, want := range map[string]string{
 		"gronke-oh-2018":      "t_cool,mix / t_cc < 1",
 		"abruzzo-2023":        "t_cool,minmix / t_shear < 1",
-		"farber-gronke-2022":  "t_cool,mix / t_cc < (χ/100)^-0.5; else transformed to 10000 K gas if that gas passes",
+		"farber-gronke-2022":  "t_cool,mix / t_cc < (χ/100)^-0.5; below 10000 K: the same test for the 10000 K gas and for the cold side, transformed when only the first passes",
 		"tan-oh-gronke-2023":  "t_grow / t_cc < 4",
 		"li-2020":             "t_cool,shocked / t_cc < 10",
 		"turbulent-wind-2025": "t_cool,mix / t_cc,turb < 1, t_cc,turb = t_cc/(1 + (M_turb/(0.6 M))²)^1/2",

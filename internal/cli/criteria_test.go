@@ -115,3 +115,41 @@ func TestConventionSpreadJSON(t *testing.T) {
 		t.Errorf("--mach-turb -1: exit %d %q", code, errs)
 	}
 }
+
+// TestTransformedVerdict: an 800 K cloud can come out "transformed" (Farber
+// & Gronke 2022's third outcome, confirmed from the abstract; the forms
+// cloudwind's reading) and every output format says so: eval JSON, sweep
+// CSV and ECSV. The radii span the three outcomes with the built-in curve
+// (measured: destroyed below ~2 pc, transformed to ~50 pc, survives above).
+func TestTransformedVerdict(t *testing.T) {
+	base := []string{"--t-cloud", "800", "--chi", "3750", "--pressure", "1e4"}
+	seen := map[string]bool{}
+	for _, r := range []string{"0.3pc", "10pc", "300pc"} {
+		code, out, errs := runCmd(t, "", append(append([]string{"eval", "--format", "json", "--radius", r}, base...))...)
+		if code != 0 {
+			t.Fatalf("eval: %s", errs)
+		}
+		var doc struct {
+			Criteria []struct {
+				ID, Verdict string
+			} `json:"criteria"`
+		}
+		json.Unmarshal([]byte(out), &doc)
+		for _, c := range doc.Criteria {
+			if c.ID == "farber-gronke-2022" {
+				seen[c.Verdict] = true
+			}
+		}
+	}
+	for _, v := range []string{"destroyed", "transformed", "survives-and-grows"} {
+		if !seen[v] {
+			t.Errorf("no radius gave %s (saw %v)", v, seen)
+		}
+	}
+	for _, format := range []string{"csv", "ecsv"} {
+		code, out, errs := runCmd(t, "", append([]string{"sweep", "--format", format, "--radius", "0.3,10,300"}, base...)...)
+		if code != 0 || !strings.Contains(out, "transformed") {
+			t.Errorf("sweep %s: exit %d %s, no transformed verdict", format, code, errs)
+		}
+	}
+}
