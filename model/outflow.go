@@ -372,12 +372,16 @@ func CC85RadiusOutside(mach, gamma float64) float64 {
 	return math.Exp(0.5 * g.outsideG(math.Log(mach)))
 }
 
-// CC85Mach returns the Mach number of the Chevalier & Clegg (1985) wind at
-// r/R = rOverR: the root of CC85RadiusInside on the subsonic branch for
-// r < R and of CC85RadiusOutside on the supersonic branch for r > R,
-// found by Brent's method [Bre73] on ln M between bounds that bracket it
-// (derived, see outflow.go), to a relative 10⁻¹⁵ in M (plus 2ε|ln M|).
-// [CC85] (relations from memory, physics reference §11.3).
+// CC85Mach returns the Mach number M of the Chevalier & Clegg (1985) wind
+// at r/R = rOverR, the root of
+//
+//	CC85RadiusInside(M, γ) = r/R  (M < 1, r < R),   CC85RadiusOutside(M, γ) = r/R  (M > 1, r > R),
+//
+// the subsonic branch inside and the supersonic one outside [CC85]
+// (relations from memory, physics reference §11.3). It is found by Brent's
+// method [Bre73] on ln M between bounds that bracket it (derived, see
+// outflow.go), to a relative 10⁻¹⁵ in M (plus 2ε|ln M|); round trips
+// through the relations return r/R to 2×10⁻¹⁴.
 //
 // Special cases are:
 //
@@ -500,7 +504,16 @@ func (w *Wind) At(r Length) WindPoint {
 	return pt
 }
 
-// Mach returns the wind's Mach number at radius r, CC85Mach(r/R, γ).
+// Mach returns the wind's Mach number at radius r,
+//
+//	M(r) = CC85Mach(r/R, γ),
+//
+// [CC85] (from memory, WindStatus).
+//
+// Special cases are:
+//
+//	Mach(0) = 0, Mach(R) = 1, Mach(+Inf) = +Inf
+//	Mach(r < 0 or NaN) = NaN
 func (w *Wind) Mach(r Length) float64 {
 	return math.Exp(w.g.logMach(float64(r) / float64(w.Params.Radius)))
 }
@@ -539,9 +552,17 @@ func (w *Wind) coolingTime(pt WindPoint, cf CoolingFunction) Time {
 	return CoolingTime(q.HeatCapacity.Factor(), pt.N, pt.T, prod, lam)
 }
 
-// FlowTime returns the wind's flow time r/v at radius r: the time over
-// which the adiabatic solution must hold there (finite at r = 0, where it
-// is the limit R e^{C_in} (2/(γ−1))^{1/2}/v_∞, derived).
+// FlowTime returns the wind's flow time at radius r,
+//
+//	t_flow = r/v(r),
+//
+// the time over which the adiabatic solution must hold there (a
+// definition; compare CoolingTime).
+//
+// Special cases are:
+//
+//	FlowTime(0) = R e^{C_in} (2/(γ−1))^{1/2}/v_∞, the limit r → 0 (derived; v ∝ r there)
+//	FlowTime(+Inf) = +Inf
 func (w *Wind) FlowTime(r Length) Time { return w.At(r).TFlow }
 
 // coolingFlowSign is t_cool/(t_cool + t_flow) − 1/2: positive where the
@@ -571,10 +592,14 @@ func (w *Wind) coolingCrossing(cf CoolingFunction, lo, hi float64, fLo, fHi floa
 // Samples per decade of radius of CoolingRadius's search.
 const coolingSamplesPerDecade = 32
 
-// CoolingRadius returns the smallest radius in [lo, hi] at which the
-// wind's own cooling time is no longer than its flow time, t_cool ≤ r/v,
+// CoolingRadius returns the smallest radius r_cool in [lo, hi] at which
+// the wind's own cooling time is no longer than its flow time,
+//
+//	t_cool(r_cool) = r_cool/v(r_cool),
+//
 // and whether there is one: past it the adiabatic solution is not
-// self-consistent. The ratio is sampled 32 times per decade (at least 16
+// self-consistent (physics reference §11.3 assumes no cooling; the
+// comparison is cloudwind's test of that). The ratio is sampled 32 times per decade (at least 16
 // intervals) and the first crossing refined by Brent's method on ln r
 // [Bre73] to 10⁻¹² in ln r; a dip below and back within one sample
 // interval is missed. It returns lo when the wind already cools there. It
@@ -608,10 +633,19 @@ func (w *Wind) CoolingRadius(cf CoolingFunction, lo, hi Length) (Length, bool, e
 
 // CloudParams returns the Params of a cloud of radius rCl at rest at
 // radius r in the wind, so that every criterion can be evaluated there
-// with Evaluate: χ = T(r)/T_cl (pressure equilibrium, one μ), M = M(r),
-// P/k_B = P(r)/k_B, and T_cl, Z, γ, μ and the conventions of the wind. It
-// returns them with the error of their Validate, wrapped with the radius
-// (errors.As finds the *FieldError): beyond RChiOne, for instance, χ ≤ 1.
+// with Evaluate:
+//
+//	χ = T(r)/T_cl,   M = M(r),   P/k_B = P(r)/k_B,
+//
+// pressure equilibrium with one μ (physics reference §3 and §11.3,
+// derived), with T_cl, Z, γ, μ and the conventions of the wind. It returns
+// them with the error of their Validate, wrapped with the radius
+// (errors.As finds the *FieldError).
+//
+// Special cases are:
+//
+//	CloudParams(r ≥ RChiOne, …) = χ ≤ 1, and a *FieldError on FieldChi
+//	CloudParams(0, …) = M = 0, and a *FieldError on FieldMach
 func (w *Wind) CloudParams(r, rCl Length) (Params, error) {
 	pt := w.At(r)
 	p := w.cloudParams(pt, rCl)

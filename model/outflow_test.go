@@ -433,6 +433,9 @@ func TestWindCloudParams(t *testing.T) {
 		if !errors.As(err, &fe) || fe.Field != FieldChi {
 			t.Errorf("CloudParams beyond RChiOne: err = %v, want a *FieldError on chi", err)
 		}
+		if _, err := w.CloudParams(0, Parsec); !errors.As(err, &fe) || fe.Field != FieldMach {
+			t.Errorf("CloudParams(0): err = %v, want a *FieldError on mach (M = 0 at the centre)", err)
+		}
 	}
 }
 
