@@ -79,3 +79,14 @@ const SpeedOfLight = 2.99792458e10
 // 1.602176634e-19 C (exact in the 2019 SI; CODATA 2018) times c/(10 cm s⁻¹)
 // statC per C: 4.80320471…e-10 esu. Derived, never retyped.
 const ElementaryCharge = 1.602176634e-19 * SpeedOfLight / 10
+
+// SolarMassPerYear is 1 M☉ yr⁻¹ in g s⁻¹: SolarMass over the Julian Year.
+// Derived, never retyped.
+const SolarMassPerYear = MassRate(float64(SolarMass) / float64(Year))
+
+// SupernovaPowerPerSFR is the energy injection rate per unit
+// star-formation rate that sets an outflow's Ė = α · SupernovaPowerPerSFR ·
+// SFR: 3×10⁴¹ erg s⁻¹ per M☉ yr⁻¹, here in erg g⁻¹ (erg s⁻¹ per g s⁻¹).
+// Status: from memory (physics reference §11.3, "typical inputs"), not
+// checked against a source; WindLoadingStatus says so for people.
+const SupernovaPowerPerSFR = 3e41 / float64(SolarMassPerYear)

@@ -9,7 +9,10 @@
 // the cloud (mass, velocity and position against t/t_cc, with its own
 // adaptive Dormand–Prince 5(4) integrator), and MakePlan and ComparePlans
 // turn a scenario into a costed wind-tunnel simulation that can tell the
-// criteria apart.
+// criteria apart. Wind is the adiabatic outflow of [CC85], whose χ, Mach
+// number and pressure vary with radius: Wind.Profile evaluates every
+// criterion along it and Wind.Carry integrates a cloud carried outward
+// through it.
 //
 // The package is pure: it does no I/O and imports nothing of the program's
 // interface. It declares the cooling-function interface it consumes
@@ -39,7 +42,10 @@
 // # References
 //
 //   - [AFB23] Abruzzo, Fielding & Bryan 2023, arXiv:2307.03228.
+//   - [Bre73] Brent 1973, Algorithms for Minimization without Derivatives, Prentice-Hall, chapter 4.
 //   - [BB18] Banda-Barragán, Federrath, Crocker & Bicknell 2018, MNRAS 473, 3454, arXiv:1706.06607.
+//   - [CC85] Chevalier & Clegg 1985, Nature 317, 44.
+//   - [DSG25] Dutta, Sharma & Gronke 2025, arXiv:2506.08545.
 //   - [DP80] Dormand & Prince 1980, J. Comput. Appl. Math. 6, 19.
 //   - [GOJN22] Gronke, Oh, Ji & Norman 2022, MNRAS 511, 859, arXiv:2107.13012.
 //   - [HNW93] Hairer, Nørsett & Wanner 1993, Solving Ordinary Differential Equations I, Springer, §II.4.
@@ -58,14 +64,17 @@
 //   - [SPE20] Sparre, Pfrommer & Ehlert 2020, MNRAS 499, 4261, arXiv:2008.09118.
 //   - [TOG21] Tan, Oh & Gronke 2021, MNRAS 502, 3179, arXiv:2008.12302.
 //
-// Journal references of [BB18], [FG22], [GOJN22], [KDS21], [McC15], [McC18],
-// [TOG21] and [YFB10], the authors of [McC15] and [YFB10], and the year of
-// [BF90] are from memory; the arXiv identifiers are those the physics
-// reference confirmed. No equation number is cited, because none was read
-// from the papers themselves.
+// Journal references of [BB18], [CC85], [FG22], [GOJN22], [KDS21], [McC15],
+// [McC18], [TOG21] and [YFB10], the authors of [McC15] and [YFB10], and the
+// year of [BF90] are from memory; the arXiv identifiers are those the
+// physics reference confirmed. The relations of [CC85] are from memory too
+// (WindStatus). No equation number is cited, because none was read from the
+// papers themselves.
 //
 // [AFB23]: https://arxiv.org/abs/2307.03228
 // [AAG21]: https://arxiv.org/abs/2105.01661
+// [CC85]: https://ui.adsabs.harvard.edu/abs/1985Natur.317...44C
+// [DSG25]: https://arxiv.org/abs/2506.08545
 // [BB18]: https://arxiv.org/abs/1706.06607
 // [GOJN22]: https://arxiv.org/abs/2107.13012
 // [LRS26]: https://arxiv.org/abs/2602.10082

@@ -74,3 +74,11 @@ func Quantities() []Quantity {
 		{"t_grow_per_t_cc", "t_grow/t_cc", "growth time in crushing times", Dimensionless, "t_grow/t_cc", "derived", func(s *State) float64 { return float64(s.TGrow / s.TCC) }},
 	}
 }
+
+// Power is an energy per unit time in erg s⁻¹, such as the energy
+// injection rate Ė of an outflow.
+type Power float64
+
+// MassRate is a mass per unit time in g s⁻¹, such as the mass injection
+// rate Ṁ of an outflow or a star-formation rate.
+type MassRate float64
