@@ -122,7 +122,8 @@ type cloudODE struct {
 	ratio0   float64 // the criterion's ratio at r0; +Inf gives S = 0 always
 	thr      float64 // its threshold α (χ/100)^β
 	power    float64 // p in ratio ∝ r^{-p}: 1 for cooling times, 1/4 for t_grow
-	warm0    float64 // a three-outcome criterion's warm-gas ratio at r0 (∝ 1/r); +Inf when none
+	warm0    float64 // a three-outcome criterion's warm-gas ratio at r0 (∝ 1/r); +Inf destroys
+	warm     bool    // the criterion has the three outcomes at this state
 	warmThr  float64 // its threshold
 	width    float64 // n of the smooth branch
 	smooth   bool
@@ -142,8 +143,11 @@ func (o *cloudODE) branch(rho float64) float64 {
 		rp = math.Pow(rho, o.power)
 	}
 	u := o.ratio0 / (rp * o.thr) // ratio/threshold
-	if !math.IsInf(o.warm0, 1) {
+	if o.warm {
 		u = o.warm0 / (rho * o.warmThr) // a three-outcome criterion: the gas at T_w grows, survived or transformed
+		if math.IsInf(u, 1) {
+			return 0 // no warm gas survives (State.evaluate: destroyed)
+		}
 	}
 	if o.smooth {
 		return 1 / (1 + math.Pow(u, o.width)) // a modelling choice, not a published result (§6.5)
@@ -218,7 +222,7 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 		}
 		o.ratio0, o.thr, o.power = out.Ratio, out.Threshold, c.Cool.radiusPower()
 		if out.WarmRatio >= 0 && out.WarmThreshold > 0 {
-			o.warm0, o.warmThr = out.WarmRatio, out.WarmThreshold
+			o.warm0, o.warmThr, o.warm = out.WarmRatio, out.WarmThreshold, true
 		}
 	}
 	return o, nil

@@ -59,7 +59,7 @@ func ExampleWind_Profile() {
 	// r = 0.1   R: χ = 1.38e+03 M = 0.033 r_crit = 0.000343 pc survives-and-grows disagree false adiabatic true
 	// r = 1     R: χ = 1.04e+03 M = 1     r_crit = 0.0246   pc survives-and-grows disagree true  adiabatic true
 	// r = 10    R: χ = 30.6   M = 11.5  r_crit = 16.3     pc destroyed          disagree true  adiabatic true
-	// r = 100   R: χ = 1.41   M = 54.3  r_crit = 2.65e+03 pc destroyed          disagree false adiabatic false
+	// r = 100   R: χ = 1.41   M = 54.3  r_crit = 2.65e+03 pc destroyed          disagree true  adiabatic false
 	// the wind cools within a flow time beyond 24.2 R
 }
 

@@ -35,16 +35,18 @@ func BenchmarkWindProfile(b *testing.B) {
 // BenchmarkCarriedCloud measures clouds launched at rest at R and carried
 // to 100 R: a 30 pc cloud on the gronke-oh-2018 branch (it grows, then is
 // stripped, and arrives), and a 1 pc cloud on the growth branch throughout
-// (it grows ×19).
+// (it grows ×19), and a 300 pc cloud on li-2020's shocked-gas
+// criterion, which is applied through State.Evaluate at every step.
 func BenchmarkCarriedCloud(b *testing.B) {
 	w := mustWind(b, FiducialWind())
 	cf := newStubTable()
 	c, _ := CriterionByID(BuiltinCriteria(), "gronke-oh-2018")
+	li, _ := CriterionByID(BuiltinCriteria(), "li-2020")
 	for _, bc := range []struct {
 		name string
 		rCl  Length
 		c    *Criterion
-	}{{"gronke-oh-2018/30pc", 30 * Parsec, c}, {"growing/1pc", Parsec, &always}} {
+	}{{"gronke-oh-2018/30pc", 30 * Parsec, c}, {"growing/1pc", Parsec, &always}, {"li-2020/300pc", 300 * Parsec, li}} {
 		b.Run(bc.name, func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {

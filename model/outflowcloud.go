@@ -205,6 +205,11 @@ type carryODE struct {
 	growOn, lossOn        bool
 	dragOn, smooth        bool
 	dragBoost             float64 // 1 + (v_A/v_w)²
+	// general: the criterion is applied through State.Evaluate at the
+	// local state (shocked-gas and growth-time cooling, the three-outcome
+	// test, the turbulent crushing time), not through the fast path below.
+	general bool
+	st      State // scratch state of the general path
 
 	// The minimum of T²/Λ on the isobar, found over [T_cl, mmHi]; valid
 	// for any T_hot in [mmT, mmHi].
@@ -235,6 +240,10 @@ func newCarryODE(w *Wind, cf CoolingFunction, c *Criterion, set EvolveSettings, 
 	o.dragOn = set.Disable&TermRamDrag == 0
 	o.smooth = set.Branch == BranchSmooth
 	o.dragBoost = 1 + set.AlfvenOverWind*set.AlfvenOverWind
+	switch {
+	case c.Cool == CoolShocked, c.Cool == CoolGrow, c.HasThirdOutcome(), c.Dyn == DynTurbulentCC:
+		o.general = true
+	}
 	return o
 }
 
@@ -304,16 +313,22 @@ func (o *carryODE) local(y []float64) carryLocal {
 
 	// Branch: the criterion at the current radius and the local state (§6.5).
 	l.ratio, l.thr = math.Inf(1), 1
-	if o.c.Cool != CoolNone {
+	u := math.Inf(1)
+	switch {
+	case o.c.Cool == CoolNone:
+	case o.general:
+		u = o.generalBranch(&l, pt, chi)
+	default:
 		td := l.tcc
 		if o.c.Dyn == DynShear {
 			td = l.rCl / vw
 		}
 		l.ratio = o.coolingTime(o.c.Cool, pt, rhoCl) / td
 		l.thr = o.c.Threshold(chi)
+		u = l.ratio / l.thr
 	}
-	switch u := l.ratio / l.thr; {
-	case math.IsInf(l.ratio, 1):
+	switch {
+	case math.IsInf(l.ratio, 1), math.IsInf(u, 1):
 		l.s = 0
 	case o.smooth:
 		l.s = 1 / (1 + math.Pow(u, o.set.Width)) // a modelling choice, not a published result (§6.5)
@@ -341,6 +356,28 @@ func (o *carryODE) local(y []float64) carryLocal {
 	l.mdot = grow - loss           // §6.5
 	l.dvdt = grow/m*delta + drag/m // (ṁ_grow/m)Δv + F_drag/m, §6.4; lost mass keeps v
 	return l
+}
+
+// generalBranch applies the criterion through State.Evaluate to the
+// wind-tunnel problem at the local state (Wind.CloudParams with r_cl and
+// χ ≥ 1), sets l.ratio and l.thr and returns ratio/threshold, or for a
+// three-outcome criterion the warm gas's ratio/threshold, as Evolve's
+// branch does at t = 0. A state that cannot be derived gives +Inf (S = 0).
+func (o *carryODE) generalBranch(l *carryLocal, pt *WindPoint, chi float64) float64 {
+	p := o.w.cloudParams(*pt, Length(l.rCl))
+	p.Chi = chi
+	if err := o.st.derive(p, o.cf); err != nil {
+		return math.Inf(1)
+	}
+	out := o.st.Evaluate(o.c)
+	if !(out.Ratio >= 0) || !(out.Threshold > 0) {
+		return math.Inf(1)
+	}
+	l.ratio, l.thr = out.Ratio, out.Threshold
+	if out.WarmRatio >= 0 && out.WarmThreshold > 0 {
+		return out.WarmRatio / out.WarmThreshold
+	}
+	return out.Ratio / out.Threshold
 }
 
 // eval is the odeFunc of the system in τ = t v_∞/R.

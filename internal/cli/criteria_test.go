@@ -125,7 +125,7 @@ func TestTransformedVerdict(t *testing.T) {
 	base := []string{"--t-cloud", "800", "--chi", "3750", "--pressure", "1e4"}
 	seen := map[string]bool{}
 	for _, r := range []string{"0.3pc", "10pc", "300pc"} {
-		code, out, errs := runCmd(t, "", append(append([]string{"eval", "--format", "json", "--radius", r}, base...))...)
+		code, out, errs := runCmd(t, "", append([]string{"eval", "--format", "json", "--radius", r}, base...)...)
 		if code != 0 {
 			t.Fatalf("eval: %s", errs)
 		}
