@@ -18,6 +18,8 @@ const (
 	DimPressure                // P/k_B, K cm⁻³
 	DimCooling                 // erg cm³ s⁻¹
 	DimMetallicity             // Z☉
+	DimPower                   // erg s⁻¹
+	DimMassRate                // g s⁻¹
 	DimensionCount             // number of dimensions; not a dimension
 )
 

@@ -41,6 +41,8 @@ var displayUnits = [model.DimensionCount]displayUnit{
 	model.DimPressure:      {"K cm⁻³", "K cm^-3", "K / cm3", "kcm3", 1, 3},
 	model.DimCooling:       {"erg cm³ s⁻¹", "erg cm^3 s^-1", "erg cm3 / s", "ergcm3s", 1, 3},
 	model.DimMetallicity:   {"Z☉", "Zsun", "", "zsun", 1, 3},
+	model.DimPower:         {"erg s⁻¹", "erg s^-1", "erg / s", "ergs", 1, 3},
+	model.DimMassRate:      {"M☉ yr⁻¹", "Msun yr^-1", "solMass / yr", "msunyr", float64(model.SolarMassPerYear), 3},
 }
 
 // Unit returns the display label of k's unit ("" when dimensionless).

@@ -64,6 +64,14 @@ var inputUnits = map[Kind][]inputUnit{
 	model.DimMetallicity: {
 		{names: []string{"Zsun", "Z☉", "solar"}, factor: 1},
 	},
+	model.DimPower: {
+		{names: []string{"erg/s", "erg s-1", "erg s^-1", "erg s⁻¹", "erg / s"}, factor: 1},
+		{names: []string{"W"}, factor: 1e7}, // 1 W = 10⁷ erg s⁻¹ (SI definition)
+	},
+	model.DimMassRate: {
+		{names: []string{"Msun/yr", "Msun yr-1", "Msun yr^-1", "M☉ yr⁻¹", "M☉/yr", "solMass / yr"}, factor: float64(model.SolarMassPerYear)},
+		{names: []string{"g/s", "g s-1", "g s^-1", "g s⁻¹", "g / s"}, factor: 1},
+	},
 	model.Dimensionless: {},
 }
 

@@ -92,6 +92,33 @@ metallicity = 1         # Z/Z_sun
 spec = "builtin"
 `
 
+// demoOutflow is a starburst-driven Chevalier & Clegg wind carrying 5 pc
+// clouds; [inputs] is the wind at its injection radius R (χ, M = 1 and
+// P/k_B there, rounded), where the other views start.
+const demoOutflow = `# cloudwind demo scenario: fictional, invented numbers
+[scenario]
+name = "Demo (fictional): clouds in a starburst-driven outflow"
+description = "Invented numbers, no real object: a Chevalier & Clegg wind from 20 M_sun/yr of star formation inside 200 pc, carrying 5 pc clouds; the criteria part ways from 0.6 R to about 20 R. The inputs are the wind at R."
+demo = true
+
+[inputs]
+chi = 1250              # the wind at r = R: T(R)/T_cl
+mach = 1
+pressure = 3e7          # P/k_B in K cm^-3
+t_cloud = 1e4           # K
+radius = 5              # pc
+metallicity = 1         # Z/Z_sun
+
+[cooling]
+spec = "builtin"
+
+[outflow]
+sfr = 20                # M_sun/yr
+energy_loading = 0.6    # alpha
+mass_loading = 0.5      # beta
+injection_radius = 200  # pc
+`
+
 // Demos returns cloudwind's demo scenarios, in display order:
 // fictional settings, labelled so in Name and Description, with Demo set.
 // It returns an error only if a demo file fails to parse, which the tests
@@ -102,6 +129,7 @@ func Demos() ([]Scenario, error) {
 		{"demo/cgm.toml", demoCGM},
 		{"demo/cluster-core.toml", demoClusterCore},
 		{"demo/cold-clump.toml", demoColdClump},
+		{"demo/outflow.toml", demoOutflow},
 	}
 	out := make([]Scenario, 0, len(files))
 	for _, f := range files {

@@ -20,8 +20,8 @@ func TestDemoScenarios(t *testing.T) {
 	if err != nil {
 		t.Fatalf("Demos: %v", err)
 	}
-	if len(demos) < 3 || len(demos) > 4 {
-		t.Errorf("Demos returned %d demos, want 3 or 4", len(demos))
+	if len(demos) < 3 || len(demos) > 5 {
+		t.Errorf("Demos returned %d demos, want 3 to 5", len(demos))
 	}
 	seen := map[string]bool{}
 	for _, d := range demos {
@@ -116,5 +116,56 @@ func TestDemoScenariosConstantCooling(t *testing.T) {
 		if err != nil || len(r.Outcomes) != len(model.BuiltinCriteria()) {
 			t.Errorf("demo %q with constant cooling: %d outcomes, error %v", d.Name, len(r.Outcomes), err)
 		}
+	}
+}
+
+// TestDemoOutflow: one demo holds an outflow, a valid wind along which
+// the built-in criteria disagree about its clouds over a stretch of radii
+// (a rule of this package: demos show disagreement).
+func TestDemoOutflow(t *testing.T) {
+	demos, err := Demos()
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := cooling.NewBuiltin()
+	if err != nil {
+		t.Fatal(err)
+	}
+	found := 0
+	for _, d := range demos {
+		wp, ok := d.Wind()
+		if !ok {
+			continue
+		}
+		found++
+		w, err := model.NewWind(wp)
+		if err != nil {
+			t.Fatalf("demo %q: NewWind: %v", d.Name, err)
+		}
+		cf, err := b.At(wp.Metallicity)
+		if err != nil {
+			t.Fatal(err)
+		}
+		prof, err := w.Profile(d.Params.RCloud, cf, model.BuiltinCriteria(), model.ProfileGrid{})
+		if err != nil {
+			t.Fatalf("demo %q: Profile: %v", d.Name, err)
+		}
+		disagree := 0
+		for _, row := range prof.Rows {
+			if row.Err == nil && row.Disagree {
+				disagree++
+			}
+		}
+		if disagree < len(prof.Rows)/4 {
+			t.Errorf("demo %q: the criteria disagree at %d of %d radii; want a stretch of at least a quarter", d.Name, disagree, len(prof.Rows))
+		}
+		// [inputs] is the wind at R, rounded: within 5% in χ and P/k_B.
+		at := w.At(wp.Radius)
+		if math.Abs(at.Chi/d.Params.Chi-1) > 0.05 || math.Abs(float64(at.Pressure/d.Params.Pressure)-1) > 0.05 || d.Params.Mach != 1 {
+			t.Errorf("demo %q: [inputs] χ = %g, M = %g, P/k_B = %g; the wind at R has %g, 1, %g", d.Name, d.Params.Chi, d.Params.Mach, float64(d.Params.Pressure), at.Chi, float64(at.Pressure))
+		}
+	}
+	if found != 1 {
+		t.Errorf("%d demos hold an outflow, want 1", found)
 	}
 }

@@ -133,7 +133,7 @@
 //	hydrogen_fraction = 0.7381
 //	t_floor = 1e4             # K; left out = the cloud temperature
 //	heat_capacity = "isochoric"  # or "isobaric"
-//	density_product = "nh2"      # or "n2"
+//	density_product = "nh2"      # or "n2", "neni"
 //	mix_cooling = "minmix"       # the growth model's cooling time: minmix (default), cold, mix or hot
 //
 //	[cooling]                 # optional; left out = the program's default

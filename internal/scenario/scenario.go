@@ -36,10 +36,50 @@ type Scenario struct {
 	// table's directive lines ("norm: nH2", "columns: T=1 lambda=2"); nil
 	// when there are none.
 	Table []string
+
+	// Outflow is the [outflow] table, the injection of a Chevalier &
+	// Clegg wind; nil when the file has none. The wind's other inputs are
+	// the scenario's t_cloud, metallicity and conventions (Wind).
+	Outflow *Outflow
+}
+
+// Outflow holds the injection of an outflow in CGS (the file gives the
+// star-formation and mass rates in M☉ yr⁻¹, the energy rate in erg s⁻¹ and
+// the injection radius in pc): either the star-formation rate with the
+// loadings, or the two rates, as in model.WindParams.
+type Outflow struct {
+	SFR           model.MassRate
+	EnergyLoading float64
+	MassLoading   float64
+	EnergyRate    model.Power
+	MassRate      model.MassRate
+	Radius        model.Length
+}
+
+// Wind returns the outflow's model.WindParams, with T_cl, Z and the
+// conventions of s.Params, and whether s has an outflow.
+func (s *Scenario) Wind() (model.WindParams, bool) {
+	if s.Outflow == nil {
+		return model.WindParams{}, false
+	}
+	o, p := s.Outflow, &s.Params
+	return model.WindParams{SFR: o.SFR, EnergyLoading: o.EnergyLoading, MassLoading: o.MassLoading,
+		EnergyRate: o.EnergyRate, MassRate: o.MassRate, Radius: o.Radius,
+		TCloud: p.TCloud, Metallicity: p.Metallicity, Gamma: p.Gamma, Mu: p.Mu,
+		Mixture: p.Mixture, HydrogenFraction: p.HydrogenFraction, TFloor: p.TFloor,
+		HeatCapacity: p.HeatCapacity, DensityProduct: p.DensityProduct, MixCooling: p.MixCooling}, true
 }
 
 // scenarioTables returns the tables of a scenario file.
-func scenarioTables() []string { return []string{"scenario", "inputs", "conventions", "cooling"} }
+func scenarioTables() []string {
+	return []string{"scenario", "inputs", "conventions", "cooling", "outflow"}
+}
+
+// outflowKeys returns the keys of [outflow], which are model.Field… names.
+func outflowKeys() []string {
+	return []string{model.FieldSFR, model.FieldEnergyLoading, model.FieldMassLoading,
+		model.FieldEnergyRate, model.FieldMassRate, model.FieldWindRadius}
+}
 
 // scenarioKeys returns the keys of [scenario].
 func scenarioKeys() []string { return []string{"name", "description", "demo"} }
@@ -114,6 +154,11 @@ func scenarioFrom(root *Table) (Scenario, error) {
 				return setInputKey(&s.Params, k, v)
 			case "conventions":
 				return setConventionKey(&s.Params, k, v)
+			case "outflow":
+				if s.Outflow == nil {
+					s.Outflow = &Outflow{}
+				}
+				return setOutflowKey(s.Outflow, k, v)
 			}
 			return setCoolingKey(&s, k, v)
 		}
@@ -138,7 +183,67 @@ func scenarioFrom(root *Table) (Scenario, error) {
 	if err := s.Params.Validate(); err != nil {
 		return Scenario{}, errAt(fieldLine(err, lines), "%w", err)
 	}
+	if _, ok := lines["[outflow]"]; ok && s.Outflow == nil {
+		s.Outflow = &Outflow{} // an empty [outflow]: Validate names what is missing
+	}
+	if w, ok := s.Wind(); ok {
+		if s.Params.MuCold != 0 || s.Params.MuHot != 0 {
+			l := lines[model.FieldMuCold]
+			if l == 0 {
+				l = lines[model.FieldMuHot]
+			}
+			return Scenario{}, errAt(l, "an outflow has one μ for the wind and its clouds: set mu, not mu_cloud or mu_hot")
+		}
+		if err := w.Validate(); err != nil {
+			l := lines["[outflow]"]
+			var fe *model.FieldError
+			if errors.As(err, &fe) && lines[fe.Field] > 0 {
+				l = lines[fe.Field]
+			}
+			return Scenario{}, errAt(l, "[outflow]: %w", err)
+		}
+	}
 	return s, nil
+}
+
+// setOutflowKey sets a key of [outflow]; rates are given in M☉ yr⁻¹, the
+// energy rate in erg s⁻¹ and the injection radius in pc. A number may not
+// be 0: leave the key out.
+func setOutflowKey(o *Outflow, key string, v Value) error {
+	if !slices.Contains(outflowKeys(), key) {
+		return unknownKey(key, v.Line, "[outflow]", outflowKeys())
+	}
+	x, err := numberValue(key, v)
+	if err != nil {
+		return err
+	}
+	switch key {
+	case model.FieldSFR, model.FieldMassRate:
+		x *= float64(model.SolarMassPerYear)
+	case model.FieldWindRadius:
+		x *= float64(model.Parsec)
+	}
+	if math.IsInf(x, 0) {
+		return errAt(v.Line, "%s = %g is out of range", key, v.Num)
+	}
+	if err := model.CheckWindField(key, x); err != nil {
+		return errAt(v.Line, "%w", err)
+	}
+	switch key {
+	case model.FieldSFR:
+		o.SFR = model.MassRate(x)
+	case model.FieldEnergyLoading:
+		o.EnergyLoading = x
+	case model.FieldMassLoading:
+		o.MassLoading = x
+	case model.FieldEnergyRate:
+		o.EnergyRate = model.Power(x)
+	case model.FieldMassRate:
+		o.MassRate = model.MassRate(x)
+	case model.FieldWindRadius:
+		o.Radius = model.Length(x)
+	}
+	return nil
 }
 
 // keyTable returns the table a scenario key belongs in, or "".
@@ -146,7 +251,7 @@ func keyTable(key string) string {
 	for _, t := range []struct {
 		name string
 		keys []string
-	}{{"scenario", scenarioKeys()}, {"inputs", inputKeys()}, {"conventions", conventionKeys()}, {"cooling", coolingKeys()}} {
+	}{{"scenario", scenarioKeys()}, {"inputs", inputKeys()}, {"conventions", conventionKeys()}, {"cooling", coolingKeys()}, {"outflow", outflowKeys()}} {
 		if slices.Contains(t.keys, key) {
 			return t.name
 		}
@@ -242,7 +347,7 @@ func setConventionKey(p *model.Params, key string, v Value) error {
 		p.HeatCapacity = h
 		return err
 	case model.FieldDensityProduct:
-		d, err := choiceValue(key, v, []model.DensityProduct{model.NH2, model.N2})
+		d, err := choiceValue(key, v, model.DensityProducts())
 		p.DensityProduct = d
 		return err
 	case model.FieldMixCooling:
@@ -283,7 +388,11 @@ func choiceValue[T fmt.Stringer](key string, v Value, options []T) (T, error) {
 			return o, nil
 		}
 	}
-	return zero, errAt(v.Line, "unknown %s %q (want %s)%s", key, clip(s), strings.Join(names, " or "), suggest(s, names))
+	want := names[len(names)-1]
+	if len(names) > 1 {
+		want = strings.Join(names[:len(names)-1], ", ") + " or " + want
+	}
+	return zero, errAt(v.Line, "unknown %s %q (want %s)%s", key, clip(s), want, suggest(s, names))
 }
 
 // setCoolingKey sets a key of [cooling].
@@ -368,6 +477,14 @@ func checkWritable(s Scenario) error {
 	}
 	if len(s.Table) > 0 && s.Cooling == "" {
 		return errors.New("table settings without a cooling spec")
+	}
+	if w, ok := s.Wind(); ok {
+		if s.Params.MuCold != 0 || s.Params.MuHot != 0 {
+			return errors.New("an outflow with mu_cloud or mu_hot")
+		}
+		if err := w.Validate(); err != nil {
+			return fmt.Errorf("outflow: %w", err)
+		}
 	}
 	if s.Cooling != "" && strings.TrimSpace(s.Cooling) == "" {
 		return errors.New("cooling spec is blank")
@@ -464,6 +581,24 @@ func Write(w io.Writer, s Scenario) error {
 			kv("table", "["+strings.Join(q, ", ")+"]", "")
 		}
 	}
+	if o := s.Outflow; o != nil {
+		b.WriteString("\n[outflow]\n")
+		msunYr := float64(model.SolarMassPerYear)
+		for _, f := range []struct {
+			key     string
+			v, unit float64
+			comment string
+		}{{model.FieldSFR, float64(o.SFR), msunYr, "star-formation rate in M_sun/yr"},
+			{model.FieldEnergyLoading, o.EnergyLoading, 1, "alpha in Edot = alpha 3e41 erg/s per M_sun/yr"},
+			{model.FieldMassLoading, o.MassLoading, 1, "beta in Mdot = beta SFR"},
+			{model.FieldEnergyRate, float64(o.EnergyRate), 1, "Edot in erg/s"},
+			{model.FieldMassRate, float64(o.MassRate), msunYr, "Mdot in M_sun/yr"},
+			{model.FieldWindRadius, float64(o.Radius), float64(model.Parsec), "R in pc"}} {
+			if f.v != 0 {
+				kv(f.key, formatIn(f.v, f.unit), f.comment)
+			}
+		}
+	}
 	if _, err := io.WriteString(w, b.String()); err != nil {
 		return fmt.Errorf("write scenario: %w", err)
 	}
@@ -482,13 +617,18 @@ func formatFloat(x float64) string {
 // formatParsecs writes r (cm) in pc, choosing among the floats nearest to
 // r/pc the one that Parse converts back to r exactly, with the
 // shortest text.
-func formatParsecs(r model.Length) string {
-	y := float64(r / model.Parsec)
+func formatParsecs(r model.Length) string { return formatIn(float64(r), float64(model.Parsec)) }
+
+// formatIn writes the CGS value v in units of unit, as the value that
+// converts back (× unit) to the same v when one exists within two units in
+// the last place, else the nearest.
+func formatIn(v, unit float64) string {
+	y := v / unit
 	best := ""
 	for _, c := range []float64{y, math.Nextafter(y, math.Inf(1)), math.Nextafter(y, math.Inf(-1)),
 		math.Nextafter(math.Nextafter(y, math.Inf(1)), math.Inf(1)),
 		math.Nextafter(math.Nextafter(y, math.Inf(-1)), math.Inf(-1))} {
-		if model.Length(c)*model.Parsec != r {
+		if c*unit != v {
 			continue
 		}
 		if s := formatFloat(c); best == "" || len(s) < len(best) {

@@ -154,7 +154,7 @@ func randomScenario(r *rand.Rand) Scenario {
 			Metallicity: maybe(logU(-3, 2.9)),
 			Gamma:       maybe(1 + 1.9*r.Float64()), Mu: maybe(logU(-0.9, 0.9)), MuCold: maybe(logU(-0.9, 0.9)),
 			MuHot: maybe(logU(-0.9, 0.9)), HydrogenFraction: maybe(logU(-2.9, 0)),
-			HeatCapacity: model.HeatCapacity(r.IntN(2)), DensityProduct: model.DensityProduct(r.IntN(2)),
+			HeatCapacity: model.HeatCapacity(r.IntN(2)), DensityProduct: model.DensityProduct(r.IntN(3)),
 		}
 		if r.IntN(2) == 0 {
 			ms := model.Mixtures()
@@ -174,6 +174,23 @@ func randomScenario(r *rand.Rand) Scenario {
 			s.Cooling = "tables/" + text() + "x.dat"
 			for range r.IntN(3) {
 				s.Table = append(s.Table, "norm: "+text()+"x")
+			}
+		}
+		if r.IntN(3) == 0 { // an outflow, with one μ
+			s.Params.MuCold, s.Params.MuHot = 0, 0
+			o := &Outflow{Radius: model.Length(logU(-2.9, 5.9)) * model.Parsec}
+			if r.IntN(2) == 0 {
+				o.SFR = model.MassRate(logU(-5.9, 4.9)) * model.SolarMassPerYear
+				o.EnergyLoading, o.MassLoading = logU(-3, 1), logU(-3, 2)
+			} else {
+				o.EnergyRate, o.MassRate = model.Power(logU(30.1, 49.9)), model.MassRate(logU(-8, 8.4))*model.SolarMassPerYear // written in M☉ yr⁻¹, as a file gives it
+			}
+			s.Outflow = o
+			if s.Params.Validate() != nil {
+				continue
+			}
+			if w, _ := s.Wind(); w.Validate() != nil {
+				continue
 			}
 		}
 		return s
@@ -298,7 +315,16 @@ func badScenarioCases() []badScenarioCase {
 		{"unknown mixture", "[conventions]\nmixture = \"A10\"\n", 2, `unknown mixture "A10" (want one of A09, A09p, AG89, GS98, A21)`, ""},
 		{"mixture in lower case", "[conventions]\nmixture = \"gs98\"\n", 2, `unknown mixture "gs98" (want one of A09, A09p, AG89, GS98, A21) (did you mean "GS98"?)`, ""},
 		{"unknown heat capacity", "[conventions]\nheat_capacity = \"isothermal\"\n", 2, `unknown heat_capacity "isothermal" (want isochoric or isobaric)`, ""},
-		{"unknown density product", "[conventions]\ndensity_product = \"nH2\"\n", 2, `unknown density_product "nH2" (want nh2 or n2) (did you mean "nh2"?)`, ""},
+		{"outflow without loadings", "[outflow]\nsfr = 10\ninjection_radius = 300\n", 1, "[outflow]: energy_loading: must be greater than 0 (got 0)", "energy_loading"},
+		{"outflow with both modes", "[outflow]\nsfr = 10\nenergy_loading = 1\nmass_loading = 1\nenergy_rate = 1e42\nmass_rate = 3\ninjection_radius = 300\n", 2, "give either the injection rates", "sfr"},
+		{"negative sfr", "[outflow]\n\nsfr = -1\n", 3, "sfr: must be", "sfr"},
+		{"outflow without radius", "[outflow]\nenergy_rate = 1e42\nmass_rate = 2\n", 1, "injection_radius: must be", "injection_radius"},
+		{"misspelt outflow key", "[outflow]\nsfrr = 10\n", 2, `unknown key "sfrr" (did you mean "sfr"?)`, ""},
+		{"outflow key in inputs", "[inputs]\nsfr = 10\n", 2, `key "sfr" belongs in [outflow], not [inputs]`, ""},
+		{"empty outflow", "[outflow]\n", 1, "[outflow]: energy_rate: must be", "energy_rate"},
+		{"outflow with two mu", "[conventions]\nmu_cloud = 1.2\n[outflow]\nsfr = 10\nenergy_loading = 1\nmass_loading = 1\ninjection_radius = 300\n", 2, "an outflow has one μ", ""},
+		{"outflow colder than clouds", "[inputs]\nt_cloud = 1e6\n[outflow]\nenergy_rate = 1e40\nmass_rate = 100\ninjection_radius = 300\n", 2, "the wind is nowhere hotter than the clouds", "t_cloud"},
+		{"unknown density product", "[conventions]\ndensity_product = \"nH2\"\n", 2, `unknown density_product "nH2" (want nh2, n2 or neni) (did you mean "nh2"?)`, ""},
 		{"mixture not a string", "[conventions]\nmixture = 1\n", 2, "mixture must be a string", ""},
 		{"escaped control character", "[scenario]\nname = \"\\u001b[31mred\"\n", 2, "name contains the control character U+001B", ""},
 		{"C1 control character", "[scenario]\ndescription = \"x\u0085y\"\n", 2, "description contains the control character U+0085", ""},
