@@ -30,11 +30,11 @@ import (
 // brentRoot [Bre73] then finds to a few ulp in x.
 
 // WindStatus is the verification status of the outflow model, for people.
-const WindStatus = "Chevalier & Clegg 1985 adiabatic wind: the implicit Mach-number relations inside and outside R are from memory (physics reference §11.3), not checked against the paper, and no equation number is cited; the tests check only what follows from them (M(R) = 1 on both branches, the r ≫ R limits, constant mass and energy flux outside R, ρv = Ṁ r/(4πR³) inside)"
+const WindStatus = "Chevalier & Clegg 1985 (Nature 317, 44) adiabatic wind: the implicit Mach-number relations inside and outside R are from memory, not checked against the paper, and no equation number is cited; the tests check only what follows from them (M(R) = 1 on both branches, the r ≫ R limits, constant mass and energy flux outside R, ρv = Ṁ r/(4πR³) inside)"
 
 // WindLoadingStatus is the status of the star-formation loading of an
 // outflow, for people.
-const WindLoadingStatus = "Ė = α · 3×10⁴¹ erg s⁻¹ per M☉ yr⁻¹ of star formation and Ṁ = β · SFR: from memory (physics reference §11.3, typical inputs), not checked against a source"
+const WindLoadingStatus = "Ė = α · 3×10⁴¹ erg s⁻¹ per M☉ yr⁻¹ of star formation and Ṁ = β · SFR: the supernova energy per unit star formation is from memory, not checked against a source"
 
 // WindAssumptions lists the assumptions of the outflow model, one line
 // each, for people.

@@ -1,5 +1,5 @@
 // Package cli is cloudwind's command line: one file per command (eval,
-// sweep, evolve, plan, cooling, explore), the shared flag handling, and the
+// sweep, evolve, plan, outflow, cooling, explore), the shared flag handling, and the
 // one place where errors become exit statuses. Only explore.go imports the
 // explorer (package tui); the batch commands reach the physics, the
 // cooling functions, the file formats and the reports through the shared
@@ -62,6 +62,7 @@ func commands() []command {
 		{"sweep", "evaluate every criterion over a grid of inputs, to CSV, ECSV or JSON", runSweep},
 		{"evolve", "integrate the cloud's mass, velocity and position against t/t_cc", runEvolve},
 		{"plan", "plan a simulation that can tell the criteria apart: box, resolution, cost", runPlan},
+		{"outflow", "every criterion along a galactic outflow, and a cloud carried by it", runOutflow},
 		{"version", "print the version", runVersion},
 		{"help", "show help for cloudwind or a command", runHelp},
 	}

@@ -44,18 +44,27 @@ func (f *evolveFlags) register(fs *flagSet) {
 	d := model.DefaultEvolveSettings()
 	fs.float(&f.until, "until", d.TEnd, "end time in cloud-crushing times t_cc (of the initial cloud)")
 	fs.fs.StringVar(&f.criterion, "criterion", "all", "the criterion whose branch the cloud follows: an id, or all")
+	fs.fs.StringVar(&f.area, "area", "sphere", "sphere (A ∝ r²) or fragmented (A ∝ m, v_mix fixed: exponential growth)")
+	fs.float(&f.v0, "v0", 0, "initial cloud velocity in v_w")
+	fs.int(&f.samples, "samples", 201, 2, 100000, "output times, evenly spaced from 0 to --until (2–100000)")
+	f.registerModel(fs)
+}
+
+// registerModel adds the flags of the growth and entrainment model (its
+// branch and constants), shared by evolve and outflow --carry, and sets
+// the others to their defaults.
+func (f *evolveFlags) registerModel(fs *flagSet) {
+	d := model.DefaultEvolveSettings()
+	f.until, f.area = d.TEnd, "sphere"
 	fs.fs.StringVar(&f.branch, "branch", "sharp", "sharp (grow or shrink by the criterion) or smooth (S = 1/(1+(ratio/limit)^n))")
 	fs.float(&f.width, "width", d.Width, "n of the smooth branch (a modelling choice)")
 	fs.float(&f.alphaV, "alpha-v", d.AlphaV, "α_v in v_mix = α_v c_s,cl (t_cool/t_sc,cl)^-1/4 (from memory)")
 	fs.float(&f.areaFactor, "area-factor", d.AreaFactor, "f_A in A = f_A 4π r² (from memory)")
-	fs.fs.StringVar(&f.area, "area", "sphere", "sphere (A ∝ r²) or fragmented (A ∝ m, v_mix fixed: exponential growth)")
 	fs.float(&f.kappa, "kappa", d.Kappa, "κ in t_destroy = κ t_cc (literature 2–10)")
 	fs.float(&f.cd, "drag-coefficient", d.DragCoefficient, "C_D of the ram-pressure drag (from memory, ~0.5–1)")
 	fs.float(&f.va, "va-over-vw", 0, "v_A/v_w of a magnetised wind: drag × (1 + v_A²/v_w²)")
 	fs.fs.BoolVar(&f.machFactor, "mach-factor", false, "multiply v_mix by (|Δv|/c_s,hot)^1/2 (from memory, uncertain)")
-	fs.float(&f.v0, "v0", 0, "initial cloud velocity in v_w")
 	fs.float(&f.rtol, "rtol", d.RelTol, "relative tolerance of the integrator")
-	fs.int(&f.samples, "samples", 201, 2, 100000, "output times, evenly spaced from 0 to --until (2–100000)")
 }
 
 // settings turns the flags into model.EvolveSettings.

@@ -8,6 +8,7 @@ import (
 	"io"
 	"math"
 	"path/filepath"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -243,8 +244,16 @@ func numericScenarioFlags() []scenarioFlag {
 }
 
 // register adds the scenario flags to f.
-func (s *scenarioFlags) register(f *flagSet) {
+func (s *scenarioFlags) register(f *flagSet) { s.registerExcept(f) }
+
+// registerExcept adds the scenario flags but the numeric ones named in
+// skip, which stay empty (the model default, or the --scenario file's
+// value): outflow takes χ, M and P from its wind.
+func (s *scenarioFlags) registerExcept(f *flagSet, skip ...string) {
 	for _, sf := range numericScenarioFlags() {
+		if slices.Contains(skip, sf.name) {
+			continue
+		}
 		f.fs.StringVar(sf.ptr(s), sf.name, sf.def, sf.usage)
 	}
 	var mix []string

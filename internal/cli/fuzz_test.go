@@ -4,6 +4,7 @@ import (
 	"errors"
 	"io"
 	"io/fs"
+	"math"
 	"strings"
 	"testing"
 
@@ -66,6 +67,28 @@ func FuzzParseBox(f *testing.F) {
 		a, b, err := parseBox(s)
 		if err == nil && (!(a > 0) || !(b > 0)) {
 			t.Fatalf("parseBox(%q) = %g, %g without error", s, a, b)
+		}
+	})
+}
+
+// FuzzRadiusValue: no outflow radius flag value may panic; one accepted is
+// a positive, finite length, and a plain number is that multiple of R.
+func FuzzRadiusValue(f *testing.F) {
+	for _, s := range []string{"0.1", "100R", "30pc", "2 kpc", "1e400", "-1", "R", "", "0", "10^2", "3 parsec", "1e-300"} {
+		f.Add(s)
+	}
+	bigR := 300 * model.Parsec
+	f.Fuzz(func(t *testing.T, s string) {
+		r, err := radiusValue("r-min", s, bigR)
+		if err != nil {
+			var ue *usageError
+			if !errors.As(err, &ue) || !strings.Contains(err.Error(), "--r-min") {
+				t.Fatalf("radiusValue(%q): %v is not a usage error naming --r-min", s, err)
+			}
+			return
+		}
+		if !(r > 0) || math.IsInf(float64(r), 0) {
+			t.Fatalf("radiusValue(%q) = %g cm without error", s, float64(r))
 		}
 	})
 }

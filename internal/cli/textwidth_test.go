@@ -18,7 +18,8 @@ func TestTextOutputWidth(t *testing.T) {
 		{"evolve"}, {"evolve", "--criterion", "gronke-oh-2018", "--radius", "30pc"},
 		{"plan"}, {"plan", "--compare"}, {"plan", "--question", "entrainment", "--mhd"},
 		{"cooling"}, {"cooling", "--vs", "rosen-bregman-1995"}, {"cooling", "--cooling", "tozzi-norman-2001"},
-		{"help"}, {"eval", "--help"}, {"sweep", "--help"}, {"plan", "--help"},
+		{"outflow"}, {"outflow", "--carry", "--radius", "1pc"}, {"outflow", "--radius", "200pc", "--r-max", "1e3", "--edot", "1e45", "--mdot", "1e3"},
+		{"help"}, {"eval", "--help"}, {"sweep", "--help"}, {"plan", "--help"}, {"outflow", "--help"},
 	} {
 		code, out, errs := runCmd(t, "", args...)
 		if code != 0 {

@@ -101,11 +101,8 @@ func ECSVHeader(w io.Writer, cols []Column, meta []Meta) error {
 	var b strings.Builder
 	b.WriteString("# %ECSV 1.0\n# ---\n# delimiter: ' '\n# datatype:\n")
 	for _, c := range cols {
-		dt := "float64"
-		if c.IsString {
-			dt = "string"
-		}
 		b.WriteString("# - {name: " + yamlString(c.Name))
+		dt := c.datatype()
 		if c.Unit != "" {
 			b.WriteString(", unit: " + yamlString(c.Unit))
 		}
@@ -218,11 +215,7 @@ func (o OrderedJSON) MarshalJSON() ([]byte, error) {
 func JSONHeader(w io.Writer, cols []Column, meta []Meta) error {
 	colMeta := make([]any, len(cols))
 	for i, c := range cols {
-		dt := "float64"
-		if c.IsString {
-			dt = "string"
-		}
-		colMeta[i] = []Meta{{"name", c.Name}, {"unit", c.Unit}, {"datatype", dt}, {"description", c.Description}}
+		colMeta[i] = []Meta{{"name", c.Name}, {"unit", c.Unit}, {"datatype", c.datatype()}, {"description", c.Description}}
 	}
 	head, err := json.Marshal(OrderedJSON{{"schema", "cloudwind.sweep/1"}, {"meta", meta}, {"columns", colMeta}})
 	if err != nil {
@@ -233,6 +226,17 @@ func JSONHeader(w io.Writer, cols []Column, meta []Meta) error {
 	head = append(head[:len(head)-1], `,"rows":[`...)
 	_, err = w.Write(head)
 	return err
+}
+
+// datatype returns the column's ECSV datatype.
+func (c *Column) datatype() string {
+	switch {
+	case c.IsString:
+		return "string"
+	case c.IsBool:
+		return "bool"
+	}
+	return "float64"
 }
 
 // KV returns the metadata entry key: value.
