@@ -15,7 +15,7 @@ type Column struct {
 	Unit        string // astropy unit string; "" when dimensionless
 	Description string
 	IsString    bool
-	IsBool      bool // a boolean: ECSV datatype bool (True/False), JSON true/false
+	IsBool      bool                          // a boolean: ECSV datatype bool (True/False), JSON true/false
 	Num         func(r *model.Result) float64 // display-unit value
 	Str         func(r *model.Result) string
 	JSONKey     []byte // `"name":`, set by sweepColumns

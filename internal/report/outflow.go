@@ -28,9 +28,9 @@ const SmallCloudFraction = 0.1
 // of a row, in display units (Text for string and boolean columns).
 type ProfileField struct {
 	Column
-	Value  func(row *model.WindProfileRow) float64
-	Flag   func(row *model.WindProfileRow) bool
-	Text   func(row *model.WindProfileRow) string
+	Value func(row *model.WindProfileRow) float64
+	Flag  func(row *model.WindProfileRow) bool
+	Text  func(row *model.WindProfileRow) string
 }
 
 // ProfileFields returns the columns of a wind profile along wind w with
