@@ -3,9 +3,11 @@
 # binary at 120×40, change χ with keys and see the threshold and verdict
 # text change, type a value over the selected one, switch every view,
 # export the state twice (the second time answering the overwrite
-# question), resize to 80×24 (every legend entry, the full-screen chart)
-# and 30×10, quit, and confirm the exit status and that the terminal was
-# restored; then run it with --ascii and require plain ASCII on screen.
+# question), load the demo simulation outcomes (their glyphs on charts 1
+# and 4, the scores in the criteria table) and clear them, resize to 80×24
+# (every legend entry, the full-screen chart) and 30×10, quit, and confirm
+# the exit status and that the terminal was restored; then run it with
+# --ascii and require plain ASCII on screen, outcomes loaded too.
 # Usage: .ci/e2e-tmux.sh PATH/TO/cloudwind
 set -euo pipefail
 bin=$(realpath "$1")
@@ -31,28 +33,28 @@ wait_gone() {
   done
   fail "timed out waiting for this to disappear: $1"
 }
-# criterion_row ID: the criteria-table row of a criterion.
+# criterion_row LABEL: the criteria-table row of a criterion (by its label).
 criterion_row() { screen | grep -F -- "  $1 " | head -1; }
 
 # The shell prints a marker first so that a restored screen can be recognised.
 tmux -u new-session -d -s "$S" -x 120 -y 40 \
   "echo SHELL-BEFORE-EXPLORER; '$bin' --chi 100 --mach 1 --radius '5 pc' --cooling builtin; echo \"exit=\$?\" > '$out/status'; sleep 30"
 wait_for "Criteria"
-wait_for "gronke-oh-2018"
-before=$(criterion_row gronke-oh-2018)
-echo "$before" | grep -q "destroyed" || fail "expected gronke-oh-2018 destroyed at χ = 100, r = 5 pc: $before"
+wait_for "Gronke & Oh 2018"
+before=$(criterion_row "Gronke & Oh 2018")
+echo "$before" | grep -q "destroyed" || fail "expected Gronke & Oh 2018 destroyed at χ = 100, r = 5 pc: $before"
 
 # Raise χ by one dex: two coarse steps (each ten fine steps of 0.05 dex).
 tmux send-keys -t "$S" S-Right
 tmux send-keys -t "$S" S-Right
 wait_for "χ        1000"
-after=$(criterion_row gronke-oh-2018)
-[ "$before" != "$after" ] || fail "the gronke-oh-2018 row did not change with χ"
+after=$(criterion_row "Gronke & Oh 2018")
+[ "$before" != "$after" ] || fail "the Gronke & Oh 2018 row did not change with χ"
 # Enlarge the radius by two dex (four coarse steps of 0.5 dex): the verdict flips to survival.
 tmux send-keys -t "$S" Down Down Down Down Down
 for _ in 1 2 3 4; do tmux send-keys -t "$S" S-Right; done
 wait_for "r_cl     500 pc"
-criterion_row gronke-oh-2018 | grep -q "survives" || fail "gronke-oh-2018 does not survive at r_cl = 500 pc: $(criterion_row gronke-oh-2018)"
+criterion_row "Gronke & Oh 2018" | grep -q "survives" || fail "Gronke & Oh 2018 does not survive at r_cl = 500 pc: $(criterion_row "Gronke & Oh 2018")"
 # Typing replaces the selected value (not appended to it), and back to 500 pc.
 tmux send-keys -t "$S" Enter; wait_for "typing replaces 500"
 tmux send-keys -t "$S" -l "0.2 kpc"; tmux send-keys -t "$S" Enter
@@ -80,10 +82,22 @@ tmux send-keys -t "$S" 5; wait_for "5 evolution vs t/t_cc"; wait_for "cloud velo
 tmux send-keys -t "$S" 6; wait_for "6 simulation plan"; wait_for "core-hours"
 tmux send-keys -t "$S" '?'; wait_for "? or esc close"; tmux send-keys -t "$S" Escape; wait_gone "? or esc close"
 
+# Simulation outcomes: the demo (the prompt suggests it), glyphs on charts 1 and 4, scores; O again clears them.
+tmux send-keys -t "$S" 1; wait_for "1 threshold radius vs χ"
+tmux send-keys -t "$S" O; wait_for "load simulation outcomes from"
+tmux send-keys -t "$S" Enter; wait_for "loaded 12 simulation runs from fictional demo"
+wait_for "✓ run grew/survived"; wait_for "✗ destroyed"; wait_for "runs ok"
+tmux send-keys -t "$S" 4; wait_for "4 regime map"; wait_for "✓ run grew/survived"
+screen | grep -qF "? depends on constants or conventions" || fail "the regime map does not mark cells that depend on constants or conventions"
+tmux send-keys -t "$S" O; wait_for "cleared the simulation outcomes"; wait_gone "run grew/survived"
+tmux send-keys -t "$S" O; wait_for "load simulation outcomes from"
+tmux send-keys -t "$S" -l "$out/none.csv"; tmux send-keys -t "$S" Enter
+wait_for "✗ open $out/none.csv"  # the reason in the status line
+
 # Resizes: compact (every curve named, the full-screen chart), then too small, then back.
 tmux resize-window -t "$S" -x 80 -y 24; wait_for "Criteria"
 [ "$(screen | wc -L)" -le 80 ] || fail "a line is wider than 80 columns at 80×24"
-tmux send-keys -t "$S" 1; wait_for "farber-gronke-2022"; wait_for "abruzzo-2023"
+tmux send-keys -t "$S" 1; wait_for "Farber & Gronke 2022"; wait_for "Abruzzo et al. 2023"
 tmux send-keys -t "$S" z; wait_for "full-screen chart"
 tmux send-keys -t "$S" Right; wait_for "criteria predict survival"
 screen | grep -qF "Criteria" && fail "the full-screen chart still shows the criteria pane"
@@ -108,5 +122,11 @@ for v in 1 2 3 4 5 6; do
   tmux send-keys -t "$S" "$v"; wait_for "chart $v/6"
   if screen | LC_ALL=C grep -q '[^ -~]'; then fail "non-ASCII text with --ascii in view $v"; fi
 done
+tmux send-keys -t "$S" O; wait_for "load simulation outcomes from"; tmux send-keys -t "$S" Enter
+wait_for "loaded 12 simulation runs"
+for v in 1 4; do
+  tmux send-keys -t "$S" "$v"; wait_for "S run grew/survived"
+  if screen | LC_ALL=C grep -q '[^ -~]'; then fail "non-ASCII text with --ascii and outcomes in view $v"; fi
+done
 tmux send-keys -t "$S" q
-echo "e2e: ok (start, χ and r_cl steps changed the threshold and verdict, typing replaced the value, 6 views, map axes, help, export and the overwrite question, resize 80×24 with every legend entry and the full-screen chart, 30×10, quit with status 0, terminal restored, --ascii all ASCII)"
+echo "e2e: ok (start, χ and r_cl steps changed the threshold and verdict, typing replaced the value, 6 views, map axes, help, demo outcomes on charts 1 and 4 with scores, cleared, a missing outcomes file reported, export and the overwrite question, resize 80×24 with every legend entry and the full-screen chart, 30×10, quit with status 0, terminal restored, --ascii all ASCII with outcomes too)"

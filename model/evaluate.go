@@ -40,9 +40,10 @@ func (r *Result) Evaluate(p Params, cf CoolingFunction, cs []Criterion) error {
 }
 
 // Reevaluate recomputes r for another Mach number and cloud radius, keeping
-// every other input: the fast path for sweeps, since no cooling time
-// depends on either (the thermal state, Λ lookups and the search along the
-// mixing isobar are reused). r must hold a successful Evaluate. It returns
+// every other input: the fast path for sweeps, since of the cooling times
+// only that of the bow-shock gas (CoolShocked) depends on either, and it
+// is recomputed (deriveFlow); the thermal state, the other Λ lookups and
+// the search along the mixing isobar are reused. r must hold a successful Evaluate. It returns
 // a *FieldError for an invalid mach or rCl and leaves r unchanged then.
 func (r *Result) Reevaluate(mach float64, rCl Length) error {
 	p := r.Params

@@ -63,6 +63,10 @@ type App struct {
 	zoom     bool // the chart takes the whole body (z)
 	status   status
 
+	outcomes    *outcomeSet // loaded simulation outcomes (O), or nil
+	outcomesGen int         // generation of the latest load or rescore; older replies are dropped
+	spread      spreadCache // the convention spread the details show
+
 	in       inputsPane
 	derived  readout
 	criteria criteriaPane
@@ -121,6 +125,8 @@ func (a *App) update(msg tea.Msg) tea.Cmd {
 		return a.applyChecked(msg)
 	case scenarioMsg:
 		return a.applyScenario(msg)
+	case outcomesMsg:
+		return a.applyOutcomes(msg)
 	case tea.KeyMsg:
 		return a.handleKey(msg)
 	}
@@ -136,7 +142,7 @@ func (a *App) sync() {
 	}
 	a.in.SetValues(a.cur.params, a.cur.cooling.Spec, report.CoolingName(a.cur.cooling, a.cur.cf))
 	a.derived.SetResult(&a.res, pin, a.cur.cf)
-	a.criteria.SetResult(&a.res, pin)
+	a.criteria.SetResult(&a.res, pin, a.outcomeScores())
 	a.in.SetFocused(a.focus == focusInputs)
 	a.derived.SetFocused(a.focus == focusDerived)
 	a.criteria.SetFocused(a.focus == focusCriteria)
@@ -154,6 +160,10 @@ func (a *App) sync() {
 		about = subject{focus: focusInputs, input: a.in.Current()}
 	}
 	a.details.SetState(about, a.cur.params, a.cur.cooling, a.cur.cf, &a.res)
+	if a.details.Open() && about.focus == focusCriteria {
+		a.details.SetSpread(a.spread.get(a.cur.params, a.cur.cf, a.cfg.Criteria))
+	}
+	a.details.SetOutcomes(a.outcomes)
 	a.resize()
 }
 
@@ -297,6 +307,9 @@ func (a *App) chartRequest() chartspec.Request {
 		Selected: a.criteria.Selected(), Cols: cw, Rows: ch, CoolingName: report.CoolingName(a.cur.cooling, a.cur.cf)}
 	if a.pin != nil {
 		req.Pin = &chartspec.Inputs{Params: a.pin.params, Cooling: a.pin.cf}
+	}
+	if a.outcomes != nil {
+		req.Runs, req.RunsName = a.outcomes.runs, a.outcomes.name
 	}
 	return req
 }

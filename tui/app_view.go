@@ -102,18 +102,25 @@ func (a *App) statusLine() string {
 		return st.Status.Render(" " + a.status.text)
 	case a.zoom:
 		in := a.in.Current()
-		survive, n := 0, 0
+		survive, transformed, n := 0, 0, 0
 		for i := range a.res.Criteria {
 			if a.res.Criteria[i].Cool == model.CoolNone {
 				continue
 			}
 			n++
-			if a.res.Outcomes[i].Verdict == model.Survives {
+			switch a.res.Outcomes[i].Verdict {
+			case model.Survives:
 				survive++
+			case model.Transformed:
+				transformed++
 			}
 		}
+		count := strconv.Itoa(survive) + " of " + strconv.Itoa(n) + " criteria predict survival"
+		if transformed > 0 {
+			count += ", " + strconv.Itoa(transformed) + " transformed"
+		}
 		return st.Status.Render(" " + st.T(in.label+" = "+valueText(in, &a.cur.params, report.CoolingName(a.cur.cooling, a.cur.cf), st)+
-			" (←/→)"+st.sep()+strconv.Itoa(survive)+" of "+strconv.Itoa(n)+" criteria predict survival"+st.sep()+"z back"))
+			" (←/→)"+st.sep()+count+st.sep()+"z back"))
 	}
 	v := a.chart.Kind()
 	return st.Status.Render(" " + st.T(strconv.Itoa(len(a.res.Criteria))+" criteria"+st.sep()+"chart "+strconv.Itoa(int(v)+1)+"/"+

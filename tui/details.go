@@ -33,11 +33,13 @@ type detailsPane struct {
 	open          bool
 	scroll        scroller
 
-	about   subject
-	params  model.Params
-	cooling *cooling.Source
-	cf      model.CoolingFunction
-	res     *model.Result
+	about    subject
+	params   model.Params
+	cooling  *cooling.Source
+	cf       model.CoolingFunction
+	res      *model.Result
+	spread   conventionSpread // of the state, for a criterion (set while open)
+	outcomes *outcomeSet      // loaded simulation outcomes, or nil
 }
 
 func newDetailsPane(styles *Styles, keys *KeyMap) detailsPane {
@@ -51,6 +53,12 @@ func (d *detailsPane) SetSize(w, h int) { d.width, d.height = w, h }
 func (d *detailsPane) SetState(about subject, p model.Params, src *cooling.Source, cf model.CoolingFunction, res *model.Result) {
 	d.about, d.params, d.cooling, d.cf, d.res = about, p, src, cf, res
 }
+
+// SetSpread sets the convention spread of the state.
+func (d *detailsPane) SetSpread(s conventionSpread) { d.spread = s }
+
+// SetOutcomes sets the loaded simulation outcomes (nil for none).
+func (d *detailsPane) SetOutcomes(o *outcomeSet) { d.outcomes = o }
 
 // Show opens the overlay at its top.
 func (d *detailsPane) Show() { d.open, d.scroll = true, scroller{} }
@@ -138,29 +146,9 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 			wrap("caution:", "this temperature lies "+note+" of the cooling function")
 		}
 	case focusCriteria:
-		c, o := &d.res.Criteria[d.about.criterion], d.res.Outcomes[d.about.criterion]
-		title = quantity.Sanitize(c.Label) + " (" + quantity.Sanitize(c.ID) + ")"
-		wrap("criterion:", "survives and grows when "+c.Formula())
-		wrap("citation:", c.Citation.String())
-		if c.Citation.Equation == "" {
-			wrap("equation:", "not read from the paper; no equation number is cited")
-		}
-		verified := "verified against the paper"
-		if !c.Verified {
-			verified = "NOT verified"
-		}
-		wrap("constants:", "α = "+quantity.FormatSig(c.Alpha, 3)+", β = "+quantity.FormatSig(c.Beta, 3)+" — "+verified+": "+c.Status)
-		if c.Cool != model.CoolNone {
-			wrap("now:", c.Cool.Symbol()+"/"+c.Dyn.String()+" = "+quantity.FormatSig(o.Ratio, 3)+" (limit "+quantity.FormatSig(o.Threshold, 3)+
-				"), r_crit = "+quantity.Format(model.DimLength, float64(o.RCrit))+", margin r_cl/r_crit = "+quantity.FormatSig(o.Margin, 3)+
-				" → "+o.Verdict.String())
-		}
-		wrap("calibrated:", rangeText(c.Range))
-		if !o.InRange() {
-			wrap("caution:", "the inputs leave the calibrated range in "+strings.Join(o.Leaves.Names(), ", "))
-		}
-		wrap("convention:", conv+" (the paper's own convention is not confirmed)")
-		wrap("physics:", c.Note)
+		c := &d.res.Criteria[d.about.criterion]
+		title = criterionName(c) + " (" + quantity.Sanitize(c.ID) + ")"
+		d.criterionDetails(d.about.criterion, wrap, func(l string) { lines = append(lines, st.fit(l, w)) })
 	}
 	lines = append(lines, "", st.Help.Render(st.T("↑/↓ next item · PgUp/PgDn scroll · d or esc close")))
 	return st.T(title), lines
@@ -188,8 +176,11 @@ func (d detailsPane) coolingDetails(wrap func(label, text string)) {
 }
 
 func densityWord(d model.DensityProduct) string {
-	if d == model.N2 {
+	switch d {
+	case model.N2:
 		return "n² (total particles)"
+	case model.NeNi:
+		return "n_e n_i"
 	}
 	return "n_H²"
 }
@@ -208,7 +199,9 @@ func typingExample(d model.Dimension) string {
 
 func pow10(x float64) float64 { return math.Pow(10, x) }
 
-// rangeText describes a calibrated range.
+// rangeText describes a calibrated range: the bounds of χ, M, T_cl and
+// M_turb with the range's status, and for a range without turbulence (the
+// zero MachTurb interval) that it holds at M_turb = 0 only.
 func rangeText(c model.Calibration) string {
 	var parts []string
 	add := func(name string, i model.Interval, unit string) {
@@ -220,8 +213,16 @@ func rangeText(c model.Calibration) string {
 	add("χ", c.Chi, "")
 	add("M", c.Mach, "")
 	add("T_cl", c.TCloud, " K")
-	if len(parts) == 0 {
-		return "no limits known (" + c.Status + ")"
+	noTurb := c.MachTurb == model.Interval{}
+	if !noTurb {
+		add("M_turb", c.MachTurb, "")
 	}
-	return strings.Join(parts, ", ") + " (" + c.Status + ")"
+	text := "no limits known (" + c.Status + ")"
+	if len(parts) > 0 {
+		text = strings.Join(parts, ", ") + " (" + c.Status + ")"
+	}
+	if noTurb {
+		text += "; without turbulence only (M_turb = 0)"
+	}
+	return text
 }

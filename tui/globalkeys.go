@@ -67,6 +67,8 @@ func (a *App) globalKey(msg tea.KeyMsg) (cmd tea.Cmd, ok bool) {
 		open := a.cfg.Open
 		a.prompt.ChooseScenario(a.cfg.Demos, func(sc scenario.Scenario) tea.Cmd { return loadDemo(sc, open) },
 			a.pathAction(func(path string) tea.Cmd { return loadScenario(path, a.cfg.Open) }))
+	case key.Matches(msg, k.Outcomes):
+		return a.toggleOutcomes(), true
 	case key.Matches(msg, k.Save, k.ExportChart, k.ExportState):
 		a.askFile(msg)
 	case key.Matches(msg, k.Undo):
@@ -98,12 +100,17 @@ func (a *App) askFile(msg tea.KeyMsg) {
 	}
 }
 
-// syncKeys words the keys whose meaning depends on the view: x exports
-// the plan view as text.
+// syncKeys words the keys whose meaning depends on the state: x exports
+// the plan view as text, O clears loaded outcomes.
 func (a *App) syncKeys() {
 	help := "export chart SVG/PNG"
 	if a.chart.IsText() {
 		help = "export plan text"
 	}
 	a.keys.ExportChart.SetHelp(a.keys.ExportChart.Help().Key, help)
+	help = "load sim. outcomes"
+	if a.outcomes != nil {
+		help = "clear sim. outcomes"
+	}
+	a.keys.Outcomes.SetHelp(a.keys.Outcomes.Help().Key, help)
 }

@@ -145,6 +145,8 @@ func (h helpOverlay) lines() []string {
 	notes := []string{"Typed values may carry units: 30 pc, 0.2 kpc, 2e4 K, 1 keV, 3e3 (K cm⁻³).",
 		"Typing replaces the selected value; ←/→ first to edit it.",
 		"* unverified constant · ! outside calibrated range · ⚠ outside the cooling table",
+		"Verdicts: ✓ survives · ◐ transformed (to warm gas) · ✗ destroyed · ? depends on an unverified α (r_cl inside r_crit's band).",
+		"Charts: a light band around a curve is r_crit if α is off by its uncertainty factor; O places simulation runs (✓ ◐ ✗) on charts 1 and 4.",
 		"? or esc close"}
 	out = append(out, "")
 	for i, n := range notes {

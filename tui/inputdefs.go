@@ -112,6 +112,8 @@ func inputs() []input {
 			about: "cloud temperature (the cooling floor follows it unless T_floor is set)"},
 		{label: "r_cl", field: model.FieldRCloud, dim: model.DimLength, log: true, fine: 0.05,
 			about: "cloud radius"},
+		{label: "M_turb", field: model.FieldMachTurb, dim: model.Dimensionless, fine: 0.05,
+			about: "turbulent Mach number of the wind (0 for none); the turbulent criteria use it in t̃_cc = t_cc/(1 + (M_turb/(f_mix M))²)^1/2"},
 		{label: "γ", field: model.FieldGamma, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
 			about: "adiabatic index (default 5/3)"},
 		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
@@ -139,10 +141,11 @@ func inputs() []input {
 			setEnum: func(p *model.Params, i int) { p.HeatCapacity = model.HeatCapacity(i) },
 			about:   "heat capacity in t_cool = f n k_B T/(𝒩 Λ)"},
 		{label: "n×n", field: model.FieldDensityProduct, advanced: true,
-			choices: []choice{{"n_H²", []string{"nh2", "n_H^2", "nH2"}}, {"n² (total)", []string{"n2", "n²", "n^2", "total"}}},
-			getEnum: func(p *model.Params) int { return int(p.DensityProduct) },
-			setEnum: func(p *model.Params, i int) { p.DensityProduct = model.DensityProduct(i) },
-			about:   "density product in t_cool: n_H² (physical for Λ per n_H²) or n² (simplified form)"},
+			choices: []choice{{"n_H²", []string{"nh2", "n_H^2", "nH2"}}, {"n² (total)", []string{"n2", "n²", "n^2", "total"}},
+				{"n_e n_i", []string{"neni", "n_e n_i", "ne ni", "n_e*n_i"}}},
+			getEnum: func(p *model.Params) int { return densityIndex(p.DensityProduct) },
+			setEnum: func(p *model.Params, i int) { p.DensityProduct = model.DensityProducts()[i] },
+			about:   "density product in t_cool: n_H² (physical for Λ per n_H²), n² (simplified form) or n_e n_i (fully ionised gas of the mixture)"},
 		{label: "growth", field: model.FieldMixCooling, advanced: true,
 			choices: []choice{{"t_cool,minmix", []string{"minmix"}}, {"t_cool,cold", []string{"cold"}}, {"t_cool,mix", []string{"mix"}}, {"t_cool,hot", []string{"hot"}}},
 			getEnum: func(p *model.Params) int {
@@ -159,6 +162,17 @@ func inputs() []input {
 		{label: "cooling", field: fieldCooling, advanced: true,
 			about: "cooling function: step through " + coolingNames() + ", or type one, const:Λ, powerlaw:L0,T0,S or a table path"},
 	}
+}
+
+// densityIndex returns the index of d in model.DensityProducts (0 for an
+// unknown value, which Validate refuses).
+func densityIndex(d model.DensityProduct) int {
+	for i, x := range model.DensityProducts() {
+		if x == d {
+			return i
+		}
+	}
+	return 0
 }
 
 // coolingNames lists the names of cooling.Names.

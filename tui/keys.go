@@ -33,6 +33,7 @@ type KeyMap struct {
 	Details           key.Binding
 	Pin, Unpin        key.Binding // compare mode
 	Scenarios         key.Binding
+	Outcomes          key.Binding // load simulation outcomes, or clear them
 	Save              key.Binding
 	ExportChart       key.Binding // the chart as a figure; the plan view as text
 	ExportState       key.Binding
@@ -82,6 +83,7 @@ func DefaultKeyMap() KeyMap {
 		Pin:         b("p", "pin as A (compare)", "p"),
 		Unpin:       b("P", "unpin A", "P"),
 		Scenarios:   b("o", "open scenario", "o"),
+		Outcomes:    b("O", "load sim. outcomes", "O"),
 		Save:        b("s", "save scenario", "s"),
 		ExportChart: b("x", "export chart SVG/PNG", "x"),
 		ExportState: b("J", "export state JSON", "J"),
@@ -103,7 +105,7 @@ func (k *KeyMap) all() []*key.Binding {
 	return []*key.Binding{&k.Up, &k.Down, &k.PageUp, &k.PageDown, &k.Top, &k.Bottom, &k.Inc, &k.Dec, &k.IncBig,
 		&k.DecBig, &k.Edit, &k.Undo, &k.Reset, &k.ResetAll, &k.Advanced, &k.Focus, &k.FocusBack, &k.Zoom, &k.View1,
 		&k.View2, &k.View3, &k.View4, &k.View5, &k.View6, &k.NextView, &k.Family, &k.MapAxis, &k.Details, &k.Pin,
-		&k.Unpin, &k.Scenarios, &k.Save, &k.ExportChart, &k.ExportState, &k.Palette, &k.Help, &k.Quit, &k.ForceQuit,
+		&k.Unpin, &k.Scenarios, &k.Outcomes, &k.Save, &k.ExportChart, &k.ExportState, &k.Palette, &k.Help, &k.Quit, &k.ForceQuit,
 		&k.Accept, &k.Cancel, &k.Yes, &k.No, &k.PromptUp, &k.PromDwn}
 }
 
@@ -146,6 +148,6 @@ func (k KeyMap) groups() []helpGroup {
 		{"Inputs", []key.Binding{k.Up, k.Down, k.Inc, k.Dec, k.IncBig, k.DecBig, k.Edit, k.Undo, k.Reset, k.ResetAll, k.Advanced}},
 		{"Panes", []key.Binding{k.Focus, k.FocusBack, k.PageUp, k.PageDown, k.Top, k.Bottom, k.Details, k.Help, k.Quit}},
 		{"Charts", []key.Binding{k.View1, k.View2, k.View3, k.View4, k.View5, k.View6, k.NextView, k.Zoom, k.Family, k.MapAxis}},
-		{"Compare and files", []key.Binding{k.Pin, k.Unpin, k.Scenarios, k.Save, k.ExportChart, k.ExportState, k.Palette}},
+		{"Compare and files", []key.Binding{k.Pin, k.Unpin, k.Scenarios, k.Outcomes, k.Save, k.ExportChart, k.ExportState, k.Palette}},
 	}
 }

@@ -58,8 +58,19 @@ func (a *App) change(next snapshot, note string) tea.Cmd {
 	if len(a.history) > maxHistory {
 		a.history = a.history[1:]
 	}
+	rescore := next.cooling != a.cur.cooling
 	a.cur, a.res = next, res
 	a.setStatus(note, false)
+	return a.afterChange(rescore)
+}
+
+// afterChange requests the chart of the new state and, when the cooling
+// source changed and outcomes are loaded, their scores with it.
+func (a *App) afterChange(coolingChanged bool) tea.Cmd {
+	if coolingChanged && a.outcomes != nil {
+		a.outcomesGen++
+		return tea.Batch(a.requestChart(), rescoreOutcomes(a.outcomesGen, a.outcomes, a.cur.cooling, a.cfg.Criteria))
+	}
 	return a.requestChart()
 }
 
@@ -76,9 +87,10 @@ func (a *App) undo() tea.Cmd {
 		a.setStatus(err.Error(), true)
 		return nil
 	}
+	rescore := prev.cooling != a.cur.cooling
 	a.cur, a.res = prev, res
 	a.setStatus("undone", false)
-	return a.requestChart()
+	return a.afterChange(rescore)
 }
 
 // applyCooling switches to a resolved cooling source.

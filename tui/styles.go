@@ -10,17 +10,18 @@ import (
 // rests on colour alone: verdicts carry a word and a glyph, curves a glyph
 // in the legend, map cells a digit or shade.
 type Palette struct {
-	Name      string
-	Text      lipgloss.TerminalColor
-	Dim       lipgloss.TerminalColor
-	Accent    lipgloss.TerminalColor // focus, selection
-	Border    lipgloss.TerminalColor
-	Survives  lipgloss.TerminalColor
-	Destroyed lipgloss.TerminalColor
-	Warning   lipgloss.TerminalColor
-	Error     lipgloss.TerminalColor
-	Series    []lipgloss.TerminalColor // one per curve, in criterion order
-	Heat      []lipgloss.TerminalColor // regime map, from "none survive" to "all survive"
+	Name        string
+	Text        lipgloss.TerminalColor
+	Dim         lipgloss.TerminalColor
+	Accent      lipgloss.TerminalColor // focus, selection
+	Border      lipgloss.TerminalColor
+	Survives    lipgloss.TerminalColor
+	Transformed lipgloss.TerminalColor // the third verdict (transformed to warm gas)
+	Destroyed   lipgloss.TerminalColor
+	Warning     lipgloss.TerminalColor
+	Error       lipgloss.TerminalColor
+	Series      []lipgloss.TerminalColor // one per curve, in criterion order
+	Heat        []lipgloss.TerminalColor // regime map, from "none survive" to "all survive"
 }
 
 // DarkPalette suits a dark terminal; its colours are bright enough for a
@@ -28,7 +29,7 @@ type Palette struct {
 func DarkPalette() Palette {
 	return Palette{
 		Name: "dark", Text: lipgloss.Color("252"), Dim: lipgloss.Color("245"), Accent: lipgloss.Color("212"),
-		Border: lipgloss.Color("240"), Survives: lipgloss.Color("42"), Destroyed: lipgloss.Color("203"),
+		Border: lipgloss.Color("240"), Survives: lipgloss.Color("42"), Transformed: lipgloss.Color("180"), Destroyed: lipgloss.Color("203"),
 		Warning: lipgloss.Color("214"), Error: lipgloss.Color("196"),
 		Series: []lipgloss.TerminalColor{lipgloss.Color("39"), lipgloss.Color("214"), lipgloss.Color("170"),
 			lipgloss.Color("42"), lipgloss.Color("203"), lipgloss.Color("250"), lipgloss.Color("226"), lipgloss.Color("51")},
@@ -42,7 +43,7 @@ func DarkPalette() Palette {
 func LightPalette() Palette {
 	return Palette{
 		Name: "light", Text: lipgloss.Color("16"), Dim: lipgloss.Color("240"), Accent: lipgloss.Color("125"),
-		Border: lipgloss.Color("245"), Survives: lipgloss.Color("22"), Destroyed: lipgloss.Color("124"),
+		Border: lipgloss.Color("245"), Survives: lipgloss.Color("22"), Transformed: lipgloss.Color("94"), Destroyed: lipgloss.Color("124"),
 		Warning: lipgloss.Color("130"), Error: lipgloss.Color("160"),
 		Series: []lipgloss.TerminalColor{lipgloss.Color("19"), lipgloss.Color("130"), lipgloss.Color("90"),
 			lipgloss.Color("22"), lipgloss.Color("124"), lipgloss.Color("238"), lipgloss.Color("94"), lipgloss.Color("30")},
@@ -56,26 +57,27 @@ func LightPalette() Palette {
 // global. Chart holds the chart renderers' styles, derived from the same
 // palette.
 type Styles struct {
-	Palette    Palette
-	Color      bool // false under NO_COLOR: every style below is colourless
-	ASCII      bool // no braille glyphs: charts draw with plain runes
-	Title      lipgloss.Style
-	Border     lipgloss.Style // a pane
-	Focused    lipgloss.Style // the focused pane
-	Label      lipgloss.Style
-	Value      lipgloss.Style
-	Unit       lipgloss.Style
-	Dim        lipgloss.Style
-	Selected   lipgloss.Style // the selected row
-	Survives   lipgloss.Style
-	Destroyed  lipgloss.Style
-	Warning    lipgloss.Style // cautions, out-of-range marks
-	Unverified lipgloss.Style // the mark on unverified constants
-	OutOfTable lipgloss.Style // temperatures outside the cooling table
-	Status     lipgloss.Style
-	Error      lipgloss.Style
-	Help       lipgloss.Style
-	Chart      chart.Styles // axes, curves (one style and glyph each), map shades
+	Palette     Palette
+	Color       bool // false under NO_COLOR: every style below is colourless
+	ASCII       bool // no braille glyphs: charts draw with plain runes
+	Title       lipgloss.Style
+	Border      lipgloss.Style // a pane
+	Focused     lipgloss.Style // the focused pane
+	Label       lipgloss.Style
+	Value       lipgloss.Style
+	Unit        lipgloss.Style
+	Dim         lipgloss.Style
+	Selected    lipgloss.Style // the selected row
+	Survives    lipgloss.Style
+	Transformed lipgloss.Style
+	Destroyed   lipgloss.Style
+	Warning     lipgloss.Style // cautions, out-of-range marks
+	Unverified  lipgloss.Style // the mark on unverified constants
+	OutOfTable  lipgloss.Style // temperatures outside the cooling table
+	Status      lipgloss.Style
+	Error       lipgloss.Style
+	Help        lipgloss.Style
+	Chart       chart.Styles // axes, curves (one style and glyph each), map shades
 }
 
 // NewStyles builds the styles of a palette. With color false (NO_COLOR)
@@ -93,22 +95,23 @@ func NewStyles(p Palette, color, ascii bool) Styles {
 	}
 	s := Styles{
 		Palette: p, Color: color, ASCII: ascii,
-		Title:      fg(p.Accent).Bold(true),
-		Border:     lipgloss.NewStyle().Border(border).BorderForeground(borderColor(p.Border, color)),
-		Focused:    lipgloss.NewStyle().Border(border).BorderForeground(borderColor(p.Accent, color)),
-		Label:      fg(p.Text),
-		Value:      fg(p.Text).Bold(true),
-		Unit:       fg(p.Dim),
-		Dim:        fg(p.Dim),
-		Selected:   fg(p.Accent).Bold(true),
-		Survives:   fg(p.Survives).Bold(true),
-		Destroyed:  fg(p.Destroyed),
-		Warning:    fg(p.Warning),
-		Unverified: fg(p.Warning),
-		OutOfTable: fg(p.Warning),
-		Status:     fg(p.Dim),
-		Error:      fg(p.Error).Bold(true),
-		Help:       fg(p.Dim),
+		Title:       fg(p.Accent).Bold(true),
+		Border:      lipgloss.NewStyle().Border(border).BorderForeground(borderColor(p.Border, color)),
+		Focused:     lipgloss.NewStyle().Border(border).BorderForeground(borderColor(p.Accent, color)),
+		Label:       fg(p.Text),
+		Value:       fg(p.Text).Bold(true),
+		Unit:        fg(p.Dim),
+		Dim:         fg(p.Dim),
+		Selected:    fg(p.Accent).Bold(true),
+		Survives:    fg(p.Survives).Bold(true),
+		Transformed: fg(p.Transformed).Bold(true),
+		Destroyed:   fg(p.Destroyed),
+		Warning:     fg(p.Warning),
+		Unverified:  fg(p.Warning),
+		OutOfTable:  fg(p.Warning),
+		Status:      fg(p.Dim),
+		Error:       fg(p.Error).Bold(true),
+		Help:        fg(p.Dim),
 	}
 	if !color {
 		s.Selected = lipgloss.NewStyle().Reverse(true)

@@ -20,6 +20,7 @@ func (st *Styles) P() quantity.Printer { return quantity.Printer{ASCII: st.ASCII
 func (st *Styles) T(s string) string {
 	if st.ASCII {
 		s = strings.ReplaceAll(s, " · ", " | ")
+		s = strings.ReplaceAll(s, "×/÷", "x or /") // "×/÷ 2": by a factor 2 either way
 	}
 	return st.P().Text(s)
 }

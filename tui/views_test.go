@@ -41,7 +41,24 @@ func viewCases() []viewCase {
 		{"details_derived", []string{"tab", "down", "d"}},
 		{"details_cooling", []string{"a", "up", "d"}},
 		{"scenarios", []string{"o"}},
+		{"details_shocked", []string{"tab", "tab", "down", "d"}},
+		{"details_turbulent", append(append([]string{"tab", "tab"}, down(6)...), "d")},
+		{"outcomes", []string{"O", "enter"}},
+		{"outcomes_regime", []string{"O", "enter", "4"}},
+		{"outcomes_details", []string{"O", "enter", "tab", "tab", "d", "end"}},
+		{"outcomes_zoom", []string{"O", "enter", "z"}},
+		{"cold", coldKeys()},
+		{"cold_regime", append(coldKeys(), "4")},
+		{"cold_details", append(coldKeys(), "tab", "tab", "down", "down", "down", "down", "d")},
 	}
+}
+
+// coldKeys type a cold cloud: χ = 3000, P/k_B = 10⁴ K cm⁻³, T_cl = 800 K,
+// r_cl = 3 pc, where farber-gronke-2022 predicts "transformed" (inputs of
+// this test; chartspec's TestChartsNameCriteriaByLabel checks the verdict).
+func coldKeys() []string {
+	return []string{"enter", "3000", "enter", "down", "down", "enter", "1e4", "enter", "down", "down", "enter", "800", "enter",
+		"down", "enter", "3", "enter", "up", "up", "up", "up", "up"}
 }
 
 // TestGoldenViews compares every view case at 80×24 and 120×40 with
@@ -54,7 +71,7 @@ func TestGoldenViews(t *testing.T) {
 			press(a, vc.keys...)
 			golden.Check(t, "TestGoldenViews", sizeName(vc.name, w, h), screen(a))
 		}
-		for _, name := range []string{"threshold", "compare", "help", "plan"} {
+		for _, name := range []string{"threshold", "compare", "help", "plan", "outcomes", "cold_regime"} {
 			a := newTestAppWith(t, w, h, func(c *Config) { c.ASCII = true })
 			for _, vc := range viewCases() {
 				if vc.name == name {

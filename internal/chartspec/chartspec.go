@@ -22,6 +22,8 @@
 // subscripts and superscripts as lowered and raised text.
 package chartspec
 
+import "cloudwind/model"
+
 // A Series is one curve.
 type Series struct {
 	Name   string    // legend text
@@ -54,25 +56,97 @@ type Axis struct {
 	Min, Max float64 // visible range in axis units
 }
 
+// A Band is the range a curve moves over when an unverified constant is
+// off by its uncertainty factor either way: for the threshold chart,
+// r_crit from Outcome.RCritLow to RCritHigh. It is drawn lighter than its
+// curve, in the curve's style (Index).
+type Band struct {
+	Name   string    // whose band, e.g. "Li et al. 2020 (α ×/÷ 2)"
+	X      []float64 // axis units, as the curve's
+	Lo, Hi []float64 // the band's edges at X; NaN or ±Inf breaks the band
+	Index  int       // the style index of its curve
+}
+
+// A RunMark is a simulation run placed on a chart at its inputs (its χ
+// and r_cl, or χ and Mach), with what happened to its cloud.
+type RunMark struct {
+	X, Y    float64 // axis units
+	Outcome model.RunOutcome
+	Label   string // the run's label, for people
+}
+
 // A LineChart is a set of curves on two axes.
 type LineChart struct {
-	Title   string
-	X, Y    Axis
-	Series  []Series
-	Markers []Marker
-	Note    string // one line under the chart, e.g. a caution
-	Caption string // the scenario (Caption), for exported figures
+	Title  string
+	X, Y   Axis
+	Series []Series
+	Bands  []Band // uncertainty bands, drawn under the series
+	// BandFactor is the uncertainty factor of the bands as people read it:
+	// "×/÷ 2", or "×/÷ 2–4" when they differ; "" without bands. Each band is
+	// r_crit when the unverified α is off by that factor either way.
+	BandFactor string
+	// DashedName names the dashed curves as a group in a terminal legend,
+	// e.g. "pinned A": a dashed curve with the Index of a solid one then has
+	// no entry of its own. "" lists every curve.
+	DashedName string
+	Markers    []Marker
+	Runs       []RunMark // simulation outcomes on the chart; nil for none
+	RunsName   string    // where the runs come from, for the legend ("demo (fictional)", a file name)
+	Note       string    // one line under the chart, e.g. a caution
+	Caption    string    // the scenario (Caption), for exported figures
+}
+
+// Agreement classifies a regime-map cell by the verdicts of the criteria
+// with a cooling time there.
+type Agreement uint8
+
+const (
+	// AllAgree: every criterion gives the same verdict, and none flips
+	// within its uncertainty band or across the convention spread.
+	AllAgree Agreement = iota
+	// Disagree: the criteria give different verdicts, and none flips.
+	Disagree
+	// Depends: the verdict of at least one criterion flips within its
+	// uncertainty band (model.Outcome.DependsOnConstant) or across the
+	// convention spread, whether or not the criteria agree at the nominal
+	// constants and convention. It takes precedence over the other two.
+	Depends
+)
+
+// String returns "all agree", "criteria disagree" or "depends on constants
+// or conventions".
+func (a Agreement) String() string {
+	switch a {
+	case Disagree:
+		return "criteria disagree"
+	case Depends:
+		return "depends on constants or conventions"
+	}
+	return "all agree"
 }
 
 // A RegimeMap is a grid of cells over two axes, each cell holding how many
-// of the criteria predict survival, so that disagreement shows at a glance.
+// of the criteria predict survival, so that disagreement shows at a glance,
+// and whether the criteria agree there (Class).
 type RegimeMap struct {
-	Title   string
-	X, Y    Axis
-	NX, NY  int   // cells along X and Y
-	Counts  []int // NX×NY counts, row-major from the lowest Y: Counts[j*NX+i]; a negative count marks a cell without a valid state (drawn blank)
-	Total   int   // number of criteria counted (the largest possible count)
-	Mark    *Marker
-	Note    string
-	Caption string // the scenario (Caption), for exported figures
+	Title  string
+	X, Y   Axis
+	NX, NY int   // cells along X and Y
+	Counts []int // NX×NY counts, row-major from the lowest Y: Counts[j*NX+i]; a negative count marks a cell without a valid state (drawn blank)
+	// Transformed counts, per cell, the criteria predicting "transformed"
+	// (model.Transformed): with Counts it tells the cells where none
+	// survives but the criteria still disagree. Nil when no criterion can
+	// predict it.
+	Transformed []int
+	Class       []Agreement // NX×NY classes, indexed as Counts; nil for a map without classes
+	Total       int         // number of criteria counted (the largest possible count)
+	// SpreadEvery is the step, in cells along each axis, of the sub-grid
+	// on which the convention spread was evaluated (interpolated between):
+	// 1 is every cell, 0 means the spread was not evaluated.
+	SpreadEvery int
+	Mark        *Marker
+	Runs        []RunMark // simulation outcomes on the map; nil for none
+	RunsName    string    // where the runs come from, for the legend
+	Note        string
+	Caption     string // the scenario (Caption), for exported figures
 }

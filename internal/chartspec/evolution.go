@@ -3,13 +3,15 @@ package chartspec
 import (
 	"math"
 
-	"cloudwind/internal/quantity"
 	"cloudwind/model"
 )
 
 // EvolutionCharts returns m/m0 (log) and v/v_w against t/t_cc,0, one
 // curve per criterion's branch (model.Evolve with the default settings,
-// whose constants and statuses `cloudwind evolve` lists).
+// whose constants and statuses `cloudwind evolve` lists). A criterion
+// whose verdict is Transformed follows its growing branch (the gas at the
+// warm temperature grows, as model.Evolve treats it), and its curve says
+// "transformed".
 func EvolutionCharts(r Request) (mass, vel *LineChart) {
 	const n = 201
 	set := model.DefaultEvolveSettings()
@@ -54,7 +56,10 @@ func EvolutionCharts(r Request) (mass, vel *LineChart) {
 				vs[k] = v
 			}
 		}
-		name := quantity.Sanitize(c.ID)
+		name := CriterionName(c)
+		if c.Cool != model.CoolNone && s.Evaluate(c).Verdict == model.Transformed {
+			name += " (transformed)"
+		}
 		mass.Series = append(mass.Series, Series{Name: name, X: ts, Y: ms, Index: i})
 		vel.Series = append(vel.Series, Series{Name: name, X: ts, Y: vs, Index: i})
 	}

@@ -10,7 +10,10 @@ import (
 
 // ThresholdChart returns r_crit of every radiative criterion against χ,
 // or with r.Family that of the selected criterion at several Mach
-// numbers; with r.Pin, A's curves are added dashed.
+// numbers; with r.Pin, A's curves are added dashed. Each criterion whose
+// constant is unverified (UncertaintyFactor > 1) gets a band from
+// Outcome.RCritLow to RCritHigh (not in family mode, nor for A), and the
+// runs of r.Runs are placed at their χ and r_cl.
 func ThresholdChart(r Request) *LineChart {
 	const n = 121
 	lo, hi := chiRange(r.Params.Chi)
@@ -50,14 +53,21 @@ func ThresholdChart(r Request) *LineChart {
 				}
 			}
 			for k, m := range machs {
-				c.Series = append(c.Series, Series{Name: r.Criteria[sel].ID + " M = " + quantity.FormatSig(m, 3), X: xs, Y: ys[k], Index: k})
+				c.Series = append(c.Series, Series{Name: "M = " + quantity.FormatSig(m, 3), X: xs, Y: ys[k], Index: k})
 			}
-			c.Title = "threshold radius vs χ: " + quantity.Sanitize(r.Criteria[sel].Label) + " at four Mach numbers"
+			c.Title = "threshold radius vs χ: " + CriterionName(&r.Criteria[sel]) + " at four Mach numbers"
 			return
 		}
 		ys := make([][]float64, len(r.Criteria))
+		var bandLo, bandHi [][]float64
+		if !dashed {
+			bandLo, bandHi = make([][]float64, len(r.Criteria)), make([][]float64, len(r.Criteria))
+		}
 		for _, i := range rad {
 			ys[i] = make([]float64, n)
+			if bandLo != nil && r.Criteria[i].UncertaintyFactor() > 1 {
+				bandLo[i], bandHi[i] = make([]float64, n), make([]float64, n)
+			}
 		}
 		var res model.Result
 		for k, x := range xs {
@@ -69,24 +79,79 @@ func ThresholdChart(r Request) *LineChart {
 				if err == nil {
 					ys[i][k] = logPc(res.Outcomes[i].RCrit)
 				}
+				if bandLo != nil && bandLo[i] != nil {
+					bandLo[i][k], bandHi[i][k] = math.NaN(), math.NaN()
+					if err == nil {
+						bandLo[i][k], bandHi[i][k] = logPc(res.Outcomes[i].RCritLow), logPc(res.Outcomes[i].RCritHigh)
+					}
+				}
 			}
 		}
 		for _, i := range rad {
-			c.Series = append(c.Series, Series{Name: prefix + quantity.Sanitize(r.Criteria[i].ID), X: xs, Y: ys[i], Index: i, Dashed: dashed})
+			name := CriterionName(&r.Criteria[i])
+			c.Series = append(c.Series, Series{Name: prefix + name, X: xs, Y: ys[i], Index: i, Dashed: dashed})
+			if bandLo != nil && bandLo[i] != nil {
+				u := r.Criteria[i].UncertaintyFactor()
+				c.Bands = append(c.Bands, Band{Name: name + " (α ×/÷ " + quantity.FormatSig(u, 3) + ")", X: xs, Lo: bandLo[i], Hi: bandHi[i], Index: i})
+			}
 		}
 	}
 	if r.Pin != nil {
 		add(r.Pin.Params, r.Pin.Cooling, "A ", true)
+		c.DashedName = pinnedName
 	}
 	add(r.Params, r.Cooling, "", false)
+	c.BandFactor = bandFactor(r.Criteria, c.Bands)
 	c.Markers = append(c.Markers,
 		Marker{Kind: VLine, X: math.Log10(r.Params.Chi), Label: "χ"},
 		Marker{Kind: HLine, Y: logPc(r.Params.RCloud), Label: "r_cl"})
 	if r.Pin != nil {
 		c.Markers = append(c.Markers, Marker{Kind: Point, X: math.Log10(r.Pin.Params.Chi), Y: logPc(r.Pin.Params.RCloud), Label: "A"})
 	}
-	c.Y.Min, c.Y.Max = seriesRange(c.Series, logPc(r.Params.RCloud))
+	c.Runs = runMarks(r.Runs, func(p *model.Params) float64 { return logPc(p.RCloud) })
+	c.RunsName = quantity.Sanitize(r.RunsName)
+	c.Note += runsNote(c.RunsName, len(c.Runs), false)
+	extra := []float64{logPc(r.Params.RCloud)}
+	for _, m := range c.Runs {
+		extra = append(extra, m.Y)
+	}
+	all := append([]Series(nil), c.Series...)
+	for _, b := range c.Bands { // the bands stay inside the axes too
+		all = append(all, Series{Y: b.Lo}, Series{Y: b.Hi})
+	}
+	c.Y.Min, c.Y.Max = seriesRange(all, extra...)
 	return c
+}
+
+// pinnedName names the dashed curves of scenario A in compare mode.
+const pinnedName = "pinned A (sparser)"
+
+// CriterionName is the name people read for c: its label, or its id when
+// it has none (a criteria file may leave the label out). Sanitized.
+func CriterionName(c *model.Criterion) string {
+	if c.Label != "" {
+		return quantity.Sanitize(c.Label)
+	}
+	return quantity.Sanitize(c.ID)
+}
+
+// bandFactor words the uncertainty factor of the bands: the factor when
+// every band has the same one, else the range of factors; "" without
+// bands.
+func bandFactor(cs []model.Criterion, bands []Band) string {
+	if len(bands) == 0 {
+		return ""
+	}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, b := range bands {
+		u := cs[b.Index].UncertaintyFactor()
+		lo, hi = min(lo, u), max(hi, u)
+	}
+	f := quantity.FormatSig(lo, 3)
+	if hi != lo {
+		f += "–" + quantity.FormatSig(hi, 3)
+	}
+	return "×/÷ " + f
 }
 
 // CoolingChart returns Λ(T) of the current cooling function (and of A's
@@ -208,6 +273,7 @@ func RatioChart(r Request) *LineChart {
 	}
 	if r.Pin != nil {
 		add(r.Pin.Params, r.Pin.Cooling, "A ", true)
+		c.DashedName = pinnedName
 	}
 	add(r.Params, r.Cooling, "", false)
 	c.Markers = []Marker{{Kind: VLine, X: c0, Label: "r_cl"}, {Kind: HLine, Y: 0, Label: "1"}}

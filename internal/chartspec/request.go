@@ -24,6 +24,9 @@ type Request struct {
 	Rows     int     // cells available down (clamped to 5…100)
 
 	CoolingName string // the cooling function's name for captions; "" names it from Cooling
+
+	Runs     []model.SimRun // simulation outcomes to place on the threshold chart and the regime map; nil for none
+	RunsName string         // where they come from, for the legends
 }
 
 // Caption describes the scenario of r in one line, for the caption of an
@@ -73,6 +76,24 @@ func chiRange(chi float64) (lo, hi float64) {
 	c := math.Log10(chi)
 	return min(lo, c-0.5), max(hi, c+0.5)
 }
+
+// runMarks places runs on a chart: x = log10 χ, y = y(run) (log10 r_cl
+// in pc, or log10 Mach). Runs whose coordinates are not finite are left
+// out.
+func runMarks(runs []model.SimRun, y func(p *model.Params) float64) []RunMark {
+	var out []RunMark
+	for i := range runs {
+		r := &runs[i]
+		m := RunMark{X: math.Log10(r.Params.Chi), Y: y(&r.Params), Outcome: r.Outcome, Label: quantity.Sanitize(r.Label)}
+		if finite(m.X) && finite(m.Y) {
+			out = append(out, m)
+		}
+	}
+	return out
+}
+
+// finite reports whether v is neither NaN nor ±Inf.
+func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
 // radiative returns the indices of the criteria that have a threshold.
 func radiative(cs []model.Criterion) []int {

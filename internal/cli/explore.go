@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"flag"
 	"fmt"
 	"io"
 	"os"
@@ -55,10 +56,17 @@ func runExplore(e *env) error {
 	}
 	// The starting scenario: a file, explicit flags, or a demo.
 	var sc scenario.Scenario
+	// Any scenario flag given (an input, a convention, the cooling
+	// function) starts from the flags; only the explorer's own flags and
+	// --criteria leave the demo in place.
 	flagsGiven := false
-	for _, n := range []string{"chi", "mach", "pressure", "t-cloud", "radius", "metallicity", "cooling"} {
-		flagsGiven = flagsGiven || f.set(n)
-	}
+	f.fs.Visit(func(fl *flag.Flag) {
+		switch fl.Name {
+		case "demo", "palette", "ascii", "criteria", "scenario":
+		default:
+			flagsGiven = true
+		}
+	})
 	switch {
 	case sf.scenario != "" || flagsGiven:
 		p, err := sf.params(e)

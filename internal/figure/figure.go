@@ -31,13 +31,16 @@ import (
 
 // Exported figures are 6 × 4 in, a common size for one figure on a slide
 // or a page, 6 × 6 in with two panels, and PNGs have 300 dpi, the usual
-// print resolution (common practice, no source).
+// print resolution (common practice, no source). A line chart whose legend
+// needs more than legendFreeRows rows grows by the extra rows, so that the
+// plot keeps its height.
 const (
-	figureWidth  = 6 * vg.Inch
-	figureHeight = 4 * vg.Inch
-	panelHeight  = 2.5 * vg.Inch // each panel after the first adds this
-	figureDPI    = 300
-	figureMargin = 4 // points of white around everything, so that raised scripts and font boxes stay inside
+	figureWidth    = 6 * vg.Inch
+	figureHeight   = 4 * vg.Inch
+	panelHeight    = 2.5 * vg.Inch // each panel after the first adds this
+	figureDPI      = 300
+	figureMargin   = 4 // points of white around everything, so that raised scripts and font boxes stay inside
+	legendFreeRows = 3
 	// logLimit bounds |log10 v| on log axes: 10^±308 is the float64 range,
 	// so points beyond ±300 decades are dropped rather than sent to
 	// plot.LogScale, which panics on 0 and misbehaves on +Inf.
@@ -83,8 +86,10 @@ func FormatOf(path string) (Format, error) {
 // WriteLineChart writes c to path as an SVG or a PNG (6 × 4 in), chosen by
 // the extension (FormatOf). Log axes get decade ticks labelled 10⁻², 10⁰,
 // …; series are told apart by colour and dash pattern and named in a
-// legend under the plot; markers are dashed lines or rings with labels;
-// the note and the caption go under the legend. The file is written
+// legend under the plot; uncertainty bands are light fills in their
+// curve's colour between dotted edges, simulation runs glyphs per outcome
+// (overlays.go), both in the legend; markers are dashed lines or rings
+// with labels; the note and the caption go under the legend. The file is written
 // atomically (atomicfile.Write); every error names path.
 func WriteLineChart(c *chartspec.LineChart, path string) error {
 	if c == nil {
@@ -107,8 +112,10 @@ func WritePanels(charts []*chartspec.LineChart, path string) error {
 
 // WriteRegimeMap writes m to path like WriteLineChart: a map of cells
 // shaded by how many criteria predict survival, with the count written in
-// each cell when the cells are large enough, a legend of the shades, and
-// m.Mark drawn on top. Cell (i, j) spans 1/NX of m.X's range from m.X.Min
+// each cell when the cells are large enough ("t" where none survives but
+// some are transformed), cells of class chartspec.Depends hatched, a
+// legend of the shades, the hatching and the runs' glyphs, and m.Mark and
+// m.Runs drawn on top. Cell (i, j) spans 1/NX of m.X's range from m.X.Min
 // and 1/NY of m.Y's range from m.Y.Min, in axis units. Cells with a
 // negative count (no valid state) are light grey and labelled "no data" in
 // the legend; counts above m.Total, which should not occur, are mid-grey
@@ -125,7 +132,9 @@ func EncodeLineChart(w io.Writer, f Format, c *chartspec.LineChart) error {
 	if c == nil {
 		return errors.New("no chart to export")
 	}
-	return encode(w, f, figureHeight, func(h *richText, dc draw.Canvas) error { return drawLineCharts(h, dc, []*chartspec.LineChart{c}) })
+	charts := []*chartspec.LineChart{c}
+	height := func(h *richText) vg.Length { return figureHeight + legendExtra(h, charts) }
+	return encode(w, f, height, func(h *richText, dc draw.Canvas) error { return drawLineCharts(h, dc, charts) })
 }
 
 // EncodePanels writes charts to w in format f (see WritePanels).
@@ -138,7 +147,9 @@ func EncodePanels(w io.Writer, f Format, charts []*chartspec.LineChart) error {
 	if len(charts) == 0 {
 		return errors.New("no chart to export")
 	}
-	height := figureHeight + vg.Length(len(charts)-1)*panelHeight
+	height := func(h *richText) vg.Length {
+		return figureHeight + vg.Length(len(charts)-1)*panelHeight + legendExtra(h, charts)
+	}
 	return encode(w, f, height, func(h *richText, dc draw.Canvas) error { return drawLineCharts(h, dc, charts) })
 }
 
@@ -147,7 +158,8 @@ func EncodeRegimeMap(w io.Writer, f Format, m *chartspec.RegimeMap) error {
 	if err := checkMap(m); err != nil {
 		return err
 	}
-	return encode(w, f, figureHeight, func(h *richText, dc draw.Canvas) error { return drawRegimeMap(h, dc, m) })
+	height := func(*richText) vg.Length { return figureHeight }
+	return encode(w, f, height, func(h *richText, dc draw.Canvas) error { return drawRegimeMap(h, dc, m) })
 }
 
 // checkMap refuses a map whose counts do not fill its grid.
@@ -179,21 +191,22 @@ func writeFile(path string, enc func(io.Writer, Format) error) error {
 	})
 }
 
-// encode renders a figure of the given height in format f and writes it
-// to w.
-func encode(w io.Writer, f Format, height vg.Length, render func(*richText, draw.Canvas) error) error {
-	var canvas vg.CanvasWriterTo
-	switch f {
-	case SVG:
-		canvas = vgsvg.NewWith(vgsvg.UseWH(figureWidth, height), vgsvg.EmbedFonts(true))
-	case PNG:
-		canvas = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(figureWidth, height), vgimg.UseDPI(figureDPI))}
-	default:
-		return fmt.Errorf("%w %d", ErrFormat, int(f))
-	}
+// encode renders a figure of the height height gives (measured with the
+// figure's fonts) in format f and writes it to w.
+func encode(w io.Writer, f Format, height func(*richText) vg.Length, render func(*richText, draw.Canvas) error) error {
 	h, err := newRichText()
 	if err != nil {
 		return err
+	}
+	ht := height(h)
+	var canvas vg.CanvasWriterTo
+	switch f {
+	case SVG:
+		canvas = vgsvg.NewWith(vgsvg.UseWH(figureWidth, ht), vgsvg.EmbedFonts(true))
+	case PNG:
+		canvas = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(figureWidth, ht), vgimg.UseDPI(figureDPI))}
+	default:
+		return fmt.Errorf("%w %d", ErrFormat, int(f))
 	}
 	if err := renderSafely(func(dc draw.Canvas) error { return render(h, dc) }, draw.New(canvas)); err != nil {
 		return err

@@ -23,11 +23,7 @@ func drawLineCharts(h *richText, dc draw.Canvas, charts []*chartspec.LineChart) 
 		}
 	}
 	dc = drawFooter(h, dc, foot, charts[0].Caption)
-	var legend []legendItem
-	for _, s := range charts[0].Series {
-		legend = append(legend, legendItem{s.Name, &plotter.Line{LineStyle: lineStyle(s.Index, s.Dashed)}})
-	}
-	dc = drawLegendRows(h, dc, legend)
+	dc = drawLegendRows(h, dc, chartLegend(charts[0]))
 	n := vg.Length(len(charts))
 	height := (dc.Max.Y - dc.Min.Y) / n
 	for i, c := range charts {
@@ -43,6 +39,28 @@ func drawLineCharts(h *richText, dc draw.Canvas, charts []*chartspec.LineChart) 
 		drawLinePlot(h, panel, c, titleSize)
 	}
 	return nil
+}
+
+// chartLegend returns the legend entries of c: its series, its bands and
+// its runs.
+func chartLegend(c *chartspec.LineChart) []legendItem {
+	var legend []legendItem
+	for _, s := range c.Series {
+		legend = append(legend, legendItem{s.Name, &plotter.Line{LineStyle: lineStyle(s.Index, s.Dashed)}})
+	}
+	legend = append(legend, bandLegend(c)...)
+	return append(legend, runLegend(c.Runs, c.RunsName)...)
+}
+
+// legendExtra returns the height a figure of charts needs beyond its
+// standard size for the rows of its legend beyond legendFreeRows.
+func legendExtra(h *richText, charts []*chartspec.LineChart) vg.Length {
+	if len(charts) == 0 || charts[0] == nil {
+		return 0
+	}
+	avail := figureWidth - 2*vg.Points(figureMargin) - 2*vg.Points(legendPad)
+	rows, lineH := packLegendRows(h.textStyle(9, color.Black), avail, chartLegend(charts[0]))
+	return vg.Length(max(0, len(rows)-legendFreeRows)) * lineH
 }
 
 // Margins in points (no source: chosen to read at slide size): the space
@@ -80,10 +98,16 @@ func drawLinePlot(h *richText, dc draw.Canvas, c *chartspec.LineChart, titleSize
 		flush()
 	}
 	p := newPlot(h, c.Title, titleSize)
-	p.Add(lines...)
-	p.Add(&markerPlotter{h: h, markers: c.Markers, xlog: c.X.Log, ylog: c.Y.Log})
 	xlo, xhi := axisRange(c.X, xs)
 	ylo, yhi := axisRange(c.Y, ys)
+	if len(c.Bands) > 0 {
+		p.Add(&bandPlotter{bands: c.Bands, xlog: c.X.Log, ylog: c.Y.Log, ylo: ylo, yhi: yhi})
+	}
+	p.Add(lines...)
+	p.Add(&markerPlotter{h: h, markers: c.Markers, xlog: c.X.Log, ylog: c.Y.Log})
+	if len(c.Runs) > 0 {
+		p.Add(&runPlotter{runs: c.Runs, xlog: c.X.Log, ylog: c.Y.Log})
+	}
 	setupAxis(h, &p.X, c.X, xlo, xhi)
 	setupAxis(h, &p.Y, c.Y, ylo, yhi)
 	p.Draw(dc)
@@ -200,27 +224,7 @@ func drawLegendRows(h *richText, dc draw.Canvas, items []legendItem) draw.Canvas
 	}
 	sty := h.textStyle(9, color.Black)
 	pad := vg.Points(legendPad)
-	avail := dc.Max.X - dc.Min.X - 2*pad
-	type placed struct {
-		item legendItem
-		text string
-		x    vg.Length
-	}
-	var rows [][]placed
-	var x vg.Length
-	for _, it := range items {
-		txt := fitText(sty, it.text, avail-vg.Points(legendThumb+legendGap))
-		w := vg.Points(legendThumb+legendGap) + sty.Width(txt)
-		if len(rows) == 0 || x+vg.Points(legendSep)+w > avail {
-			rows = append(rows, nil)
-			x = 0
-		} else {
-			x += vg.Points(legendSep)
-		}
-		rows[len(rows)-1] = append(rows[len(rows)-1], placed{it, txt, x})
-		x += w
-	}
-	lineH := sty.Height("Mg") * 1.3
+	rows, lineH := packLegendRows(sty, dc.Max.X-dc.Min.X-2*pad, items)
 	top := dc.Min.Y + pad + vg.Length(len(rows))*lineH
 	for r, row := range rows {
 		base := top - vg.Length(r+1)*lineH
@@ -235,6 +239,35 @@ func drawLegendRows(h *richText, dc draw.Canvas, items []legendItem) draw.Canvas
 		}
 	}
 	return draw.Crop(dc, 0, 0, top+pad-dc.Min.Y, 0)
+}
+
+// A placedLegend is a legend entry placed on its row: its text as shown
+// and its offset from the row's start.
+type placedLegend struct {
+	item legendItem
+	text string
+	x    vg.Length
+}
+
+// packLegendRows packs items into rows avail wide, in order, each entry
+// shortened with "…" if it alone is wider; it returns the rows and the
+// height of one.
+func packLegendRows(sty draw.TextStyle, avail vg.Length, items []legendItem) ([][]placedLegend, vg.Length) {
+	var rows [][]placedLegend
+	var x vg.Length
+	for _, it := range items {
+		txt := fitText(sty, it.text, avail-vg.Points(legendThumb+legendGap))
+		w := vg.Points(legendThumb+legendGap) + sty.Width(txt)
+		if len(rows) == 0 || x+vg.Points(legendSep)+w > avail {
+			rows = append(rows, nil)
+			x = 0
+		} else {
+			x += vg.Points(legendSep)
+		}
+		rows[len(rows)-1] = append(rows[len(rows)-1], placedLegend{it, txt, x})
+		x += w
+	}
+	return rows, sty.Height("Mg") * 1.3
 }
 
 // fitText returns txt, or txt shortened with "…" to at most w wide.
@@ -270,8 +303,8 @@ func wrapText(sty draw.TextStyle, txt string, w vg.Length, n int) []string {
 }
 
 // drawFooter writes the notes and then the caption at the bottom of dc,
-// each wrapped to at most two lines, and returns the rest of dc above
-// them.
+// each note wrapped to at most three lines and the caption to two, and
+// returns the rest of dc above them.
 func drawFooter(h *richText, dc draw.Canvas, notes []string, caption string) draw.Canvas {
 	type line struct {
 		text string
@@ -282,7 +315,7 @@ func drawFooter(h *richText, dc draw.Canvas, notes []string, caption string) dra
 	var lines []line
 	for _, n := range notes {
 		sty := h.textStyle(8, color.Black)
-		for _, l := range wrapText(sty, n, w, 2) {
+		for _, l := range wrapText(sty, n, w, 3) {
 			lines = append(lines, line{l, sty})
 		}
 	}

@@ -86,6 +86,13 @@ func drawRegimeMap(h *richText, dc draw.Canvas, m *chartspec.RegimeMap) error {
 	if slices.IndexFunc(m.Counts, func(n int) bool { return n < 0 }) >= 0 {
 		items = append(items, legendItem{"no data", boxThumb(noDataColor)})
 	}
+	if slices.Contains(m.Class, chartspec.Depends) {
+		items = append(items, legendItem{"hatched: uncertain verdict", hatchThumb{}})
+	}
+	if transformedOnly(m) {
+		items = append(items, legendItem{"t: transformed, none grows", boxThumb(shade(0, m.Total))})
+	}
+	items = append(items, runLegend(m.Runs, "")...) // the note names the runs' source
 	plotArea := drawLegendStrip(h, dc, items, "Criteria predicting survival")
 	p := newPlot(h, m.Title, 11)
 	xlo, xhi := axisRange(m.X, nil)
@@ -93,6 +100,9 @@ func drawRegimeMap(h *richText, dc draw.Canvas, m *chartspec.RegimeMap) error {
 	p.Add(&cellPlotter{h: h, m: m, xlo: xlo, xhi: xhi, ylo: ylo, yhi: yhi})
 	if m.Mark != nil {
 		p.Add(&markerPlotter{h: h, markers: []chartspec.Marker{*m.Mark}, xlog: m.X.Log, ylog: m.Y.Log})
+	}
+	if len(m.Runs) > 0 {
+		p.Add(&runPlotter{runs: m.Runs, xlog: m.X.Log, ylog: m.Y.Log})
 	}
 	setupAxis(h, &p.X, m.X, xlo, xhi)
 	setupAxis(h, &p.Y, m.Y, ylo, yhi)
@@ -118,18 +128,26 @@ func (cp *cellPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 		y0, y1 := trY(at(cp.ylo+float64(j)*dy, m.Y.Log)), trY(at(cp.ylo+float64(j+1)*dy, m.Y.Log))
 		for i := range m.NX {
 			x0, x1 := trX(at(cp.xlo+float64(i)*dx, m.X.Log)), trX(at(cp.xlo+float64(i+1)*dx, m.X.Log))
-			n := m.Counts[j*m.NX+i]
+			k := j*m.NX + i
+			n := m.Counts[k]
+			cell := vg.Rectangle{Min: vg.Point{X: x0, Y: y0}, Max: vg.Point{X: x1, Y: y1}}
 			c.SetColor(shade(n, m.Total))
-			c.Fill(vg.Rectangle{Min: vg.Point{X: x0, Y: y0}, Max: vg.Point{X: x1, Y: y1}}.Path())
-			if n < 0 || x1-x0 < vg.Points(9) || y1-y0 < vg.Points(8) {
-				continue
-			}
+			c.Fill(cell.Path())
 			ink, label := color.Color(color.White), strconv.Itoa(n)
 			if 2*n > m.Total {
 				ink = color.Black
 			}
-			if n > m.Total {
+			if n >= 0 && k < len(m.Class) && m.Class[k] == chartspec.Depends {
+				hatch(c, cell, ink)
+			}
+			if n < 0 || x1-x0 < vg.Points(9) || y1-y0 < vg.Points(8) {
+				continue
+			}
+			switch {
+			case n > m.Total:
 				label = "?"
+			case n == 0 && k < len(m.Transformed) && m.Transformed[k] > 0:
+				label = "t"
 			}
 			sty := cp.h.textStyle(7, ink)
 			sty.XAlign, sty.YAlign = draw.XCenter, draw.YCenter
@@ -163,4 +181,46 @@ func drawLegendStrip(h *richText, dc draw.Canvas, items []legendItem, heading st
 	strip.Max.Y -= l.TextStyle.Height(heading) + vg.Points(4)
 	l.Draw(strip)
 	return draw.Crop(dc, 0, -w-vg.Points(rightMargin), 0, 0)
+}
+
+// hatchStep is the spacing of the hatching of cells that depend on
+// constants or conventions, in points (no source: visible at slide size
+// without hiding the count).
+const hatchStep = 3
+
+// hatch draws diagonal lines across cell r in colour ink: the mark of a
+// cell whose verdicts depend on constants or conventions. The lines are
+// those of x + y = k hatchStep on the whole canvas, clipped to the cell,
+// so that they run on unbroken across neighbouring hatched cells.
+func hatch(c draw.Canvas, r vg.Rectangle, ink color.Color) {
+	sty := draw.LineStyle{Color: ink, Width: vg.Points(0.4)}
+	step := vg.Points(hatchStep)
+	lo, hi := r.Min.X+r.Min.Y, r.Max.X+r.Max.Y
+	for d := vg.Length(math.Ceil(float64(lo/step))) * step; d <= hi; d += step {
+		xa, xb := max(r.Min.X, d-r.Max.Y), min(r.Max.X, d-r.Min.Y)
+		if xa < xb {
+			c.StrokeLine2(sty, xa, d-xa, xb, d-xb)
+		}
+	}
+}
+
+// hatchThumb is the legend thumbnail of hatched cells.
+type hatchThumb struct{}
+
+// Thumbnail hatches c on a mid shade.
+func (hatchThumb) Thumbnail(c *draw.Canvas) {
+	c.SetColor(shade(1, 2))
+	c.Fill(c.Rectangle.Path())
+	hatch(*c, c.Rectangle, color.White)
+}
+
+// transformedOnly reports whether a cell of m has no survivor but a
+// transformed verdict (labelled "t").
+func transformedOnly(m *chartspec.RegimeMap) bool {
+	for k, t := range m.Transformed {
+		if t > 0 && k < len(m.Counts) && m.Counts[k] == 0 {
+			return true
+		}
+	}
+	return false
 }

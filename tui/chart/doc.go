@@ -5,7 +5,10 @@
 // columns and h rows, never panics, and reads without colour: curves carry
 // glyphs, map cells digits or shades, and a curve drawn over an earlier one
 // leaves the earlier one visible every few columns and says so in the
-// legend (overlap.go). With ASCII set every text is spelt in plain ASCII
+// legend (overlap.go). Uncertainty bands and simulation runs are drawn with
+// glyphs of their own (bands.go); regime-map cells whose verdicts depend on
+// constants or conventions alternate '?' with their count, and runs sit on
+// the map as on the line charts (regimelegend.go). With ASCII set every text is spelt in plain ASCII
 // (χ → chi, cm⁻³ → cm^-3).
 //
 // Curves are braille patterns drawn with ntcharts' graph.BrailleGrid on

@@ -109,6 +109,8 @@ func drawAxes(s *surface, f frame, x0, pw int, xt, yt []placedTick, g axisGlyphs
 type legendItem struct {
 	key, text     []rune
 	keyID, textID uint8
+	keep          bool // the text is never shortened (the keys of bands and runs; fitLegend shortens curve names)
+	of            int  // 1 + the index of the series the entry names; 0 for other entries
 }
 
 // width returns the cells the item takes: key, a space, text.

@@ -37,7 +37,11 @@ const (
 // Series are braille curves (via ntcharts' graph.BrailleGrid) when
 // st.Color && !st.ASCII, each tagged with its glyph near its end so that
 // the legend does not rest on colour; otherwise every series is drawn
-// with its glyph st.Glyph(Index), lighter and sparser when Dashed.
+// with its glyph st.Glyph(Index), lighter and sparser when Dashed. Bands
+// (c.Bands) are drawn under the series as a braille stipple or a light
+// fill ('░', ',' in ASCII), and runs (c.Runs) over them as ✓, ◐ and ✗ (S,
+// T, D in ASCII), each with a legend entry (bands.go). Long legends are
+// shortened so that every curve keeps an entry (legend.go).
 // Everything is clipped to the plot area; NaN and ±Inf points break a
 // line. Blocks smaller than 20×6 hold only the note "too small"; a nil
 // chart or one without data shows "no data". It never panics.
@@ -70,19 +74,22 @@ type lineRender struct {
 	braille  bool
 	noLegend bool
 
-	f      frame
-	x0, pw int      // first plot column, plot columns
-	sx, sy int      // dots per cell across and down: 2×4 braille, 1×1 runes
-	xs, ys dotScale // axis value → dot; ys counts dots up from the bottom
-	xt, yt []placedTick
-	items  []legendItem   // one per series
-	legend [][]legendItem // items packed in rows
-	sid    []uint8        // style id of each series
-	owners []uint64       // per surface cell: bit i set when series i passes through it (overlap.go)
-	axisID uint8
-	dimID  uint8
-	warnID uint8
-	drawn  bool // something was drawn in the plot area
+	f        frame
+	x0, pw   int      // first plot column, plot columns
+	sx, sy   int      // dots per cell across and down: 2×4 braille, 1×1 runes
+	xs, ys   dotScale // axis value → dot; ys counts dots up from the bottom
+	xt, yt   []placedTick
+	items    []legendItem   // one per series, then the bands' and the runs' entries
+	legend   [][]legendItem // items packed in rows
+	sid      []uint8        // style id of each series
+	owners   []uint64       // per surface cell: bit i set when series i passes through it (overlap.go)
+	axisID   uint8
+	dimID    uint8
+	warnID   uint8
+	runID    uint8
+	legendID uint8
+	runCells map[canvas.Point]rune // the runs' cells and glyphs (placeRuns)
+	drawn    bool                  // something was drawn in the plot area
 }
 
 // layout computes the frame, the scales and the ticks; false means the
@@ -96,21 +103,41 @@ func (lc *lineRender) layout() bool {
 	ylo, yhi, yok := axisRange(c.Y, dylo, dyhi)
 
 	legendID := s.addStyle(st.Legend)
+	lc.legendID = legendID
 	var items []legendItem
 	lc.sid = make([]uint8, len(c.Series))
+	solid := map[int]bool{} // indices of solid curves, for c.DashedName
+	for i := range c.Series {
+		solid[c.Series[i].Index] = solid[c.Series[i].Index] || !c.Series[i].Dashed
+	}
+	grouped := false
 	for i := range c.Series {
 		sr := &c.Series[i]
 		lc.sid[i] = lc.seriesStyleID(sr)
+		if sr.Dashed && c.DashedName != "" && solid[sr.Index] {
+			grouped = true // named by the group's entry
+			continue
+		}
 		name := textRunes(sr.Name, lc.st.ASCII)
 		if len(name) == 0 {
 			name = []rune("(unnamed)")
 		}
-		it := legendItem{key: []rune{st.Glyph(sr.Index)}, text: name, keyID: lc.sid[i], textID: legendID}
+		it := legendItem{key: []rune{st.Glyph(sr.Index)}, text: name, keyID: lc.sid[i], textID: legendID, of: i + 1}
 		if sr.Dashed {
 			it.textID = lc.dimID
 		}
 		items = append(items, it)
 	}
+	if grouped {
+		key := dashedRune
+		if st.ASCII {
+			key = dashedRuneASCII
+		}
+		items = append(items, legendItem{key: []rune{key}, text: textRunes(c.DashedName, st.ASCII), keyID: lc.dimID, textID: lc.dimID, keep: true})
+	}
+	items = append(items, lc.bandLegend(legendID)...)
+	lc.runID = s.addStyle(st.Title)
+	items = append(items, runLegend(c.Runs, st.ASCII, lc.runID, legendID)...)
 	lc.items = items
 	if !lc.noLegend {
 		lc.legend = packLegend(items, s.w)
@@ -119,6 +146,12 @@ func (lc *lineRender) layout() bool {
 	f, ok := layoutFrame(s.h, c.Title != "", c.Y.Label != "", c.X.Label != "", c.Note != "", len(lc.legend))
 	if !ok {
 		return false
+	}
+	if f.nleg < len(lc.legend) { // shorten the names to keep every entry (legend.go)
+		lc.legend, lc.items = fitLegend(items, s.w, f.nleg, st.ASCII)
+		if f, ok = layoutFrame(s.h, c.Title != "", c.Y.Label != "", c.X.Label != "", c.Note != "", len(lc.legend)); !ok {
+			return false
+		}
 	}
 	lc.f = f
 	lc.sx, lc.sy = 1, 1
@@ -138,6 +171,7 @@ func (lc *lineRender) layout() bool {
 	if xok {
 		lc.xt = pickXTicks(tickSets(xlo, xhi, c.X.Log, lc.pw/3+1), lc.col, s.w)
 	}
+	lc.placeRuns()
 	return true
 }
 
@@ -193,7 +227,8 @@ func (lc *lineRender) seriesStyleID(sr *chartspec.Series) uint8 {
 }
 
 // draw draws everything on the surface, bottom layer first: axes and
-// texts, marker lines, series, tags, point markers, marker labels.
+// texts, marker lines, bands, series, tags, point markers, runs, marker
+// labels.
 func (lc *lineRender) draw() {
 	c, st, s, f := lc.c, lc.st, lc.s, lc.f
 	drawAxes(s, f, lc.x0, lc.pw, lc.xt, lc.yt, axesGlyphs(st.ASCII), lc.axisID)
@@ -211,6 +246,9 @@ func (lc *lineRender) draw() {
 
 	for i := range c.Markers {
 		lc.drawMarkerLine(&c.Markers[i])
+	}
+	for i := range c.Bands {
+		lc.drawBand(&c.Bands[i], lc.bandStyleID(&c.Bands[i]))
 	}
 	ends := make([][]canvas.Point, len(c.Series))
 	for i := range c.Series {
@@ -234,6 +272,7 @@ func (lc *lineRender) draw() {
 	for i := range c.Markers {
 		lc.drawMarkerPoint(&c.Markers[i])
 	}
+	lc.drawRuns(lc.runID)
 	for i := range c.Markers {
 		lc.labelMarker(&c.Markers[i])
 	}
@@ -257,61 +296,6 @@ func (lc *lineRender) drawTitle(ylabel []rune) {
 	case f.ylabel >= 0 && len(ylabel)+3+len(title) <= s.w:
 		s.write(s.w-len(title), f.ylabel, title, id, kindText)
 	}
-}
-
-// eachSegment calls seg with every visible piece of sr's polyline,
-// clipped to the axis ranges; an isolated finite point inside them comes
-// as a segment of zero length. NaN and ±Inf points break the line.
-func (lc *lineRender) eachSegment(sr *chartspec.Series, seg func(x0, y0, x1, y1 float64)) {
-	n := min(len(sr.X), len(sr.Y))
-	ok := func(k int) bool { return k >= 0 && k < n && isFiniteValue(sr.X[k]) && isFiniteValue(sr.Y[k]) }
-	for k := 0; k < n; k++ {
-		if !ok(k) {
-			continue
-		}
-		x, y := sr.X[k], sr.Y[k]
-		if ok(k + 1) {
-			if ax, ay, bx, by, vis := clipSegment(x, y, sr.X[k+1], sr.Y[k+1], lc.xs.lo, lc.xs.hi, lc.ys.lo, lc.ys.hi); vis {
-				seg(ax, ay, bx, by)
-			}
-		} else if !ok(k-1) && lc.xs.contains(x) && lc.ys.contains(y) {
-			seg(x, y, x, y)
-		}
-	}
-}
-
-// clipSegment clips the segment (x0, y0)–(x1, y1) to the rectangle
-// [xlo, xhi]×[ylo, yhi] with the Liang–Barsky algorithm (Liang, Y.-D. and
-// Barsky, B. A., "A new concept and method for line clipping", ACM Trans.
-// Graph. 3(1), 1984, pp. 1–22); vis is false when nothing is inside.
-func clipSegment(x0, y0, x1, y1, xlo, xhi, ylo, yhi float64) (ax, ay, bx, by float64, vis bool) {
-	dx, dy := x1-x0, y1-y0
-	if !isFiniteValue(dx) || !isFiniteValue(dy) {
-		return 0, 0, 0, 0, false
-	}
-	t0, t1 := 0.0, 1.0
-	for _, pq := range [4][2]float64{{-dx, x0 - xlo}, {dx, xhi - x0}, {-dy, y0 - ylo}, {dy, yhi - y0}} {
-		p, q := pq[0], pq[1]
-		if p == 0 {
-			if q < 0 { // parallel to this edge and outside it
-				return 0, 0, 0, 0, false
-			}
-			continue
-		}
-		r := q / p
-		if p < 0 {
-			if r > t1 {
-				return 0, 0, 0, 0, false
-			}
-			t0 = math.Max(t0, r)
-		} else {
-			if r < t0 {
-				return 0, 0, 0, 0, false
-			}
-			t1 = math.Min(t1, r)
-		}
-	}
-	return x0 + t0*dx, y0 + t0*dy, x0 + t1*dx, y0 + t1*dy, true
 }
 
 // drawBraille draws sr as braille: one ntcharts BrailleGrid for the

@@ -111,11 +111,13 @@ func (lc *lineRender) legendWithOverlaps() [][]legendItem {
 	ov := lc.overlaps()
 	items := append([]legendItem(nil), lc.items...)
 	marked := false
-	for i, j := range ov {
-		if j >= 0 && i < len(items) {
-			items[i].text = append(append([]rune(nil), items[i].text...), []rune(" (overlaps "+string(lc.st.Glyph(lc.c.Series[j].Index))+")")...)
-			marked = true
+	for k := range items {
+		i := items[k].of - 1
+		if i < 0 || i >= len(ov) || ov[i] < 0 {
+			continue
 		}
+		items[k].text = append(append([]rune(nil), items[k].text...), []rune(" (overlaps "+string(lc.st.Glyph(lc.c.Series[ov[i]].Index))+")")...)
+		marked = true
 	}
 	if !marked {
 		return lc.legend

@@ -55,6 +55,10 @@ func RenderPanels(charts []*chartspec.LineChart, w, h int, st *Styles) string {
 	for nleg > 0 && panelH(nleg) < minChartHeight {
 		nleg--
 	}
+	if nleg < len(rows) { // shorten the names to keep every entry (legend.go)
+		rows, _ = fitLegend(items, w, nleg, st.ASCII)
+		nleg = min(nleg, len(rows))
+	}
 	ph := panelH(nleg)
 	if ph < minChartHeight { // not even the panels fit: the first chart alone
 		return RenderLine(charts[0], w, h, st)

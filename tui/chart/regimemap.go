@@ -4,6 +4,8 @@ import (
 	"math"
 	"strconv"
 
+	"github.com/NimbleMarkets/ntcharts/canvas"
+
 	"cloudwind/internal/chartspec"
 )
 
@@ -19,10 +21,16 @@ const (
 // lines joined by "\n", each w cells wide as lipgloss.Width measures.
 // Each plot cell shows the count of the map cell under it as a digit (a
 // shade glyph when m.Total > 9), on the background st.Heat gives that
-// count, so that the map reads without colour; counts below zero are
-// shown blank (no data) and counts above m.Total as '?'. The block holds
-// axes with decade labels, the current point m.Mark ('◆', 'X' in ASCII),
-// a legend "0 1 … N of N criteria predict survival" and m.Note when room
+// count, so that the map reads without colour: 0 and m.Total are cells
+// where the criteria agree, the digits between where they disagree, 't' a
+// cell where none survives but some predict "transformed"
+// (m.Transformed). In cells of class chartspec.Depends every other cell
+// (a checkerboard) shows '?' instead, so that the count stays readable
+// beside the mark. Counts below zero are shown blank (no data) and counts
+// above m.Total as '!'. Simulation runs (m.Runs) are drawn over the cells
+// as ✓ (grew or survived), ◐ (transformed) and ✗ (destroyed); S, T and D in
+// ASCII. The block holds axes with decade labels, the current point m.Mark
+// ('◆', 'X' in ASCII), a legend of every glyph in use and m.Note when room
 // allows. Blocks smaller than 20×6 hold only the note "too small". It
 // never panics.
 func RenderRegimeMap(m *chartspec.RegimeMap, w, h int, st *Styles) string {
@@ -57,8 +65,9 @@ type mapRender struct {
 	xlo, xhi, ylo, yhi float64
 	ok                 bool // both ranges usable
 	xt, yt             []placedTick
-	heat               []uint8    // style id of each st.Heat shade
-	key, mark          []textSpan // legend: colour key, current point
+	heat               []uint8               // style id of each st.Heat shade
+	legend             [][][]textSpan        // legend rows of entries, each a list of spans
+	runCells           map[canvas.Point]rune // the runs' cells and glyphs (placeRuns)
 	axisID, dimID      uint8
 	warnID, markID     uint8
 }
@@ -100,16 +109,8 @@ func (rm *mapRender) layout() bool {
 	rm.ylo, rm.yhi, yok = axisRange(m.Y, math.NaN(), math.NaN())
 	rm.ok = xok && yok
 
-	rm.key = rm.legendKey()
-	if spansWidth(rm.key) > s.w {
-		rm.key = rm.legendKeyText()
-	}
-	rm.mark = rm.legendMark()
-	legendRows := 1
-	if len(rm.mark) > 0 && spansWidth(rm.key)+legendGap+spansWidth(rm.mark) > s.w {
-		legendRows = 2
-	}
-	f, ok := layoutFrame(s.h, m.Title != "", m.Y.Label != "", m.X.Label != "", m.Note != "", legendRows)
+	rm.legend = packSpans(rm.legendEntries(false), s.w)
+	f, ok := layoutFrame(s.h, m.Title != "", m.Y.Label != "", m.X.Label != "", m.Note != "", len(rm.legend))
 	if !ok {
 		return false
 	}
@@ -125,6 +126,7 @@ func (rm *mapRender) layout() bool {
 	if xok {
 		rm.xt = pickXTicks(tickSets(rm.xlo, rm.xhi, m.X.Log, rm.pw/3+1), rm.col, s.w)
 	}
+	rm.placeRuns()
 	return true
 }
 
@@ -166,8 +168,16 @@ func (rm *mapRender) legendKey() []textSpan {
 	var sp []textSpan
 	text := " of " + strconv.Itoa(rm.total) + " criteria predict survival"
 	if rm.total <= 9 {
+		// In colour each swatch is " k " on its shade; without, "0 1 2 …".
 		for k := 0; k <= rm.total; k++ {
-			sp = append(sp, textSpan{[]rune{' ', rm.glyph(k), ' '}, rm.heatID(k)})
+			switch {
+			case rm.st.Color:
+				sp = append(sp, textSpan{[]rune{' ', rm.glyph(k), ' '}, rm.heatID(k)})
+			case k > 0:
+				sp = append(sp, textSpan{[]rune{' '}, rm.axisID}, textSpan{[]rune{rm.glyph(k)}, rm.heatID(k)})
+			default:
+				sp = append(sp, textSpan{[]rune{rm.glyph(k)}, rm.heatID(k)})
+			}
 		}
 		return append(sp, textSpan{[]rune(text), rm.axisID})
 	}
@@ -265,19 +275,26 @@ func (rm *mapRender) draw() {
 	if f.note >= 0 {
 		s.write(0, f.note, clipRunes(textRunes(m.Note, rm.st.ASCII), s.w, st.ASCII), rm.dimID, kindText)
 	}
-	if f.nleg > 0 {
-		x := writeSpans(s, 0, f.legend, rm.key)
-		if len(rm.mark) > 0 {
-			if f.nleg > 1 {
-				writeSpans(s, 0, f.legend+1, rm.mark)
-			} else if x+legendGap+spansWidth(rm.mark) <= s.w {
-				writeSpans(s, x+legendGap, f.legend, rm.mark)
+	for r := 0; r < f.nleg && r < len(rm.legend); r++ {
+		x := 0
+		for i, e := range rm.legend[r] {
+			if i > 0 {
+				x += legendGap
 			}
+			x = writeSpans(s, x, f.legend+r, clipSpans(e, s.w-x, st.ASCII))
+		}
+		if r == f.nleg-1 && f.nleg < len(rm.legend) {
+			ell := []rune("…")
+			if st.ASCII {
+				ell = []rune("...")
+			}
+			s.write(min(x+1, s.w-len(ell)), f.legend+r, ell, rm.axisID, kindText)
 		}
 	}
 	if !rm.drawCells() {
 		writeCentred(s, rm.x0, rm.pw, f.top+(f.ph-1)/2, []rune("no data"), rm.dimID, st.ASCII)
 	}
+	rm.drawRuns()
 	rm.drawMark()
 }
 
@@ -288,21 +305,25 @@ func (rm *mapRender) drawCells() bool {
 	if !rm.ok || m.NX <= 0 || m.NY <= 0 || len(m.Counts) == 0 {
 		return false
 	}
-	question := rm.warnID
 	for cy := 0; cy < rm.f.ph; cy++ {
 		j := int((float64(rm.f.ph-1-cy) + 0.5) * float64(m.NY) / float64(rm.f.ph))
 		for cx := 0; cx < rm.pw; cx++ {
 			i := int((float64(cx) + 0.5) * float64(m.NX) / float64(rm.pw))
-			k := -1
-			if idx := j*m.NX + i; idx >= 0 && idx < len(m.Counts) { // idx < 0: NX×NY overflowed
+			k, idx := -1, j*m.NX+i
+			if idx >= 0 && idx < len(m.Counts) { // idx < 0: NX×NY overflowed
 				k = m.Counts[idx]
 			}
+			x, y := rm.x0+cx, rm.f.top+cy
 			switch {
 			case k < 0: // no data: left blank
 			case k > rm.total:
-				rm.s.put(rm.x0+cx, rm.f.top+cy, '?', question, kindGuide)
+				rm.s.put(x, y, impossibleRune, rm.warnID, kindGuide)
+			case rm.class(idx) == chartspec.Depends && (cx+cy)%2 == 1:
+				rm.s.put(x, y, dependsRune, rm.heatID(k), kindGuide)
+			case k == 0 && rm.transformed(idx) > 0:
+				rm.s.put(x, y, transformedRune, rm.heatID(k), kindGuide)
 			default:
-				rm.s.put(rm.x0+cx, rm.f.top+cy, rm.glyph(k), rm.heatID(k), kindGuide)
+				rm.s.put(x, y, rm.glyph(k), rm.heatID(k), kindGuide)
 			}
 		}
 	}

@@ -19,7 +19,7 @@ type Styles struct {
 }
 
 // DefaultGlyphs are the curve glyphs of DefaultStyles.
-func DefaultGlyphs() []rune { return []rune{'*', '+', 'o', 'x', '#', '.', '%', '@'} }
+func DefaultGlyphs() []rune { return []rune{'*', '+', 'o', 'x', '#', '.', '%', '@', '='} }
 
 // DefaultStyles returns colourless styles with Unicode glyphs: series are
 // drawn with their glyphs, not as braille.

@@ -120,7 +120,7 @@ func (s *surface) String() string {
 func textRunes(s string, ascii bool) []rune {
 	s = quantity.Sanitize(s)
 	if ascii {
-		s = quantity.ASCII(s)
+		s = quantity.ASCII(strings.ReplaceAll(s, "×/÷", "x or /")) // "×/÷ 2": by a factor 2 either way
 	}
 	rs := make([]rune, 0, utf8.RuneCountInString(s))
 	for _, r := range s {
