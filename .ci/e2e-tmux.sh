@@ -3,7 +3,9 @@
 # binary at 120×40, change χ with keys and see the threshold and verdict
 # text change, type a value over the selected one, switch every view,
 # export the state twice (the second time answering the overwrite
-# question), load the demo simulation outcomes (their glyphs on charts 1
+# question), open the outflow view (7), step its star-formation rate and
+# see the chart redrawn, export it and the carried cloud as figures, load
+# the demo simulation outcomes (their glyphs on charts 1
 # and 4, the scores in the criteria table) and clear them, resize to 80×24
 # (every legend entry, the full-screen chart) and 30×10, quit, and confirm
 # the exit status and that the terminal was restored; then run it with
@@ -82,6 +84,32 @@ tmux send-keys -t "$S" 5; wait_for "5 evolution vs t/t_cc"; wait_for "cloud velo
 tmux send-keys -t "$S" 6; wait_for "6 simulation plan"; wait_for "core-hours"
 tmux send-keys -t "$S" '?'; wait_for "? or esc close"; tmux send-keys -t "$S" Escape; wait_gone "? or esc close"
 
+# The outflow view: the wind's inputs (χ, Mach, P/k_B set by the wind), a coarse step of SFR (×10^0.5)
+# redraws the chart, x exports it, c shows the carried cloud, which exports as a PNG.
+# chart_area: the chart pane's rows at 120×40 (right of the 40-column inputs pane).
+chart_area() { screen | sed -n 3,22p | cut -c42-; }
+tmux send-keys -t "$S" 7; wait_for "7 outflow: r_crit vs r/R"; wait_for "━ criteria disagree"
+wait_for "Criteria along the wind"; wait_for "set by the wind"; wait_for "cautions, wind from memory"
+tmux send-keys -t "$S" Home; wait_for "SFR      10 M☉ yr⁻¹"
+chart_before=$(chart_area)
+tmux send-keys -t "$S" S-Right; wait_for "SFR      31.6 M☉ yr⁻¹"
+for _ in $(seq 1 200); do [ "$(chart_area)" != "$chart_before" ] && break; sleep 0.05; done
+[ "$(chart_area)" != "$chart_before" ] || fail "the outflow chart did not change with SFR"
+tmux send-keys -t "$S" x; wait_for "export chart to (.svg or .png)"
+tmux send-keys -t "$S" -l "$out/outflow.svg"; tmux send-keys -t "$S" Enter
+wait_for "exported the chart to $out/outflow.svg"
+grep -qF "criteria disagree" "$out/outflow.svg" || fail "the outflow figure does not name the zone where the criteria disagree"
+grep -qF "SFR = 31.6" "$out/outflow.svg" || fail "the outflow figure's caption lacks the new SFR"
+tmux send-keys -t "$S" c; wait_for "7 outflow: carried cloud vs r/R"; wait_for "fate of the carried cloud"
+tmux send-keys -t "$S" x; wait_for "export chart to (.svg or .png)"
+tmux send-keys -t "$S" -l "$out/carried.png"; tmux send-keys -t "$S" Enter
+wait_for "exported the chart to $out/carried.png"
+[ "$(head -c 4 "$out/carried.png" | tail -c 3)" = "PNG" ] || fail "the carried-cloud figure is not a PNG"
+tmux send-keys -t "$S" c; wait_for "7 outflow: r_crit vs r/R"
+tmux send-keys -t "$S" BTab   # the chart pane: its details are the outflow's
+tmux send-keys -t "$S" d; wait_for "from memory, not checked against the paper"; wait_for "⚠ caution:"
+tmux send-keys -t "$S" Escape; wait_gone "⚠ caution:"; tmux send-keys -t "$S" Tab
+
 # Simulation outcomes: the demo (the prompt suggests it), glyphs on charts 1 and 4, scores; O again clears them.
 tmux send-keys -t "$S" 1; wait_for "1 threshold radius vs χ"
 tmux send-keys -t "$S" O; wait_for "load simulation outcomes from"
@@ -118,8 +146,9 @@ tmux kill-session -t "$S"
 # --ascii: nothing but ASCII on screen, in every view.
 tmux -u new-session -d -s "$S" -x 80 -y 24 "'$bin' --ascii --chi 100 --radius '5 pc' --cooling builtin; sleep 30"
 wait_for "Criteria"
-for v in 1 2 3 4 5 6; do
-  tmux send-keys -t "$S" "$v"; wait_for "chart $v/6"
+for v in 1 2 3 4 5 6 7 c; do
+  tmux send-keys -t "$S" "$v"
+  if [ "$v" = c ]; then wait_for "7 outflow: carried cloud"; else wait_for "chart $v/7"; fi
   if screen | LC_ALL=C grep -q '[^ -~]'; then fail "non-ASCII text with --ascii in view $v"; fi
 done
 tmux send-keys -t "$S" O; wait_for "load simulation outcomes from"; tmux send-keys -t "$S" Enter
@@ -129,4 +158,4 @@ for v in 1 4; do
   if screen | LC_ALL=C grep -q '[^ -~]'; then fail "non-ASCII text with --ascii and outcomes in view $v"; fi
 done
 tmux send-keys -t "$S" q
-echo "e2e: ok (start, χ and r_cl steps changed the threshold and verdict, typing replaced the value, 6 views, map axes, help, demo outcomes on charts 1 and 4 with scores, cleared, a missing outcomes file reported, export and the overwrite question, resize 80×24 with every legend entry and the full-screen chart, 30×10, quit with status 0, terminal restored, --ascii all ASCII with outcomes too)"
+echo "e2e: ok (start, χ and r_cl steps changed the threshold and verdict, typing replaced the value, 7 views, map axes, help, the outflow view redrawn by an SFR step and exported as SVG, its carried cloud as PNG, its details, demo outcomes on charts 1 and 4 with scores, cleared, a missing outcomes file reported, export and the overwrite question, resize 80×24 with every legend entry and the full-screen chart, 30×10, quit with status 0, terminal restored, --ascii all ASCII with outcomes too)"

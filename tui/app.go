@@ -26,6 +26,7 @@ type Config struct {
 	Open     cooling.Opener // file access for tables and scenarios (used in commands only)
 	Version  string
 	Demos    []scenario.Scenario
+	Outflow  *scenario.Outflow // the scenario's [outflow]; nil takes model.FiducialWind's injection
 }
 
 // focus says which pane takes the selection keys.
@@ -55,6 +56,7 @@ type App struct {
 
 	cur      snapshot
 	res      model.Result // the evaluation of cur
+	wind     windEval     // the wind of cur and the criteria at its launch radius (outflow view)
 	history  []snapshot   // undo stack
 	initial  snapshot     // what reset returns to
 	pin      *pinned
@@ -91,10 +93,11 @@ func New(cfg Config) (*App, error) {
 	if err != nil {
 		return nil, err
 	}
-	a.cur = snapshot{cfg.Params, cfg.Cooling, cf} // as given: unset optional inputs stay unset and show their defaults
+	a.cur = snapshot{cfg.Params, cfg.Cooling, cf, windFrom(cfg.Outflow)} // as given: unset optional inputs stay unset and show their defaults
 	if err := a.res.Evaluate(a.cur.params, cf, cfg.Criteria); err != nil {
 		return nil, err
 	}
+	a.wind = evalWind(a.cur, cfg.Criteria)
 	a.initial = a.cur
 	a.sync()
 	return a, nil
@@ -140,9 +143,17 @@ func (a *App) sync() {
 	if a.pin != nil {
 		pin = &a.pin.res
 	}
-	a.in.SetValues(a.cur.params, a.cur.cooling.Spec, report.CoolingName(a.cur.cooling, a.cur.cf))
-	a.derived.SetResult(&a.res, pin, a.cur.cf)
-	a.criteria.SetResult(&a.res, pin, a.outcomeScores())
+	outflow := a.outflowShown()
+	a.in.SetValues(a.cur.params, a.cur.wind, a.cur.cooling.Spec, report.CoolingName(a.cur.cooling, a.cur.cf))
+	a.in.SetOutflow(outflow)
+	res := a.windResult()
+	if res != &a.res {
+		pin = nil // compare mode compares the inputs of the other views
+	}
+	a.derived.SetResult(res, pin, a.cur.cf)
+	a.derived.SetLaunch(a.launchTitle())
+	a.criteria.SetResult(res, pin, a.outcomeScores())
+	a.criteria.SetOutflow(a.outflowData(), a.chart.Carried(), outflow)
 	a.in.SetFocused(a.focus == focusInputs)
 	a.derived.SetFocused(a.focus == focusDerived)
 	a.criteria.SetFocused(a.focus == focusCriteria)
@@ -156,12 +167,19 @@ func (a *App) sync() {
 		about.quantity = a.derived.Selected()
 	case focusCriteria:
 		about.criterion = a.criteria.Selected()
-	case focusChart: // the chart explains nothing of its own: the selected input
-		about = subject{focus: focusInputs, input: a.in.Current()}
+	case focusChart: // the chart explains nothing of its own but the outflow: the selected input
+		if !outflow {
+			about = subject{focus: focusInputs, input: a.in.Current()}
+		}
 	}
-	a.details.SetState(about, a.cur.params, a.cur.cooling, a.cur.cf, &a.res)
+	a.details.SetState(about, a.cur.params, a.cur.cooling, a.cur.cf, res)
+	a.details.SetOutflow(outflow, &a.cur.wind, &a.wind, a.outflowData(), a.criteria.Selected())
 	if a.details.Open() && about.focus == focusCriteria {
-		a.details.SetSpread(a.spread.get(a.cur.params, a.cur.cf, a.cfg.Criteria))
+		sp := a.cur.params
+		if res != &a.res {
+			sp = res.Params // the cloud at the launch radius
+		}
+		a.details.SetSpread(a.spread.get(sp, a.cur.cf, a.cfg.Criteria))
 	}
 	a.details.SetOutcomes(a.outcomes)
 	a.resize()
@@ -210,7 +228,9 @@ func (a *App) handleKey(msg tea.KeyMsg) tea.Cmd {
 	return a.updateFocused(msg)
 }
 
-// updateFocused forwards a key to the focused pane.
+// updateFocused forwards a key to the focused pane. A new criterion
+// selected redraws the charts that show the selected one (the threshold
+// chart's family, the carried cloud's events).
 func (a *App) updateFocused(msg tea.KeyMsg) tea.Cmd {
 	var cmd tea.Cmd
 	switch a.focus {
@@ -219,7 +239,11 @@ func (a *App) updateFocused(msg tea.KeyMsg) tea.Cmd {
 	case focusDerived:
 		a.derived, cmd = a.derived.Update(msg)
 	case focusCriteria:
+		sel := a.criteria.Selected()
 		a.criteria, cmd = a.criteria.Update(msg)
+		if a.criteria.Selected() != sel && a.chart.UsesSelected() {
+			return tea.Batch(cmd, a.requestChart())
+		}
 	case focusChart:
 		a.chart, cmd = a.chart.Update(msg)
 	}
@@ -230,6 +254,10 @@ func (a *App) updateFocused(msg tea.KeyMsg) tea.Cmd {
 // value go through change, the others to the pane.
 func (a *App) updateInputs(msg tea.KeyMsg) tea.Cmd {
 	k := &a.keys
+	if key.Matches(msg, k.Inc, k.Dec, k.IncBig, k.DecBig, k.Reset, k.Edit) && a.in.Outflow() && a.in.Current().byWind {
+		a.setStatus(a.in.Current().label+" is set by the wind in the outflow view (d explains); the other views keep their own", false)
+		return nil
+	}
 	steps := 0
 	switch {
 	case key.Matches(msg, k.Inc):
@@ -240,14 +268,33 @@ func (a *App) updateInputs(msg tea.KeyMsg) tea.Cmd {
 		steps = coarseFactor
 	case key.Matches(msg, k.DecBig):
 		steps = -coarseFactor
+	case key.Matches(msg, k.Reset) && a.in.Current().wind:
+		in := a.in.Current()
+		next := a.cur
+		if a.initial.wind.rates() != a.cur.wind.rates() { // the other form of the injection: all of it
+			next.wind.inj = a.initial.wind.inj
+		}
+		next.wind.set(in.field, a.initial.wind.value(in.field))
+		next.wind.given = a.initial.wind.given || a.cur.wind.given
+		return a.change(next, "reset "+in.label)
 	case key.Matches(msg, k.Reset):
 		next, isCooling := a.in.Reset(a.cur.params, a.initial.params)
 		if isCooling {
 			return a.requestCooling(a.initial.cooling.Spec, a.initial.cooling.Table)
 		}
-		return a.change(snapshot{next, a.cur.cooling, a.cur.cf}, "reset "+a.in.Current().label)
+		return a.change(snapshot{next, a.cur.cooling, a.cur.cf, a.cur.wind}, "reset "+a.in.Current().label)
 	default:
 		return a.updateFocused(msg)
+	}
+	if a.in.Current().wind {
+		w, err := a.in.stepWind(a.cur.wind, steps)
+		if err != nil {
+			a.setStatus(err.Error(), true)
+			return nil
+		}
+		next := a.cur
+		next.wind = w
+		return a.change(next, "")
 	}
 	p, coolingName, err := a.in.Step(a.cur.params, steps, a.cur.cooling.Spec)
 	if err != nil {
@@ -264,6 +311,17 @@ func (a *App) updateInputs(msg tea.KeyMsg) tea.Cmd {
 
 // applyEdit takes the typed value (enter while typing).
 func (a *App) applyEdit() tea.Cmd {
+	if a.in.Current().wind {
+		w, err := a.in.applyWindText(a.cur.wind, a.in.edit.Value())
+		a.in.StopEdit()
+		if err != nil {
+			a.setStatus(err.Error(), true)
+			return nil
+		}
+		next := a.cur
+		next.wind = w
+		return a.change(next, "")
+	}
 	p, spec, err := a.in.ApplyEdit(a.cur.params)
 	a.in.StopEdit()
 	if err != nil {
@@ -290,9 +348,17 @@ func (a *App) pathAction(f pathAction) pathAction {
 	}
 }
 
-// setView switches the chart.
+// setView switches the chart. Entering the outflow view clears the status
+// line, which then says that the wind is from memory and how many
+// cautions there are, or why the wind of the current inputs is not valid.
 func (a *App) setView(v viewKind) tea.Cmd {
+	if v == viewOutflow && a.chart.Kind() != viewOutflow {
+		a.setStatus("", false)
+	}
 	a.chart.SetKind(v)
+	if v == viewOutflow && !a.wind.ok() {
+		a.setStatus(a.windMessage(a.wind.err), true)
+	}
 	return a.requestChart()
 }
 
@@ -310,6 +376,10 @@ func (a *App) chartRequest() chartspec.Request {
 	}
 	if a.outcomes != nil {
 		req.Runs, req.RunsName = a.outcomes.runs, a.outcomes.name
+	}
+	if a.outflowShown() {
+		wp := a.cur.wind.params(a.cur.params)
+		req.Wind, req.Launch = &wp, model.Length(a.cur.wind.launch)*a.cur.wind.inj.Radius
 	}
 	return req
 }

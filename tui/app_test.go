@@ -216,7 +216,7 @@ func TestStaleChartDropped(t *testing.T) {
 
 func TestViewsAndFocus(t *testing.T) {
 	a := newTestApp(t, 120, 40)
-	for i, want := range []string{"threshold radius vs χ", "cooling curve", "timescale ratios", "regime map", "cloud mass m/m₀", "Plan for a growth study"} {
+	for i, want := range []string{"threshold radius vs χ", "cooling curve", "timescale ratios", "regime map", "cloud mass m/m₀", "Plan for a growth study", "r_crit vs r/R"} {
 		press(a, string(rune('1'+i)))
 		if s := screen(a); !strings.Contains(s, want) {
 			t.Errorf("view %d: %q not on screen", i+1, want)
@@ -336,30 +336,38 @@ func TestExportFromPrompt(t *testing.T) {
 	}
 }
 
-// TestEverySize draws every view, in the panes and full screen, at every
-// size from 0×0 to 130×45 (in steps) and requires exactly the window's
-// lines and widths, no panic.
+// TestEverySize draws every view (the outflow view's carried cloud too),
+// in the panes and full screen, at every size from 0×0 to 130×45 (in
+// steps) and requires exactly the window's lines and widths, "terminal too
+// small" below 60×16, no panic.
 func TestEverySize(t *testing.T) {
 	a := newTestApp(t, 120, 40)
-	for v := viewThreshold; v < 2*viewCount; v++ {
-		if v == viewCount {
-			press(a, "z", "a") // the full-screen chart, and every input
+	views := []string{"1", "2", "3", "4", "5", "6", "7", "c"} // c: the outflow view's carried cloud
+	for pass := range 2 {
+		if pass == 1 {
+			press(a, "c", "z", "a") // back to r_crit along r; the full-screen chart, and every input
 		}
-		press(a, string(rune('1'+int(v%viewCount))))
-		for w := 0; w <= 130; w += 7 {
-			for h := 0; h <= 45; h += 3 {
-				a.Update(tea.WindowSizeMsg{Width: w, Height: h}) // the chart keeps its last data; drawing is what is tested
-				out := a.View()
-				if w == 0 || h == 0 {
-					continue
-				}
-				lines := strings.Split(out, "\n")
-				if len(lines) != h {
-					t.Fatalf("view %d at %d×%d: %d lines", v+1, w, h, len(lines))
-				}
-				for i, l := range lines {
-					if n := ansi.StringWidth(l); n != w {
-						t.Fatalf("view %d at %d×%d: line %d is %d wide: %q", v+1, w, h, i, n, ansi.Strip(l))
+		for _, v := range views {
+			press(a, v)
+			for w := 0; w <= 130; w += 7 {
+				for h := 0; h <= 45; h += 3 {
+					a.Update(tea.WindowSizeMsg{Width: w, Height: h}) // the chart keeps its last data; drawing is what is tested
+					out := a.View()
+					if w == 0 || h == 0 {
+						continue
+					}
+					lines := strings.Split(out, "\n")
+					if len(lines) != h {
+						t.Fatalf("view %s at %d×%d: %d lines", v, w, h, len(lines))
+					}
+					for i, l := range lines {
+						if n := ansi.StringWidth(l); n != w {
+							t.Fatalf("view %s at %d×%d: line %d is %d wide: %q", v, w, h, i, n, ansi.Strip(l))
+						}
+					}
+					small, says := w < minWidth || h < minHeight, strings.Contains(out, "terminal too small")
+					if w >= 20 && h >= 3 && small != says { // the note needs 20×3 to be read whole
+						t.Fatalf("view %s at %d×%d: too small %v, says so %v", v, w, h, small, says)
 					}
 				}
 			}

@@ -102,13 +102,14 @@ func (a *App) statusLine() string {
 		return st.Status.Render(" " + a.status.text)
 	case a.zoom:
 		in := a.in.Current()
+		res := a.windResult()
 		survive, transformed, n := 0, 0, 0
-		for i := range a.res.Criteria {
-			if a.res.Criteria[i].Cool == model.CoolNone {
+		for i := range res.Criteria {
+			if res.Criteria[i].Cool == model.CoolNone {
 				continue
 			}
 			n++
-			switch a.res.Outcomes[i].Verdict {
+			switch res.Outcomes[i].Verdict {
 			case model.Survives:
 				survive++
 			case model.Transformed:
@@ -119,10 +120,35 @@ func (a *App) statusLine() string {
 		if transformed > 0 {
 			count += ", " + strconv.Itoa(transformed) + " transformed"
 		}
-		return st.Status.Render(" " + st.T(in.label+" = "+valueText(in, &a.cur.params, report.CoolingName(a.cur.cooling, a.cur.cf), st)+
-			" (←/→)"+st.sep()+count+st.sep()+"z back"))
+		if res != &a.res {
+			count += " at launch"
+		}
+		return st.Status.Render(" " + st.T(in.label+" = "+a.in.ValueText(in)+" (←/→)"+st.sep()+count+st.sep()+"z back"))
 	}
 	v := a.chart.Kind()
-	return st.Status.Render(" " + st.T(strconv.Itoa(len(a.res.Criteria))+" criteria"+st.sep()+"chart "+strconv.Itoa(int(v)+1)+"/"+
-		strconv.Itoa(int(viewCount))+": "+v.String()+st.sep()+"? help"))
+	chart := "chart " + strconv.Itoa(int(v)+1) + "/" + strconv.Itoa(int(viewCount))
+	if v == viewOutflow { // the chart's title names it
+		return st.Status.Render(" " + st.T(chart+st.sep()+a.outflowStatus()+st.sep()+"? help"))
+	}
+	chart += ": " + a.chart.Name()
+	return st.Status.Render(" " + st.T(strconv.Itoa(len(a.res.Criteria))+" criteria"+st.sep()+chart+st.sep()+"? help"))
+}
+
+// outflowStatus is the outflow view's part of the status line: the key
+// of the other panel, how many cautions there are and that the wind's
+// relations are from memory, with where the details are.
+func (a *App) outflowStatus() string {
+	other := "c carried cloud"
+	if a.chart.Carried() {
+		other = "c r_crit vs r"
+	}
+	where := "tab to chart, d"
+	if a.focus == focusChart {
+		where = "d"
+	}
+	cautions := ""
+	if o := a.outflowData(); o != nil {
+		cautions = a.styles.warnMark() + " " + strconv.Itoa(len(report.OutflowCautions(&o.Wind, &o.Profile))) + " cautions, "
+	}
+	return other + a.styles.sep() + cautions + "wind from memory: " + where
 }

@@ -75,3 +75,22 @@ func BenchmarkStepViewColour(b *testing.B) {
 		_ = a.View()
 	}
 }
+
+// BenchmarkStepViewOutflow is BenchmarkStepView in the outflow view: a
+// step of SFR, the wind and the criteria at its launch radius evaluated in
+// Update (evalWind), and the next frame (the profile is recomputed off the
+// update loop, measured by internal/chartspec's BenchmarkOutflowProfile).
+func BenchmarkStepViewOutflow(b *testing.B) {
+	a := newTestApp(b, 120, 40)
+	press(a, "7")
+	right, left := tea.KeyMsg{Type: tea.KeyRight}, tea.KeyMsg{Type: tea.KeyLeft}
+	b.ReportAllocs()
+	for i := 0; b.Loop(); i++ {
+		k := right
+		if i%2 == 1 {
+			k = left
+		}
+		a.Update(k)
+		_ = a.View()
+	}
+}

@@ -20,23 +20,26 @@ const (
 	viewRegime                    // regime map
 	viewEvolution                 // m/m0 and v/v_w vs t/t_cc
 	viewPlan                      // simulation plan
+	viewOutflow                   // r_crit vs r along an outflow, or the carried cloud
 	viewCount
 )
 
 func (v viewKind) String() string {
 	return [...]string{"threshold radius vs χ", "cooling curve Λ(T)", "timescale ratios vs r_cl", "regime map",
-		"evolution vs t/t_cc", "simulation plan"}[v]
+		"evolution vs t/t_cc", "simulation plan", "outflow: r_crit vs r/R"}[v]
 }
 
 // chartState is a chart received: the data of one view and the request
 // it answers.
 type chartState struct {
-	gen    int
-	view   viewKind
-	line   *chartspec.LineChart
-	line2  *chartspec.LineChart // the evolution view's second chart (v/v_w)
-	regime *chartspec.RegimeMap
-	text   []string // the plan view
+	gen     int
+	view    viewKind
+	carry   bool // the outflow view's carried cloud
+	line    *chartspec.LineChart
+	line2   *chartspec.LineChart // the second panel: v/v_w of the evolution view, v of the carried cloud
+	regime  *chartspec.RegimeMap
+	text    []string           // the plan view
+	outflow *chartspec.Outflow // the outflow view's data; nil when its wind is not valid
 }
 
 // chartPane shows one chart: which one, with which options (a family
@@ -54,6 +57,7 @@ type chartPane struct {
 	kind    viewKind
 	family  bool // threshold chart: the selected criterion at four Mach numbers
 	mapMach bool // regime map: χ × Mach
+	carry   bool // outflow view: the carried cloud instead of r_crit along the wind
 	gen     int  // generation of the latest request
 	shown   chartState
 }
@@ -90,6 +94,29 @@ func (cp *chartPane) ToggleFamily() bool { cp.family = !cp.family; return cp.fam
 // reports whether it is Mach now.
 func (cp *chartPane) ToggleMapAxis() bool { cp.mapMach = !cp.mapMach; return cp.mapMach }
 
+// ToggleCarry switches the outflow view between r_crit along the wind and
+// the carried cloud, and reports whether it shows the carried cloud now.
+func (cp *chartPane) ToggleCarry() bool { cp.carry = !cp.carry; return cp.carry }
+
+// Carried reports whether the outflow view shows the carried cloud (in
+// any view: the option is kept while another is shown).
+func (cp *chartPane) Carried() bool { return cp.carry }
+
+// UsesSelected reports whether the chosen chart shows the selected
+// criterion: the threshold chart's family, the carried cloud's events.
+func (cp *chartPane) UsesSelected() bool {
+	return (cp.kind == viewThreshold && cp.family) || (cp.kind == viewOutflow && cp.carry)
+}
+
+// Outflow returns the outflow data on screen, nil when the outflow view is
+// not drawn or its wind is not valid.
+func (cp *chartPane) Outflow() *chartspec.Outflow {
+	if cp.shown.view != viewOutflow || cp.kind != viewOutflow {
+		return nil
+	}
+	return cp.shown.outflow
+}
+
 // Shown returns the chart on screen.
 func (cp *chartPane) Shown() chartState { return cp.shown }
 
@@ -97,7 +124,7 @@ func (cp *chartPane) Shown() chartState { return cp.shown }
 // options; results of older requests are dropped when they arrive.
 func (cp *chartPane) Request(req chartspec.Request) tea.Cmd {
 	cp.gen++
-	req.Family, req.MapMach = cp.family, cp.mapMach
+	req.Family, req.MapMach, req.Carry = cp.family, cp.mapMach, cp.carry && cp.kind == viewOutflow
 	return computeChart(cp.gen, cp.kind, req)
 }
 
@@ -107,7 +134,7 @@ func (cp chartPane) Update(msg tea.Msg) (chartPane, tea.Cmd) {
 	switch m := msg.(type) {
 	case chartMsg:
 		if m.gen == cp.gen { // stale results are dropped
-			cp.shown = chartState{gen: m.gen, view: m.view, line: m.line, line2: m.line2, regime: m.regime, text: m.text}
+			cp.shown = chartState{gen: m.gen, view: m.view, carry: m.carry, line: m.line, line2: m.line2, regime: m.regime, text: m.text, outflow: m.outflow}
 		}
 	case tea.KeyMsg:
 		if c := cp.shown; c.text != nil && c.view == cp.kind {
@@ -127,9 +154,17 @@ func (cp chartPane) textLines(w int) []string {
 	return wrapLines(lines, w)
 }
 
+// Name names the chosen chart: the view, and the outflow view's panel.
+func (cp chartPane) Name() string {
+	if cp.kind == viewOutflow && cp.carry {
+		return "outflow: carried cloud vs r/R"
+	}
+	return cp.kind.String()
+}
+
 // Title names the chart.
 func (cp chartPane) Title() string {
-	t := strconv.Itoa(int(cp.kind)+1) + " " + cp.kind.String()
+	t := strconv.Itoa(int(cp.kind)+1) + " " + cp.Name()
 	if cp.kind == viewThreshold && cp.family {
 		t += " (family)"
 	}
@@ -150,7 +185,7 @@ func (cp chartPane) body(w, h int) []string {
 	c, st := cp.shown, &cp.styles.Chart
 	var s string
 	switch {
-	case c.view != cp.kind || (c.line == nil && c.regime == nil && c.text == nil):
+	case c.view != cp.kind || (c.line == nil && c.regime == nil && c.text == nil) || (cp.kind == viewOutflow && c.carry != cp.carry):
 		return cp.styles.block([]string{cp.styles.Dim.Render(cp.styles.T("computing…"))}, w, h)
 	case c.text != nil:
 		hint := "tab here or z"

@@ -39,6 +39,19 @@ func buildChart(gen int, view viewKind, req chartspec.Request) chartMsg {
 		m.line, m.line2 = chartspec.EvolutionCharts(req)
 	case viewPlan:
 		m.text = planLines(req)
+	case viewOutflow:
+		m.carry = req.Carry
+		o, err := chartspec.NewOutflow(req)
+		switch {
+		case err != nil:
+			m.line = &chartspec.LineChart{Title: "outflow", Note: "no outflow: " + oneLine(err.Error())}
+		case req.Carry:
+			m.outflow = o
+			m.line, m.line2 = o.CarriedCharts(req)
+		default:
+			m.outflow = o
+			m.line = o.ProfileChart(req)
+		}
 	}
 	return m
 }

@@ -29,6 +29,10 @@ type criteriaPane struct {
 	res      *model.Result // the current evaluation
 	pin      *model.Result // the pinned scenario A's, or nil
 	scores   []model.Score // against loaded simulation outcomes, one per criterion; nil for none
+
+	outflowOn bool               // the outflow view is shown: the table along the wind
+	outflow   *chartspec.Outflow // its data, nil while computed or when the wind is not valid
+	carry     bool               // the outflow view shows the carried cloud
 }
 
 func newCriteriaPane(styles *Styles, keys *KeyMap) criteriaPane {
@@ -69,12 +73,15 @@ func (cp criteriaPane) Update(msg tea.Msg) (criteriaPane, tea.Cmd) {
 
 // View draws the pane in its border.
 func (cp criteriaPane) View() string {
-	title := "Criteria"
-	if cp.pin != nil {
+	title, footer := "Criteria", cp.footer(cp.width-2)
+	switch {
+	case cp.outflowOn:
+		title, footer = cp.outflowTitle(), cp.outflowFooter(cp.width-2)
+	case cp.pin != nil:
 		title = "Criteria — A pinned vs B now"
 	}
 	body := cp.scroll.window(cp.lines(cp.width-2), cp.height-2, cp.selected+1, scrollHint(cp.focused), cp.styles)
-	return strings.Join(boxWithFooter(title, cp.footer(cp.width-2), body, cp.width, cp.height, cp.focused, cp.styles), "\n")
+	return strings.Join(boxWithFooter(title, footer, body, cp.width, cp.height, cp.focused, cp.styles), "\n")
 }
 
 // footer is the legend of the table's marks, set in the bottom border:
@@ -119,6 +126,9 @@ const (
 // lines renders the table for a body w cells wide: the head and a row per
 // criterion (the selected one is line selected+1).
 func (cp criteriaPane) lines(w int) []string {
+	if cp.outflowOn {
+		return cp.outflowLines(w)
+	}
 	st := cp.styles
 	compact, full := w < compactWidth, w >= fullWidth
 	nameW := 24

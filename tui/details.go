@@ -8,6 +8,7 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 
 	"cloudwind/cooling"
+	"cloudwind/internal/chartspec"
 	"cloudwind/internal/quantity"
 	"cloudwind/internal/report"
 	"cloudwind/model"
@@ -40,6 +41,12 @@ type detailsPane struct {
 	res      *model.Result
 	spread   conventionSpread // of the state, for a criterion (set while open)
 	outcomes *outcomeSet      // loaded simulation outcomes, or nil
+
+	outflowOn bool               // the outflow view is shown
+	windIn    *windInputs        // its inputs
+	wind      *windEval          // its wind and the cloud at launch
+	outflow   *chartspec.Outflow // its data on screen, nil while computed
+	selected  int                // the selected criterion, whose carried cloud is explained
 }
 
 func newDetailsPane(styles *Styles, keys *KeyMap) detailsPane {
@@ -107,14 +114,25 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 		in := d.about.input
 		title = "input " + in.label
 		wrap("meaning:", in.about)
-		if !in.isEnum() && in.field != fieldCooling {
+		switch {
+		case in.wind:
+			wrap("value:", windText(in, d.windIn, st))
+		case d.outflowOn && in.byWind:
+			wrap("value:", byWindText(in, &d.params, st)+" (the other views: "+valueText(in, &d.params, "", st)+")")
+		case !in.isEnum() && in.field != fieldCooling:
 			wrap("value:", valueText(in, &d.params, "", st))
+		}
+		if !in.isEnum() && in.field != fieldCooling {
 			step := quantity.FormatSig(in.fine, 2) + " per step (×10 with shift)"
 			if in.log {
 				step = "×" + quantity.FormatSig(pow10(in.fine), 3) + " per step (" + quantity.FormatSig(in.fine, 2) + " dex; ×10 with shift)"
 			}
 			wrap("step:", step)
-			wrap("typing:", "enter, then a number with an optional unit, e.g. "+typingExample(in.dim))
+			typing := "enter, then a number with an optional unit, e.g. " + typingExample(in.dim)
+			if in.field == fieldLaunch {
+				typing = `enter, then a multiple of R ("1", "0.5 R") or a radius ("300 pc")`
+			}
+			wrap("typing:", typing)
 		}
 		if in.isEnum() {
 			var names []string
@@ -126,6 +144,7 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 		if in.field == fieldCooling {
 			d.coolingDetails(wrap)
 		}
+		d.outflowInputDetails(in, wrap)
 	case focusDerived:
 		q := d.about.quantity
 		title = q.Symbol + " — " + q.Name
@@ -148,7 +167,12 @@ func (d detailsPane) body(w int) (title string, lines []string) {
 	case focusCriteria:
 		c := &d.res.Criteria[d.about.criterion]
 		title = criterionName(c) + " (" + quantity.Sanitize(c.ID) + ")"
+		if d.outflowOn && d.wind != nil && d.wind.ok() {
+			wrap("in the outflow view:", "evaluated for the cloud at the launch radius, "+quantity.FormatSig(d.windIn.launch, 3)+" R (χ, M and P/k_B of the wind there)")
+		}
 		d.criterionDetails(d.about.criterion, wrap, func(l string) { lines = append(lines, st.fit(l, w)) })
+	case focusChart: // the outflow view's chart (sync sends the other charts' details to the selected input)
+		title = d.outflowDetails(wrap, func(l string) { lines = append(lines, st.fit(l, w)) })
 	}
 	lines = append(lines, "", st.Help.Render(st.T("↑/↓ next item · PgUp/PgDn scroll · d or esc close")))
 	return st.T(title), lines
@@ -193,6 +217,10 @@ func typingExample(d model.Dimension) string {
 		return `"2e4", "1 keV"`
 	case model.DimPressure:
 		return `"3e3", "1e-13 erg cm-3"`
+	case model.DimMassRate:
+		return `"20", "20 Msun/yr", "1e27 g/s"`
+	case model.DimPower:
+		return `"3e42", "3e42 erg/s", "3e35 W"`
 	}
 	return `"300", "1.5e2"`
 }

@@ -32,7 +32,7 @@ func (a *App) globalKey(msg tea.KeyMsg) (cmd tea.Cmd, ok bool) {
 		a.setStatus(map[bool]string{true: "full-screen chart: the keys still act on the " + a.focus.String() + " pane; z or esc back",
 			false: "all panes"}[a.zoom], false)
 		return a.requestChart(), true
-	case key.Matches(msg, k.View1, k.View2, k.View3, k.View4, k.View5, k.View6):
+	case key.Matches(msg, k.View1, k.View2, k.View3, k.View4, k.View5, k.View6, k.View7):
 		return a.setView(viewKind(msg.String()[0] - '1')), true
 	case key.Matches(msg, k.NextView):
 		return a.setView((a.chart.Kind() + 1) % viewCount), true
@@ -46,6 +46,8 @@ func (a *App) globalKey(msg tea.KeyMsg) (cmd tea.Cmd, ok bool) {
 		}
 		a.setStatus("regime map axes: "+axes, false)
 		return a.requestChart(), true
+	case key.Matches(msg, k.Carry):
+		return a.toggleCarry(), true
 	case key.Matches(msg, k.Pin):
 		a.pin = &pinned{snapshot: a.cur, res: cloneResult(&a.res)}
 		a.setStatus("pinned the current scenario as A; changes now make B (P unpins)", false)
@@ -100,10 +102,38 @@ func (a *App) askFile(msg tea.KeyMsg) {
 	}
 }
 
+// toggleCarry switches the outflow view between r_crit along the wind and
+// the carried cloud; from another view it opens the outflow view on the
+// carried cloud.
+func (a *App) toggleCarry() tea.Cmd {
+	if !a.outflowShown() {
+		if !a.chart.Carried() {
+			a.chart.ToggleCarry()
+		}
+		cmd := a.setView(viewOutflow)
+		if !a.status.isErr {
+			a.setStatus("outflow: the carried cloud (c again: r_crit along the wind)", false)
+		}
+		return cmd
+	}
+	if a.chart.ToggleCarry() {
+		a.setStatus("carried cloud, per criterion (criteria pane: ↑/↓ marks one's events)", false)
+	} else {
+		a.setStatus("outflow: r_crit along the wind", false)
+	}
+	return a.requestChart()
+}
+
 // syncKeys words the keys whose meaning depends on the state: x exports
-// the plan view as text, O clears loaded outcomes.
+// the plan view as text, O clears loaded outcomes, c goes back from the
+// carried cloud.
 func (a *App) syncKeys() {
-	help := "export chart SVG/PNG"
+	help := "carried cloud (7)"
+	if a.outflowShown() && a.chart.Carried() {
+		help = "r_crit along r (7)"
+	}
+	a.keys.Carry.SetHelp(a.keys.Carry.Help().Key, a.styles.T(help))
+	help = "export chart SVG/PNG"
 	if a.chart.IsText() {
 		help = "export plan text"
 	}

@@ -147,6 +147,7 @@ func (h helpOverlay) lines() []string {
 		"* unverified constant · ! outside calibrated range · ⚠ outside the cooling table",
 		"Verdicts: ✓ survives · ◐ transformed (to warm gas) · ✗ destroyed · ? depends on an unverified α (r_cl inside r_crit's band).",
 		"Charts: a light band around a curve is r_crit if α is off by its uncertainty factor; O places simulation runs (✓ ◐ ✗) on charts 1 and 4.",
+		"Outflow (7): a Chevalier & Clegg wind sets χ, Mach and P/k_B at each radius; the panes show the cloud at the launch radius; c the carried cloud.",
 		"? or esc close"}
 	out = append(out, "")
 	for i, n := range notes {

@@ -18,6 +18,9 @@ type input struct {
 	optional bool            // zero in model.Params means the default (p.WithDefaults)
 	log      bool            // steps multiply (fine and coarse in dex) instead of add
 	fine     float64         // one step: dex when log, else an absolute amount in display units
+	wind     bool            // an input of the outflow view (windInputs), not of model.Params
+	rates    bool            // a wind input shown when the injection is given as Ė and Ṁ (SFR, α and β otherwise)
+	byWind   bool            // set by the wind in the outflow view: shown dimmed there, not stepped
 	choices  []choice        // an enumeration: cycled by the step keys, typed by any of its names
 	getEnum  func(p *model.Params) int
 	setEnum  func(p *model.Params, i int)
@@ -100,11 +103,11 @@ func inputs() []input {
 		mixChoices = append(mixChoices, choice{m.Name, []string{m.Name}})
 	}
 	return []input{
-		{label: "χ", field: model.FieldChi, dim: model.Dimensionless, log: true, fine: 0.05,
+		{label: "χ", field: model.FieldChi, dim: model.Dimensionless, log: true, fine: 0.05, byWind: true,
 			about: "density contrast ρ_cl/ρ_hot; T_hot = χ T_cl μ_hot/μ_cl"},
-		{label: "Mach", field: model.FieldMach, dim: model.Dimensionless, fine: 0.05,
+		{label: "Mach", field: model.FieldMach, dim: model.Dimensionless, fine: 0.05, byWind: true,
 			about: "wind Mach number against the adiabatic sound speed of the hot gas"},
-		{label: "P/k_B", field: model.FieldPressure, dim: model.DimPressure, log: true, fine: 0.05,
+		{label: "P/k_B", field: model.FieldPressure, dim: model.DimPressure, log: true, fine: 0.05, byWind: true,
 			about: "thermal pressure over Boltzmann's constant, the same in cloud and wind"},
 		{label: "Z", field: model.FieldMetallicity, dim: model.DimMetallicity, log: true, fine: 0.05,
 			about: "metallicity in solar units; scales the metal part of the cooling function"},
@@ -112,13 +115,13 @@ func inputs() []input {
 			about: "cloud temperature (the cooling floor follows it unless T_floor is set)"},
 		{label: "r_cl", field: model.FieldRCloud, dim: model.DimLength, log: true, fine: 0.05,
 			about: "cloud radius"},
-		{label: "M_turb", field: model.FieldMachTurb, dim: model.Dimensionless, fine: 0.05,
+		{label: "M_turb", field: model.FieldMachTurb, dim: model.Dimensionless, fine: 0.05, byWind: true,
 			about: "turbulent Mach number of the wind (0 for none); the turbulent criteria use it in t̃_cc = t_cc/(1 + (M_turb/(f_mix M))²)^1/2"},
 		{label: "γ", field: model.FieldGamma, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
 			about: "adiabatic index (default 5/3)"},
-		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
+		{label: "μ_cl", field: model.FieldMuCold, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01, byWind: true,
 			about: "mean molecular weight of the cloud (default 0.6, as most simulations use for both phases)"},
-		{label: "μ_hot", field: model.FieldMuHot, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01,
+		{label: "μ_hot", field: model.FieldMuHot, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.01, byWind: true,
 			about: "mean molecular weight of the wind (default 0.6)"},
 		{label: "X", field: model.FieldHydrogenFraction, dim: model.Dimensionless, advanced: true, optional: true, fine: 0.005,
 			about: "hydrogen mass fraction, for n_H = X ρ/m_H (default: that of the mixture)"},
@@ -161,6 +164,21 @@ func inputs() []input {
 			about:   "the growth model: the cold side's cooling time in v_mix, t_grow, l_cool,cl and the evolution; minmix by default (" + model.MixCoolingReason + ")"},
 		{label: "cooling", field: fieldCooling, advanced: true,
 			about: "cooling function: step through " + coolingNames() + ", or type one, const:Λ, powerlaw:L0,T0,S or a table path"},
+		// The outflow view's own inputs (windInputs), in pane order there.
+		{label: "SFR", field: model.FieldSFR, dim: model.DimMassRate, log: true, fine: 0.05, wind: true,
+			about: "star-formation rate feeding the wind: Ė = α · 3×10⁴¹ erg s⁻¹ per M☉ yr⁻¹ and Ṁ = β · SFR (" + model.WindLoadingStatus + ")"},
+		{label: "α", field: model.FieldEnergyLoading, dim: model.Dimensionless, log: true, fine: 0.05, wind: true,
+			about: "energy loading: the fraction of the supernova energy that drives the wind, Ė = α · 3×10⁴¹ erg s⁻¹ per M☉ yr⁻¹ (0 < α ≤ 10)"},
+		{label: "β", field: model.FieldMassLoading, dim: model.Dimensionless, log: true, fine: 0.05, wind: true,
+			about: "mass loading: Ṁ = β · SFR (0 < β ≤ 100)"},
+		{label: "Edot", field: model.FieldEnergyRate, dim: model.DimPower, log: true, fine: 0.05, wind: true, rates: true,
+			about: "energy injection rate Ė of the wind (a scenario that gives the rates instead of the star-formation rate)"},
+		{label: "Mdot", field: model.FieldMassRate, dim: model.DimMassRate, log: true, fine: 0.05, wind: true, rates: true,
+			about: "mass injection rate Ṁ of the wind"},
+		{label: "R", field: model.FieldWindRadius, dim: model.DimLength, log: true, fine: 0.05, wind: true,
+			about: "injection radius: energy and mass are injected uniformly inside R; the wind is sonic at R (Chevalier & Clegg 1985)"},
+		{label: "launch", field: fieldLaunch, dim: model.Dimensionless, log: true, fine: 0.05, wind: true,
+			about: "launch radius r_0 of the carried cloud, in units of R; the cloud starts there at rest, and the derived values and the criteria pane's verdicts are those of the cloud there"},
 	}
 }
 

@@ -27,6 +27,8 @@ type inputsPane struct {
 	focused       bool
 
 	params      model.Params // the values shown, as given (zero optional fields are defaults)
+	wind        windInputs   // the outflow view's own inputs
+	outflow     bool         // the outflow view is shown: its inputs first, those the wind sets dimmed
 	coolingSpec string       // the cooling spec in use, for typing and stepping
 	coolingName string       // its display name
 
@@ -48,10 +50,32 @@ func (ip *inputsPane) SetSize(w, h int) { ip.width, ip.height = w, h }
 // SetFocused says whether the pane has the focus (shows the selection).
 func (ip *inputsPane) SetFocused(f bool) { ip.focused = f }
 
-// SetValues sets the inputs shown and the cooling function in use.
-func (ip *inputsPane) SetValues(p model.Params, coolingSpec, coolingName string) {
-	ip.params, ip.coolingSpec, ip.coolingName = p, coolingSpec, coolingName
+// SetValues sets the inputs shown, the wind's and the cooling function
+// in use.
+func (ip *inputsPane) SetValues(p model.Params, w windInputs, coolingSpec, coolingName string) {
+	ip.params, ip.wind, ip.coolingSpec, ip.coolingName = p, w, coolingSpec, coolingName
 }
+
+// SetOutflow switches between the inputs of the outflow view and the
+// others, keeping the selected input when it is in both lists.
+func (ip *inputsPane) SetOutflow(on bool) {
+	if on == ip.outflow {
+		return
+	}
+	cur := ip.Current()
+	ip.outflow, ip.selected, ip.scroll = on, 0, scroller{}
+	if on && cur.byWind {
+		return // the first wind input rather than one the wind sets
+	}
+	for i, in := range ip.visible() {
+		if in == cur {
+			ip.selected = i
+		}
+	}
+}
+
+// Outflow reports whether the pane shows the outflow view's inputs.
+func (ip *inputsPane) Outflow() bool { return ip.outflow }
 
 // Update handles the pane's own keys: selection, pages, more inputs, and
 // the text field (open, type, esc to close).
@@ -94,11 +118,14 @@ func (ip inputsPane) lines() []string {
 	var body []string
 	for i, in := range ip.visible() {
 		label := st.fit(st.T(in.label), 9)
-		val := st.T(valueText(in, &ip.params, ip.coolingName, st))
+		val := st.Value.Render(st.T(ip.ValueText(in)))
+		if ip.outflow && in.byWind {
+			val = st.Dim.Render(st.T(ip.ValueText(in)))
+		}
 		if ip.focused && i == ip.selected {
-			body = append(body, st.Selected.Render(st.cursor()+label)+st.Value.Render(val))
+			body = append(body, st.Selected.Render(st.cursor()+label)+val)
 		} else {
-			body = append(body, st.Label.Render("  "+label)+st.Value.Render(val))
+			body = append(body, st.Label.Render("  "+label)+val)
 		}
 		if ip.editing && i == ip.selected {
 			body = append(body, "  "+st.T(ip.edit.View()))
@@ -116,14 +143,36 @@ func (ip inputsPane) selectedLine() int {
 	return ip.selected
 }
 
-// View draws the pane in its border.
+// ValueText formats the value of in as the pane shows it: a wind input's
+// from the wind inputs, an input the wind sets as such in the outflow
+// view, any other from the model's inputs (valueText).
+func (ip *inputsPane) ValueText(in *input) string {
+	switch {
+	case in.wind:
+		return windText(in, &ip.wind, ip.styles)
+	case ip.outflow && in.byWind:
+		return byWindText(in, &ip.params, ip.styles)
+	}
+	return valueText(in, &ip.params, ip.coolingName, ip.styles)
+}
+
+// View draws the pane in its border; in the outflow view the title says
+// so and the bottom border that χ, Mach and P/k_B come from the wind.
 func (ip inputsPane) View() string {
 	body := ip.scroll.window(ip.lines(), ip.height-2, ip.selectedLine(), scrollHint(ip.focused), ip.styles)
 	more := "a: more inputs"
 	if ip.advanced {
 		more = "a: fewer inputs"
 	}
-	return strings.Join(boxWithFooter("Inputs", more, body, ip.width, ip.height, ip.focused, ip.styles), "\n")
+	title := "Inputs"
+	if ip.outflow {
+		title = "Inputs: wind and cloud"
+		more = "χ, Mach, P/k_B: set by the wind"
+		if visibleLen(ip.styles.T(more)) > ip.width-6 {
+			more = "χ, M, P: by the wind"
+		}
+	}
+	return strings.Join(boxWithFooter(title, more, body, ip.width, ip.height, ip.focused, ip.styles), "\n")
 }
 
 // Rows returns how many lines the pane holds now.
@@ -132,13 +181,34 @@ func (ip *inputsPane) Rows() int { return len(ip.lines()) }
 // Editing reports whether a value is being typed.
 func (ip *inputsPane) Editing() bool { return ip.editing }
 
-// visible returns the inputs shown now.
+// visible returns the inputs shown now, in order: the model's inputs
+// (the advanced ones too after a); in the outflow view the wind's inputs
+// (SFR, α, β or Ė, Ṁ; R; the launch radius), then the cloud's r_cl, T_cl
+// and Z (shared with the other views), then those the wind sets, then the
+// advanced ones.
 func (ip *inputsPane) visible() []*input {
 	var out []*input
-	for i := range ip.all {
-		if !ip.all[i].advanced || ip.advanced {
-			out = append(out, &ip.all[i])
+	add := func(keep func(in *input) bool) {
+		for i := range ip.all {
+			if in := &ip.all[i]; keep(in) {
+				out = append(out, in)
+			}
 		}
+	}
+	if !ip.outflow {
+		add(func(in *input) bool { return !in.wind && (!in.advanced || ip.advanced) })
+		return out
+	}
+	rates := ip.wind.rates()
+	add(func(in *input) bool {
+		return in.wind && (in.rates == rates || in.field == model.FieldWindRadius || in.field == fieldLaunch)
+	})
+	for _, f := range []string{model.FieldRCloud, model.FieldTCloud, model.FieldMetallicity} {
+		add(func(in *input) bool { return in.field == f })
+	}
+	add(func(in *input) bool { return !in.wind && !in.advanced && in.byWind })
+	if ip.advanced {
+		add(func(in *input) bool { return in.advanced })
 	}
 	return out
 }
@@ -223,6 +293,10 @@ func (ip *inputsPane) EditText(in *input) string {
 		return in.choices[in.getEnum(&ip.params)].names[0]
 	case in.field == model.FieldTFloor && ip.params.TFloor == model.NoFloor:
 		return "none"
+	case in.field == fieldLaunch:
+		return strings.TrimSpace(quantity.FormatSig(ip.wind.launch, 6))
+	case in.wind:
+		return strings.TrimSpace(quantity.Number(in.dim, ip.wind.value(in.field)))
 	}
 	return strings.TrimSpace(quantity.Number(in.dim, in.used(&ip.params)))
 }
@@ -254,6 +328,8 @@ func (ip *inputsPane) EditHint() string {
 		if in.field == model.FieldTFloor {
 			what = "type a temperature, 0 or none for no floor, or default"
 		}
+	case in.field == fieldLaunch:
+		what = "type a multiple of R (1, 0.5 R) or a radius (300 pc)"
 	}
 	if ip.edit.Selected() {
 		if what == "type a value" {

@@ -27,9 +27,11 @@ type KeyMap struct {
 	View1, View2      key.Binding
 	View3, View4      key.Binding
 	View5, View6      key.Binding
+	View7             key.Binding
 	NextView          key.Binding
 	Family            key.Binding // threshold chart: a family over Mach numbers
 	MapAxis           key.Binding // regime map: χ × r_cl or χ × Mach
+	Carry             key.Binding // outflow view: r_crit along the wind or the carried cloud
 	Details           key.Binding
 	Pin, Unpin        key.Binding // compare mode
 	Scenarios         key.Binding
@@ -76,9 +78,11 @@ func DefaultKeyMap() KeyMap {
 		View4:       b("4", "regime map", "4"),
 		View5:       b("5", "evolution", "5"),
 		View6:       b("6", "simulation plan", "6"),
+		View7:       b("7", "outflow along r", "7"),
 		NextView:    b("v", "next chart", "v"),
 		Family:      b("f", "family over Mach", "f"),
 		MapAxis:     b("m", "switch map axes", "m"),
+		Carry:       b("c", "carried cloud (7)", "c"),
 		Details:     b("d", "details", "d"),
 		Pin:         b("p", "pin as A (compare)", "p"),
 		Unpin:       b("P", "unpin A", "P"),
@@ -104,7 +108,7 @@ func DefaultKeyMap() KeyMap {
 func (k *KeyMap) all() []*key.Binding {
 	return []*key.Binding{&k.Up, &k.Down, &k.PageUp, &k.PageDown, &k.Top, &k.Bottom, &k.Inc, &k.Dec, &k.IncBig,
 		&k.DecBig, &k.Edit, &k.Undo, &k.Reset, &k.ResetAll, &k.Advanced, &k.Focus, &k.FocusBack, &k.Zoom, &k.View1,
-		&k.View2, &k.View3, &k.View4, &k.View5, &k.View6, &k.NextView, &k.Family, &k.MapAxis, &k.Details, &k.Pin,
+		&k.View2, &k.View3, &k.View4, &k.View5, &k.View6, &k.View7, &k.NextView, &k.Family, &k.MapAxis, &k.Carry, &k.Details, &k.Pin,
 		&k.Unpin, &k.Scenarios, &k.Outcomes, &k.Save, &k.ExportChart, &k.ExportState, &k.Palette, &k.Help, &k.Quit, &k.ForceQuit,
 		&k.Accept, &k.Cancel, &k.Yes, &k.No, &k.PromptUp, &k.PromDwn}
 }
@@ -147,7 +151,7 @@ func (k KeyMap) groups() []helpGroup {
 	return []helpGroup{
 		{"Inputs", []key.Binding{k.Up, k.Down, k.Inc, k.Dec, k.IncBig, k.DecBig, k.Edit, k.Undo, k.Reset, k.ResetAll, k.Advanced}},
 		{"Panes", []key.Binding{k.Focus, k.FocusBack, k.PageUp, k.PageDown, k.Top, k.Bottom, k.Details, k.Help, k.Quit}},
-		{"Charts", []key.Binding{k.View1, k.View2, k.View3, k.View4, k.View5, k.View6, k.NextView, k.Zoom, k.Family, k.MapAxis}},
+		{"Charts", []key.Binding{k.View1, k.View2, k.View3, k.View4, k.View5, k.View6, k.View7, k.NextView, k.Zoom, k.Family, k.MapAxis, k.Carry}},
 		{"Compare and files", []key.Binding{k.Pin, k.Unpin, k.Scenarios, k.Outcomes, k.Save, k.ExportChart, k.ExportState, k.Palette}},
 	}
 }

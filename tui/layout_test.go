@@ -16,7 +16,7 @@ func TestLegendsComplete80x24(t *testing.T) {
 		if zoom {
 			press(a, "z")
 		}
-		for _, v := range []string{"1", "2", "3", "5"} {
+		for _, v := range []string{"1", "2", "3", "5", "7", "c"} { // c: the outflow view's carried cloud
 			press(a, v)
 			c := a.chart.Shown()
 			s := screen(a)
@@ -29,6 +29,12 @@ func TestLegendsComplete80x24(t *testing.T) {
 						t.Errorf("view %s (zoom %v) at 80×24: the legend lacks %q\n%s", v, zoom, name, s)
 					}
 				}
+				if len(lc.Zones) > 0 && !strings.Contains(s, "━ "+lc.ZoneName) {
+					t.Errorf("view %s (zoom %v) at 80×24: the legend lacks the zones' entry %q\n%s", v, zoom, lc.ZoneName, s)
+				}
+			}
+			if v == "7" && (c.line == nil || len(c.line.Zones) == 0) {
+				t.Errorf("the outflow view (zoom %v) marks no zone where the criteria disagree", zoom)
 			}
 		}
 	}

@@ -12,12 +12,14 @@ import (
 
 // chartMsg carries a computed chart for request gen.
 type chartMsg struct {
-	gen    int
-	view   viewKind
-	line   *chartspec.LineChart
-	line2  *chartspec.LineChart // the evolution view's second chart (v/v_w)
-	regime *chartspec.RegimeMap
-	text   []string // the plan view
+	gen     int
+	view    viewKind
+	carry   bool // the outflow view's carried cloud
+	line    *chartspec.LineChart
+	line2   *chartspec.LineChart // the second panel: v/v_w of the evolution view, v of the carried cloud
+	regime  *chartspec.RegimeMap
+	text    []string           // the plan view
+	outflow *chartspec.Outflow // the outflow view's data; nil when its wind is not valid
 }
 
 // statusMsg sets the status line.

@@ -75,6 +75,7 @@ type readout struct {
 	res      *model.Result // the current evaluation
 	pin      *model.Result // the pinned scenario A's, or nil
 	cf       model.CoolingFunction
+	launch   string // the state of res in the outflow view ("at launch, 1 R"), "" for the inputs'
 }
 
 func newReadout(styles *Styles, keys *KeyMap) readout {
@@ -115,7 +116,11 @@ func (r *readout) Selected() model.Quantity { return r.rows[r.selected] }
 
 // View draws the pane in its border.
 func (r readout) View() string {
-	return strings.Join(box("Derived", r.body(r.width-2, r.height-2), r.width, r.height, r.focused, r.styles), "\n")
+	title := "Derived"
+	if r.launch != "" {
+		title += " " + r.launch
+	}
+	return strings.Join(box(title, r.body(r.width-2, r.height-2), r.width, r.height, r.focused, r.styles), "\n")
 }
 
 // body renders the rows for a body of w×h cells, scrolled.

@@ -19,6 +19,7 @@ type snapshot struct {
 	params  model.Params
 	cooling *cooling.Source
 	cf      model.CoolingFunction
+	wind    windInputs // the outflow view's own inputs
 }
 
 // pinned is scenario A of compare mode.
@@ -37,9 +38,12 @@ type status struct {
 const maxHistory = 200
 
 // change applies a new snapshot if it is valid: the metallicity may need
-// a new cooling curve, and everything is re-evaluated. An invalid one is
-// refused with the reason in the status line and the last good state
-// stays.
+// a new cooling curve, and everything is re-evaluated, the wind of the
+// outflow view too. An invalid one is refused with the reason in the
+// status line and the last good state stays; so is one whose wind is not
+// valid while the outflow view is shown or when a wind input changed (in
+// the other views the wind's validity does not hold the inputs back: the
+// outflow view then says why it cannot be drawn).
 func (a *App) change(next snapshot, note string) tea.Cmd {
 	if next.cooling != a.cur.cooling || next.params.Metallicity != a.cur.params.Metallicity || next.cf == nil {
 		cf, err := next.cooling.Function(next.params.Metallicity)
@@ -54,12 +58,17 @@ func (a *App) change(next snapshot, note string) tea.Cmd {
 		a.setStatus(a.in.FieldMessage(err), true)
 		return nil
 	}
+	we := evalWind(next, a.cfg.Criteria)
+	if !we.ok() && (a.outflowShown() || next.wind != a.cur.wind) {
+		a.setStatus(a.windMessage(we.err), true)
+		return nil
+	}
 	a.history = append(a.history, a.cur)
 	if len(a.history) > maxHistory {
 		a.history = a.history[1:]
 	}
 	rescore := next.cooling != a.cur.cooling
-	a.cur, a.res = next, res
+	a.cur, a.res, a.wind = next, res, we
 	a.setStatus(note, false)
 	return a.afterChange(rescore)
 }
@@ -88,7 +97,7 @@ func (a *App) undo() tea.Cmd {
 		return nil
 	}
 	rescore := prev.cooling != a.cur.cooling
-	a.cur, a.res = prev, res
+	a.cur, a.res, a.wind = prev, res, evalWind(prev, a.cfg.Criteria)
 	a.setStatus("undone", false)
 	return a.afterChange(rescore)
 }
@@ -111,10 +120,14 @@ func (a *App) applyScenario(m scenarioMsg) tea.Cmd {
 		a.setStatus(oneLine(m.err.Error())+" — the current state is kept", true)
 		return nil
 	}
-	next := snapshot{params: m.sc.Params, cooling: m.src}
+	next := snapshot{params: m.sc.Params, cooling: m.src, wind: windFrom(m.sc.Outflow)}
 	before := a.scenario
 	a.scenario = m.sc.Name
-	cmd := a.change(next, "loaded "+scenarioLabel(m.sc))
+	note := "loaded " + scenarioLabel(m.sc)
+	if m.sc.Outflow != nil && !a.outflowShown() {
+		note += " (with an outflow: 7 shows it)"
+	}
+	cmd := a.change(next, note)
 	if a.status.isErr {
 		a.scenario = before
 	}
@@ -130,13 +143,20 @@ func scenarioLabel(sc scenario.Scenario) string {
 	return name
 }
 
-// currentScenario describes the current state as a scenario for saving.
+// currentScenario describes the current state as a scenario for saving,
+// with the [outflow] table when the wind's inputs came from a scenario or
+// were changed here (the launch radius is not part of it).
 func (a *App) currentScenario() scenario.Scenario {
 	name := a.scenario
 	if name == "" {
 		name = "saved from the explorer"
 	}
-	return scenario.Scenario{Name: name, Params: a.cur.params, Cooling: a.cur.cooling.Spec, Table: a.cur.cooling.Table}
+	sc := scenario.Scenario{Name: name, Params: a.cur.params, Cooling: a.cur.cooling.Spec, Table: a.cur.cooling.Table}
+	if a.cur.wind.given {
+		inj := a.cur.wind.inj
+		sc.Outflow = &inj
+	}
+	return sc
 }
 
 func (a *App) setStatus(text string, isErr bool) {

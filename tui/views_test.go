@@ -50,7 +50,23 @@ func viewCases() []viewCase {
 		{"cold", coldKeys()},
 		{"cold_regime", append(coldKeys(), "4")},
 		{"cold_details", append(coldKeys(), "tab", "tab", "down", "down", "down", "down", "d")},
+		{"outflow", []string{"7"}},
+		{"outflow_carried", []string{"7", "c"}},
+		{"outflow_details", []string{"7", "shift+tab", "d"}},
+		{"outflow_input_details", append(append([]string{"7"}, down(8)...), "d")},
+		{"outflow_demo", append(demoKeys(5), "7")},
+		{"outflow_demo_carried", append(demoKeys(5), "7", "c")},
+		{"zoom_outflow", []string{"7", "z"}},
 	}
+}
+
+// demoKeys open demo scenario n (1-based) from the scenario menu.
+func demoKeys(n int) []string {
+	keys := []string{"o"}
+	for range n - 1 {
+		keys = append(keys, "down")
+	}
+	return append(keys, "enter")
 }
 
 // coldKeys type a cold cloud: χ = 3000, P/k_B = 10⁴ K cm⁻³, T_cl = 800 K,
@@ -71,7 +87,7 @@ func TestGoldenViews(t *testing.T) {
 			press(a, vc.keys...)
 			golden.Check(t, "TestGoldenViews", sizeName(vc.name, w, h), screen(a))
 		}
-		for _, name := range []string{"threshold", "compare", "help", "plan", "outcomes", "cold_regime"} {
+		for _, name := range []string{"threshold", "compare", "help", "plan", "outcomes", "cold_regime", "outflow", "outflow_carried", "outflow_demo"} {
 			a := newTestAppWith(t, w, h, func(c *Config) { c.ASCII = true })
 			for _, vc := range viewCases() {
 				if vc.name == name {

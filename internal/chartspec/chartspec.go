@@ -75,12 +75,20 @@ type RunMark struct {
 	Label   string // the run's label, for people
 }
 
+// A Zone is a stretch [Lo, Hi] of the x axis to mark (axis units), e.g.
+// radii where the criteria disagree.
+type Zone struct{ Lo, Hi float64 }
+
 // A LineChart is a set of curves on two axes.
 type LineChart struct {
 	Title  string
 	X, Y   Axis
 	Series []Series
 	Bands  []Band // uncertainty bands, drawn under the series
+	// Zones are stretches of the x axis marked on the axis and shaded
+	// under the curves, all named by ZoneName in the legend.
+	Zones    []Zone
+	ZoneName string
 	// BandFactor is the uncertainty factor of the bands as people read it:
 	// "×/÷ 2", or "×/÷ 2–4" when they differ; "" without bands. Each band is
 	// r_crit when the unverified α is off by that factor either way.

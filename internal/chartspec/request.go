@@ -27,6 +27,12 @@ type Request struct {
 
 	Runs     []model.SimRun // simulation outcomes to place on the threshold chart and the regime map; nil for none
 	RunsName string         // where they come from, for the legends
+
+	// The outflow view (NewOutflow): the wind, with T_cl, Z and the
+	// conventions of Params, and the cloud carried through it.
+	Wind   *model.WindParams // the outflow; nil for none
+	Launch model.Length      // launch radius r_0 of the carried cloud; 0 means the injection radius R
+	Carry  bool              // NewOutflow carries a cloud for every criterion (CarriedCharts)
 }
 
 // Caption describes the scenario of r in one line, for the caption of an

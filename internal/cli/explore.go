@@ -75,7 +75,7 @@ func runExplore(e *env) error {
 		}
 		sc = scenario.Scenario{Params: p, Cooling: sf.cooling, Table: sf.table}
 		if sf.base != nil {
-			sc.Name, sc.Description = sf.base.Name, sf.base.Description
+			sc.Name, sc.Description, sc.Outflow = sf.base.Name, sf.base.Description, sf.base.Outflow
 		}
 	default:
 		if *demo < 1 || *demo > len(demos) {
@@ -93,7 +93,7 @@ func runExplore(e *env) error {
 	if cfg.Cooling, err = resolveCooling(e, "--cooling", spec, sc.Table); err != nil {
 		return err
 	}
-	cfg.Params, cfg.Scenario = sc.Params, sc.Name
+	cfg.Params, cfg.Scenario, cfg.Outflow = sc.Params, sc.Name, sc.Outflow
 	if !isTerminal(e.stdout) || !isTerminalReader(e.stdin) {
 		return fmt.Errorf("the explorer needs a terminal; for scripts use 'cloudwind eval' or 'cloudwind sweep'")
 	}

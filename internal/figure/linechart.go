@@ -41,14 +41,15 @@ func drawLineCharts(h *richText, dc draw.Canvas, charts []*chartspec.LineChart) 
 	return nil
 }
 
-// chartLegend returns the legend entries of c: its series, its bands and
-// its runs.
+// chartLegend returns the legend entries of c: its series, its bands,
+// its zones and its runs.
 func chartLegend(c *chartspec.LineChart) []legendItem {
 	var legend []legendItem
 	for _, s := range c.Series {
 		legend = append(legend, legendItem{s.Name, &plotter.Line{LineStyle: lineStyle(s.Index, s.Dashed)}})
 	}
 	legend = append(legend, bandLegend(c)...)
+	legend = append(legend, zoneLegend(c)...)
 	return append(legend, runLegend(c.Runs, c.RunsName)...)
 }
 
@@ -100,6 +101,9 @@ func drawLinePlot(h *richText, dc draw.Canvas, c *chartspec.LineChart, titleSize
 	p := newPlot(h, c.Title, titleSize)
 	xlo, xhi := axisRange(c.X, xs)
 	ylo, yhi := axisRange(c.Y, ys)
+	if len(c.Zones) > 0 {
+		p.Add(&zonePlotter{zones: c.Zones, xlog: c.X.Log})
+	}
 	if len(c.Bands) > 0 {
 		p.Add(&bandPlotter{bands: c.Bands, xlog: c.X.Log, ylog: c.Y.Log, ylo: ylo, yhi: yhi})
 	}

@@ -195,3 +195,70 @@ func runLegend(runs []chartspec.RunMark, name string) []legendItem {
 	}
 	return items
 }
+
+// Zones (chartspec.LineChart.Zones) are stretches of the x axis, e.g.
+// where the criteria disagree: a light grey fill across the plot's height
+// with a hatched strip along its bottom edge, so that a grey-scale print
+// keeps them, drawn under everything else.
+
+// zoneGrey is the fill of zones (no source: light enough for curves and
+// bands to read through it).
+var zoneGrey = color.NRGBA{0x88, 0x88, 0x88, 0x30}
+
+// zonePlotter draws the zones of a line chart.
+type zonePlotter struct {
+	zones []chartspec.Zone
+	xlog  bool
+}
+
+// Plot fills each zone, clipped to the plot, and hatches its foot.
+func (zp *zonePlotter) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, _ := p.Transforms(&c)
+	foot := vg.Points(4)
+	hatch := draw.LineStyle{Color: color.Gray{0x55}, Width: vg.Points(0.6)}
+	for _, z := range zp.zones {
+		lo, okl := dataValue(z.Lo, zp.xlog)
+		hi, okh := dataValue(z.Hi, zp.xlog)
+		if !okl || !okh {
+			continue
+		}
+		x0, x1 := max(trX(lo), c.Min.X), min(trX(hi), c.Max.X)
+		if !(x0 < x1) {
+			continue
+		}
+		r := vg.Rectangle{Min: vg.Point{X: x0, Y: c.Min.Y}, Max: vg.Point{X: x1, Y: c.Max.Y}}
+		c.SetColor(zoneGrey)
+		c.Fill(r.Path())
+		for x := x0; x < x1; x += foot {
+			c.StrokeLine2(hatch, x, c.Min.Y, min(x+foot, x1), c.Min.Y+foot)
+		}
+	}
+}
+
+// zoneThumb is the legend thumbnail of the zones: the grey fill with its
+// hatched foot.
+type zoneThumb struct{}
+
+// Thumbnail draws the thumbnail in c.
+func (zoneThumb) Thumbnail(c *draw.Canvas) {
+	r := c.Rectangle
+	c.SetColor(zoneGrey)
+	c.Fill(r.Path())
+	hatch := draw.LineStyle{Color: color.Gray{0x55}, Width: vg.Points(0.6)}
+	h := (r.Max.Y - r.Min.Y) / 3
+	for x := r.Min.X; x < r.Max.X; x += h {
+		c.StrokeLine2(hatch, x, r.Min.Y, min(x+h, r.Max.X), r.Min.Y+h)
+	}
+}
+
+// zoneLegend returns the legend entry of the zones, if any.
+func zoneLegend(c *chartspec.LineChart) []legendItem {
+	if len(c.Zones) == 0 {
+		return nil
+	}
+	name := c.ZoneName
+	if name == "" {
+		name = "marked zone"
+	}
+	return []legendItem{{"shaded: " + name, zoneThumb{}}}
+}

@@ -115,3 +115,39 @@ func TestRegimeFigureClasses(t *testing.T) {
 		t.Errorf("regime figure cells %q, want six with the first \"t\"", cells)
 	}
 }
+
+// TestFigureZones: zones are a translucent grey fill named in the legend,
+// and a chart without zones has neither.
+func TestFigureZones(t *testing.T) {
+	dir := t.TempDir()
+	with, without := filepath.Join(dir, "with.svg"), filepath.Join(dir, "without.svg")
+	c := overlayChart()
+	c.Bands, c.Runs = nil, nil
+	c.Zones, c.ZoneName = []chartspec.Zone{{Lo: 1.5, Hi: 2.5}, {Lo: 3.8, Hi: 5}}, "criteria disagree" // the second reaches beyond the axis: clipped
+	if err := WriteLineChart(c, with); err != nil {
+		t.Fatal(err)
+	}
+	c.Zones = nil
+	if err := WriteLineChart(c, without); err != nil {
+		t.Fatal(err)
+	}
+	if got := strings.Join(svgTexts(t, with), ""); !strings.Contains(got, "shaded: criteria disagree") {
+		t.Errorf("figure with zones lacks their legend entry: %q", got)
+	}
+	if got := strings.Join(svgTexts(t, without), ""); strings.Contains(got, "criteria disagree") {
+		t.Errorf("figure without zones names them: %q", got)
+	}
+	raw, err := os.ReadFile(with)
+	if err != nil {
+		t.Fatal(err)
+	}
+	plain, err := os.ReadFile(without)
+	if err != nil {
+		t.Fatal(err)
+	}
+	op := "fill-opacity:0.1882" // zoneGrey's alpha 0x30/0xff
+	if n := strings.Count(string(raw), op); n < 3 || strings.Contains(string(plain), op) {
+		t.Errorf("zone fill %q: %d times in the figure with two zones and their legend thumbnail (want ≥ 3), in the one without: %v",
+			op, n, strings.Contains(string(plain), op))
+	}
+}

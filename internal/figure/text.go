@@ -56,8 +56,8 @@ type span struct {
 // m₀) become raised or lowered ASCII; "^" followed by a signed number or
 // fraction ("T^1/2", "10^-2") or by "{…}" starts a superscript; "_"
 // after a one-letter symbol (a letter, Greek or Latin, that does not end a
-// longer word: r_cl, ρ_hot, k_B, t_cool,mix) starts a subscript of letters,
-// digits and inner commas. Any other "^" or "_" is text (my_table.txt).
+// longer word: r_cl, ρ_hot, k_B, t_cool,mix, v_∞) starts a subscript of
+// letters, digits, ∞ and inner commas. Any other "^" or "_" is text (my_table.txt).
 func parseMarkup(s string) []span {
 	rs := []rune(quantity.Sanitize(s))
 	var out []span
@@ -138,7 +138,7 @@ func subscriptEnd(rs []rune, k int) int {
 	for j < len(rs) {
 		r := rs[j]
 		switch {
-		case unicode.IsLetter(r) || isDigit(r):
+		case unicode.IsLetter(r) || isDigit(r) || r == '∞': // v_∞, the terminal speed
 			j++
 		case r == ',' && j > k && j+1 < len(rs) && (unicode.IsLetter(rs[j+1]) || isDigit(rs[j+1])):
 			j++

@@ -35,6 +35,7 @@ func TestParseMarkup(t *testing.T) {
 		{"10^-2", []span{{"10", b}, {"-2", sup}}},
 		{"2×10^{−3}", []span{{"2×10", b}, {"-3", sup}}},
 		{"m/m₀", []span{{"m/m", b}, {"0", sub}}},
+		{"v_∞ = (2Ė/Ṁ)^1/2", []span{{"v", b}, {"∞", sub}, {" = (2Ė/Ṁ)", b}, {"1/2", sup}}},
 		{"T_cl, r_cl", []span{{"T", b}, {"cl", sub}, {", r", b}, {"cl", sub}}},
 		{"my_table.txt", []span{{"my_table.txt", b}}}, // not a one-letter symbol: text
 		{"a^b and x_", []span{{"a^b and x_", b}}},     // nothing to raise or lower
@@ -72,7 +73,16 @@ func chartTexts(t *testing.T) []string {
 		lines = append(lines, chartspec.ThresholdChart(req), chartspec.CoolingChart(req), chartspec.RatioChart(req), m, v)
 		maps = append(maps, chartspec.Regime(req))
 	}
-	texts := []string{"…", "! ", "no data", "Criteria predicting survival"}
+	// The outflow view: r_crit along the fiducial wind and the carried cloud.
+	fw := model.FiducialWind()
+	req.Pin, req.Family, req.MapMach, req.Wind, req.Carry = nil, false, false, &fw, true
+	o, err := chartspec.NewOutflow(req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, v := o.CarriedCharts(req)
+	lines = append(lines, o.ProfileChart(req), m, v)
+	texts := []string{"…", "! ", "no data", "Criteria predicting survival", "shaded: " + o.ProfileChart(req).ZoneName}
 	for _, tk := range append(logTicks(1e-30, 1e30), logTicks(0.2, 0.8)...) {
 		texts = append(texts, tk.Label)
 	}

@@ -40,7 +40,8 @@ const (
 // with its glyph st.Glyph(Index), lighter and sparser when Dashed. Bands
 // (c.Bands) are drawn under the series as a braille stipple or a light
 // fill ('░', ',' in ASCII), and runs (c.Runs) over them as ✓, ◐ and ✗ (S,
-// T, D in ASCII), each with a legend entry (bands.go). Long legends are
+// T, D in ASCII), each with a legend entry (bands.go). Zones (c.Zones)
+// are marked on the x axis and, with braille, shaded (zones.go). Long legends are
 // shortened so that every curve keeps an entry (legend.go).
 // Everything is clipped to the plot area; NaN and ±Inf points break a
 // line. Blocks smaller than 20×6 hold only the note "too small"; a nil
@@ -136,6 +137,7 @@ func (lc *lineRender) layout() bool {
 		items = append(items, legendItem{key: []rune{key}, text: textRunes(c.DashedName, st.ASCII), keyID: lc.dimID, textID: lc.dimID, keep: true})
 	}
 	items = append(items, lc.bandLegend(legendID)...)
+	items = append(items, lc.zoneLegend(legendID)...)
 	lc.runID = s.addStyle(st.Title)
 	items = append(items, runLegend(c.Runs, st.ASCII, lc.runID, legendID)...)
 	lc.items = items
@@ -226,12 +228,13 @@ func (lc *lineRender) seriesStyleID(sr *chartspec.Series) uint8 {
 	return lc.s.addStyle(style)
 }
 
-// draw draws everything on the surface, bottom layer first: axes and
-// texts, marker lines, bands, series, tags, point markers, runs, marker
-// labels.
+// draw draws everything on the surface, bottom layer first: axes (with
+// the zones' marks) and texts, marker lines, bands, series, the zones'
+// shade, tags, point markers, runs, marker labels.
 func (lc *lineRender) draw() {
 	c, st, s, f := lc.c, lc.st, lc.s, lc.f
 	drawAxes(s, f, lc.x0, lc.pw, lc.xt, lc.yt, axesGlyphs(st.ASCII), lc.axisID)
+	lc.drawZoneAxis()
 	ylabel := textRunes(c.Y.Label, lc.st.ASCII)
 	if f.ylabel >= 0 {
 		s.write(0, f.ylabel, clipRunes(ylabel, s.w, st.ASCII), lc.axisID, kindText)
@@ -261,6 +264,7 @@ func (lc *lineRender) draw() {
 		lc.drawn = lc.drawn || len(ends[i]) > 0
 	}
 	lc.resolveOverlaps()
+	lc.shadeZones()
 	if !lc.noLegend {
 		drawLegend(s, lc.legendWithOverlaps(), f.legend, f.nleg, st.ASCII)
 	}
