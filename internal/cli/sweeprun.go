@@ -26,11 +26,12 @@ type chunkResult struct {
 // runSweepTo evaluates the grid in parallel and writes rows to w in grid
 // order. Memory stays flat: at most 2 × workers chunks are in flight.
 func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) error {
-	cols := report.SweepColumns(opt.criteria)
+	cols := opt.cols
 	if err := opt.format.Header(w, cols, sweepMeta(opt)); err != nil {
 		return err
 	}
-	nChunks := (opt.grid.total + sweepChunk - 1) / sweepChunk
+	rows := opt.shard.hi - opt.shard.lo
+	nChunks := (rows + sweepChunk - 1) / sweepChunk
 	type job struct {
 		k   int
 		out chan chunkResult
@@ -75,7 +76,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 
 	var bar *progressBar
 	if opt.progress {
-		bar = &progressBar{w: e.stderr, total: opt.grid.total, start: time.Now()}
+		bar = &progressBar{w: e.stderr, total: rows, start: time.Now()}
 	}
 	var werr error
 	done := 0
@@ -103,7 +104,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 		}
 		done += sweepChunk
 		if bar != nil && werr == nil {
-			bar.update(min(done, opt.grid.total), false)
+			bar.update(min(done, rows), false)
 		}
 	}
 	wg.Wait()
@@ -117,7 +118,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 		return werr
 	}
 	if bar != nil {
-		bar.update(opt.grid.total, true)
+		bar.update(rows, true)
 	}
 	if opt.format.Footer != "" {
 		_, werr = io.WriteString(w, opt.format.Footer)
@@ -152,16 +153,17 @@ func newSweepWorker(opt *sweepOptions, cols []report.Column) *sweepWorker {
 	return sw
 }
 
-// chunk appends the rows of chunk k to buf.
+// chunk appends the rows of chunk k of the shard to buf.
 func (sw *sweepWorker) chunk(buf []byte, k int) ([]byte, error) {
-	lo := k * sweepChunk
-	hi := min(lo+sweepChunk, sw.opt.grid.total)
+	sh := &sw.opt.shard
+	lo := sh.lo + k*sweepChunk
+	hi := min(lo+sweepChunk, sh.hi)
 	for i := lo; i < hi; i++ {
 		if err := sw.evaluate(i); err != nil {
 			return buf, err
 		}
 		sw.format()
-		buf = sw.opt.format.AppendRow(buf, sw.cols, sw.text, i == 0)
+		buf = sw.opt.format.AppendRow(buf, sw.cols, sw.text, i == sh.lo)
 	}
 	return buf, nil
 }
