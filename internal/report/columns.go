@@ -2,7 +2,6 @@ package report
 
 import (
 	"fmt"
-	"math"
 	"path"
 	"strconv"
 	"strings"
@@ -102,30 +101,6 @@ func SweepColumns(cs []model.Criterion) []Column {
 		cols[i].JSONKey = append(strconv.AppendQuote(nil, cols[i].Name), ':')
 	}
 	return cols
-}
-
-// AppendNumber appends v with nine significant figures (enough for a
-// 1e-6 cross-check after the reader's own rounding), "nan" or "inf" as
-// numpy and astropy read them, or JSON null when json is set.
-func AppendNumber(b []byte, v float64, json bool) []byte {
-	switch {
-	case math.IsNaN(v):
-		if json {
-			return append(b, "null"...)
-		}
-		return append(b, "nan"...)
-	case math.IsInf(v, 1):
-		if json {
-			return append(b, "null"...)
-		}
-		return append(b, "inf"...)
-	case math.IsInf(v, -1):
-		if json {
-			return append(b, "null"...)
-		}
-		return append(b, "-inf"...)
-	}
-	return strconv.AppendFloat(b, v, 'g', 9, 64)
 }
 
 // SelectColumns returns the columns of cols named by spec, a comma list of
