@@ -241,7 +241,10 @@ func (s *State) flowCautions() {
 	// Li et al. 2020's "failed pressure confinement" regime (arXiv:1909.02632,
 	// abstract: the ambient hot gas cools too fast to confine the cloud).
 	if s.TCoolHot < s.TCC {
-		s.Cautions = append(s.Cautions, Caution{FieldChi, "the wind cools faster than the cloud is crushed (t_cool,hot = " + num3(float64(s.TCoolHot/s.TCC)) + " t_cc): Li et al. 2020's failed-pressure-confinement regime, outside every criterion's wind-tunnel picture"})
+		// A fixed text (the ratio is the derived t_cool,hot/t_cc): sweeps
+		// rebuild this caution at every radius, and formatting a number
+		// there cost more than the criteria.
+		s.Cautions = append(s.Cautions, Caution{FieldChi, "the wind cools faster than the cloud is crushed (t_cool,hot < t_cc; see t_cool,hot/t_cc): Li et al. 2020's failed-pressure-confinement regime, outside every criterion's wind-tunnel picture"})
 	}
 	if s.Params.RCloud > MaxCloudRadius {
 		s.Cautions = append(s.Cautions, Caution{FieldRCloud, "r_cl = " + num3(float64(s.Params.RCloud/Kiloparsec)) + " kpc is larger than a galaxy's halo (~100 kpc): check the unit"})

@@ -28,7 +28,9 @@ main derived quantities, and for each criterion its ratio, threshold radius
 
 Formats: csv; ecsv (astropy's Enhanced CSV: units, descriptions and the
 run's settings in a YAML header); json (one document with metadata and a
-rows array); jsonl (JSON Lines, one row object per line, for large grids).
+rows array); jsonl (JSON Lines, one row object per line, for large grids);
+parquet (Apache Parquet: typed columns, units and the run's settings in the
+file's key-value metadata; needs -o FILE or a redirect).
 Output goes to stdout, or with -o to FILE, written atomically: an
 interrupted or failed run leaves no partial file.`
 
@@ -46,6 +48,7 @@ type sweepOptions struct {
 	out      string
 	workers  int
 	progress bool
+	parquet  bool // --format parquet: runSweepParquet writes the rows
 
 	cols       []report.Column // the columns written: every one, or --columns
 	columnSpec string          // --columns as given; "" for every column
@@ -92,7 +95,7 @@ func runSweep(e *env) error {
 	f := newFlagSet("sweep", sweepSynopsis, sweepExamples)
 	var sf scenarioFlags
 	sf.register(f)
-	format := f.fs.String("format", "csv", "output format: csv, ecsv, json or jsonl (default: from the -o file's extension, else csv)")
+	format := f.fs.String("format", "csv", "output format: csv, ecsv, json, jsonl or parquet (default: from the -o file's extension, else csv)")
 	out := f.fs.String("o", "", "write to FILE (atomically) instead of stdout")
 	force := f.fs.Bool("force", false, fmt.Sprintf("run grids larger than %d points", maxGridDefault))
 	columns := f.fs.String("columns", "", "write only these columns: a comma list of header names, each may be a glob\n(\"chi,radius_pc,*_radius_crit_pc,*_verdict\"); default every column")
@@ -102,7 +105,7 @@ func runSweep(e *env) error {
 	if err := f.parse(e); err != nil {
 		return err
 	}
-	fmtName, err := formatFor(*format, f.set("format"), *out, "csv", "ecsv", "json", "jsonl")
+	fmtName, err := formatFor(*format, f.set("format"), *out, "csv", "csv", "ecsv", "json", "jsonl", "parquet")
 	if err != nil {
 		return err
 	}
@@ -126,20 +129,29 @@ func runSweep(e *env) error {
 	if err != nil {
 		return err
 	}
+	if opt.parquet && target == nil && isTerminal(e.stdout) {
+		return usagef("--format parquet writes a binary file: give -o FILE.parquet, or redirect standard output")
+	}
 	ctx, stop := interruptContext()
 	defer stop()
-	if target == nil {
-		return runSweepTo(ctx, e, opt, e.stdout)
+	run := runSweepTo
+	if opt.parquet {
+		run = runSweepParquet
 	}
-	return target.Write(func(w io.Writer) error { return runSweepTo(ctx, e, opt, w) })
+	if target == nil {
+		return run(ctx, e, opt, e.stdout)
+	}
+	return target.Write(func(w io.Writer) error { return run(ctx, e, opt, w) })
 }
 
 // sweepSetup parses and validates everything before any output.
 func sweepSetup(e *env, sf *scenarioFlags, f *flagSet, format string, workers int, force bool) (*sweepOptions, error) {
 	opt := &sweepOptions{workers: workers}
 	var ok bool
-	if opt.format, ok = report.LookupFormat(format); !ok {
-		return nil, usagef("--format: want csv, ecsv, json or jsonl (got %q)", sanitizeArg(format))
+	if format == "parquet" {
+		opt.parquet, opt.format = true, report.Format{Name: "parquet"}
+	} else if opt.format, ok = report.LookupFormat(format); !ok {
+		return nil, usagef("--format: want csv, ecsv, json, jsonl or parquet (got %q)", sanitizeArg(format))
 	}
 	// The swept flags, parsed as specs; the single-valued rest as eval does.
 	flagsByName := map[string]scenarioFlag{}
@@ -216,17 +228,13 @@ func gridSize(n int) string {
 	return fmt.Sprintf("%d", n)
 }
 
-// isTerminal reports whether w is a terminal (a character device).
+// isTerminal reports whether w is a terminal.
 func isTerminal(w io.Writer) bool {
 	if c, ok := w.(*checkedWriter); ok {
 		w = c.w
 	}
 	f, ok := w.(*os.File)
-	if !ok {
-		return false
-	}
-	st, err := f.Stat()
-	return err == nil && st.Mode()&os.ModeCharDevice != 0
+	return ok && isTTY(f)
 }
 
 // sweepMeta describes the run for ECSV and JSON headers.

@@ -200,3 +200,25 @@ func BenchmarkSweepFormat(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkSweep1e6Parquet16Columns: the same sweep as
+// BenchmarkSweep1e6CSV16Columns written as Parquet to a discarding
+// writer; the pair gives the ratio of the two formats in one run.
+func BenchmarkSweep1e6Parquet16Columns(b *testing.B) {
+	for _, w := range []struct {
+		name    string
+		workers int
+	}{{"workers=1", 1}, {"workers=2", 2}} {
+		b.Run(w.name, func(b *testing.B) {
+			e, opt := benchSweepArgs(b, w.workers, goldenColumns16, numpyGrid...)
+			opt.parquet = true
+			rows := opt.grid.total
+			for b.Loop() {
+				if err := runSweepParquet(context.Background(), e, opt, io.Discard); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(rows), "ns/row")
+		})
+	}
+}

@@ -137,10 +137,13 @@ func BenchmarkSweepVsNumPy(b *testing.B) {
 		}
 		return d, st.Size()
 	}
-	var tNp, tCw, tStdout time.Duration
-	var bNp, bCw int64
+	pqOut := filepath.Join(dir, "cloudwind.parquet")
+	var tNp, tCw, tStdout, tPq time.Duration
+	var bNp, bCw, bPq int64
 	for b.Loop() {
-		d, n := run(npOut, exec.Command(py, numpyScript, cool, npOut))
+		d, n := run(pqOut, exec.Command(bin, append(sweepArgs, "-o", pqOut)...))
+		tPq, bPq = tPq+d, n
+		d, n = run(npOut, exec.Command(py, numpyScript, cool, npOut))
 		tNp, bNp = tNp+d, n
 		d, n = run(cwOut, exec.Command(bin, append(sweepArgs, "-o", cwOut)...))
 		tCw, bCw = tCw+d, n
@@ -166,6 +169,9 @@ func BenchmarkSweepVsNumPy(b *testing.B) {
 	b.ReportMetric(tCw.Seconds()/float64(b.N), "s_cloudwind")
 	b.ReportMetric(float64(bNp)/1e6, "MB_numpy")
 	b.ReportMetric(float64(bCw)/1e6, "MB_cloudwind")
+	// The same columns as Parquet (-o), against the CSV (-o).
+	b.ReportMetric(tCw.Seconds()/tPq.Seconds(), "x_parquet_vs_csv")
+	b.ReportMetric(float64(bPq)/1e6, "MB_parquet")
 }
 
 // settle flushes the page cache to disk (sync(1)) before a timed run, so

@@ -2,6 +2,9 @@ package cli
 
 import (
 	"encoding/json"
+	"os"
+	"os/exec"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
@@ -187,4 +190,55 @@ func splitHeader(out, format string) (string, string) {
 		return strings.Join(lines[:n], ""), strings.Join(lines[n:], "")
 	}
 	return "", out
+}
+
+// TestSweepParquet: a Parquet sweep read back by hyparquet, an independent
+// JavaScript reader from the npm registry (testdata/parquet), holds the
+// CSV sweep's columns and values (to the CSV's nine figures, 1e-8
+// relative), and the Parquet shards of a grid hold its rows in order.
+func TestSweepParquet(t *testing.T) {
+	node, dir := requireHyparquetCLI(t)
+	tmp := t.TempDir()
+	grid := []string{"sweep", "--chi", "log:10:1e4:13", "--mach", "0.5,2", "--t-cloud", "8e3,1e4", "--radius", "log:0.1:1e3:31"}
+	pq, csv := filepath.Join(tmp, "g.parquet"), filepath.Join(tmp, "g.csv")
+	mustRun(t, append(grid, "-o", pq)...)
+	mustRun(t, append(grid, "-o", csv)...)
+	script := filepath.Join("..", "..", "testdata", "parquet", "read_parquet.mjs")
+	if out, err := exec.Command(node, script, dir, pq, csv, "1e-8").CombinedOutput(); err != nil {
+		t.Fatalf("hyparquet disagrees with the CSV: %v\n%s", err, out)
+	}
+	// Selected columns, and each of 3 shards against its CSV shard.
+	for k := range 3 {
+		args := append(grid, "--columns", "chi,radius_pc,*_verdict,gronke_oh_2018_radius_crit_pc", "--shard", strconv.Itoa(k)+"/3")
+		pqk, csvk := filepath.Join(tmp, "s.parquet"), filepath.Join(tmp, "s.csv")
+		mustRun(t, append(args, "-o", pqk)...)
+		mustRun(t, append(args, "-o", csvk)...)
+		if out, err := exec.Command(node, script, dir, pqk, csvk, "1e-8").CombinedOutput(); err != nil {
+			t.Fatalf("shard %d/3: hyparquet disagrees with the CSV: %v\n%s", k, err, out)
+		}
+	}
+}
+
+// requireHyparquetCLI finds node and the hyparquet package as the report
+// package's test does, skipping (failing under CI=true) without them.
+func requireHyparquetCLI(t *testing.T) (node, dir string) {
+	t.Helper()
+	dir = os.Getenv("CLOUDWIND_HYPARQUET_DIR")
+	if dir == "" {
+		if cache, err := os.UserCacheDir(); err == nil {
+			dir = filepath.Join(cache, "cloudwind", "hyparquet")
+		}
+	}
+	node, err := exec.LookPath("node")
+	if err == nil {
+		_, err = os.Stat(filepath.Join(dir, "src", "node.js"))
+	}
+	if err != nil {
+		msg := "node or the npm package hyparquet is missing (apt-get install -y nodejs; bash testdata/parquet/fetch-hyparquet.sh DIR; CLOUDWIND_HYPARQUET_DIR=DIR/hyparquet)"
+		if os.Getenv("CI") == "true" {
+			t.Fatal(msg)
+		}
+		t.Skip(msg)
+	}
+	return node, dir
 }

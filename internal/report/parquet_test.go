@@ -513,3 +513,15 @@ func TestBatchReset(t *testing.T) {
 		t.Errorf("after Reset: slices of other kinds are not nil")
 	}
 }
+
+// TestParquetGroupRows: wide tables get shorter row groups so that a
+// group's numbers stay near 16 MiB (cloudwind's bound): 2^24/(8·17) = 123361 → 60 × 2048;
+// 2^24/(8·58) = 36157 → 17 × 2048 (arithmetic, no source).
+func TestParquetGroupRows(t *testing.T) {
+	for _, c := range []struct{ ncols, want int }{{1, RowGroupRows}, {16, RowGroupRows}, {17, 122880}, {58, 34816}, {100000, parquetValueChunk}} {
+		got := GroupRows(c.ncols)
+		if got != c.want || got%parquetValueChunk != 0 {
+			t.Errorf("GroupRows(%d) = %d, want %d (a multiple of %d)", c.ncols, got, c.want, parquetValueChunk)
+		}
+	}
+}

@@ -2,7 +2,7 @@
 // an independent pure-JavaScript reader (https://github.com/hyparam/hyparquet),
 // and compares every value with a CSV file of the same rows.
 //
-//	node read_parquet.mjs HYPARQUET_DIR FILE.parquet FILE.csv
+//	node read_parquet.mjs HYPARQUET_DIR FILE.parquet FILE.csv [RTOL]
 //
 // HYPARQUET_DIR is the unpacked npm package (the directory holding its
 // package.json), as fetch-hyparquet.sh leaves it. The CSV has a header line of
@@ -17,14 +17,16 @@
 // strings and booleans exactly, numbers as IEEE doubles, NaN matching nan and
 // ±Infinity matching ±inf, finite numbers exactly or within 1e-15 relative
 // (the caller writes values that have nine significant figures, so the CSV
-// text is the exact double).
+// text is the exact double), or within RTOL relative when given (a sweep's
+// CSV rounds full doubles to nine figures: 1e-8).
 //
 // It prints a summary and "ok", or the first mismatches and exits with 1.
 import { readFile } from 'node:fs/promises'
 import { join } from 'node:path'
 import { pathToFileURL } from 'node:url'
 
-const [dir, parquetPath, csvPath] = process.argv.slice(2)
+const [dir, parquetPath, csvPath, rtolArg] = process.argv.slice(2)
+const rtol = rtolArg === undefined ? 1e-15 : Number(rtolArg)
 if (!csvPath) {
   console.error('usage: node read_parquet.mjs HYPARQUET_DIR FILE.parquet FILE.csv')
   process.exit(2)
@@ -97,7 +99,7 @@ const number = (s) => s === 'nan' ? NaN : s === 'inf' ? Infinity : s === '-inf' 
 const sameNumber = (got, want) => {
   if (Number.isNaN(want)) return Number.isNaN(got)
   if (!Number.isFinite(want)) return got === want
-  return Object.is(got, want) || Math.abs(got - want) <= 1e-15 * Math.abs(want)
+  return Object.is(got, want) || Math.abs(got - want) <= rtol * Math.abs(want)
 }
 for (let i = 0; i < Math.min(rows.length, lines.length); i++) {
   const fields = lines[i].split(',')
