@@ -427,14 +427,17 @@ func (s *State) dynamicalTime(c *Criterion) Time {
 //	r_crit = v_w τ_cool,X / (χ^{1/2} α (χ/100)^β)   for τ_dyn = t_cc,
 //	r_crit = v_w τ_cool,X / (α (χ/100)^β)           for τ_dyn = t_shear.
 func (s *State) Evaluate(c *Criterion) Outcome {
-	return s.evaluate(c, c.Threshold(s.Params.Chi))
+	var o Outcome
+	s.evaluate(&o, c, c.Threshold(s.Params.Chi))
+	return o
 }
 
-// evaluate applies c with its threshold α (χ/100)^β already computed.
-func (s *State) evaluate(c *Criterion, threshold float64) Outcome {
+// evaluate applies c with its threshold α (χ/100)^β already computed and
+// writes the outcome to o (in place: sweeps call it at every point).
+func (s *State) evaluate(o *Outcome, c *Criterion, threshold float64) {
 	q := &s.Params
 	nan := math.NaN()
-	o := Outcome{WarmRatio: nan, WarmThreshold: nan}
+	*o = Outcome{WarmRatio: nan, WarmThreshold: nan}
 	if !c.Range.Chi.Contains(q.Chi) {
 		o.Leaves |= SetChi
 	}
@@ -451,7 +454,7 @@ func (s *State) evaluate(c *Criterion, threshold float64) Outcome {
 		o.Ratio, o.Threshold = math.Inf(1), nan
 		o.RCrit, o.Margin, o.Verdict = Length(math.Inf(1)), 0, Destroyed
 		o.RCritLow, o.RCritHigh = o.RCrit, o.RCrit
-		return o
+		return
 	}
 	tc := float64(s.CoolingTime(c.Cool))
 	td := float64(s.dynamicalTime(c))
@@ -492,7 +495,6 @@ func (s *State) evaluate(c *Criterion, threshold float64) Outcome {
 	case o.Ratio < o.Threshold:
 		o.Verdict = Survives
 	}
-	return o
 }
 
 // coldSideCoolingTime returns the cooling time of the gas that mixes the

@@ -34,31 +34,37 @@ func (r *Result) Evaluate(p Params, cf CoolingFunction, cs []Criterion) error {
 	r.thresholds = r.thresholds[:len(cs)]
 	for i := range cs {
 		r.thresholds[i] = cs[i].Threshold(r.Params.Chi)
-		r.Outcomes[i] = r.State.evaluate(&cs[i], r.thresholds[i])
+		r.State.evaluate(&r.Outcomes[i], &cs[i], r.thresholds[i])
 	}
 	return nil
 }
 
 // Reevaluate recomputes r for another Mach number and cloud radius, keeping
-// every other input: the fast path for sweeps, since of the cooling times
-// only that of the bow-shock gas (CoolShocked) depends on either, and it
-// is recomputed (deriveFlow); the thermal state, the other Λ lookups and
-// the search along the mixing isobar are reused. r must hold a successful Evaluate. It returns
+// every other input: the fast path for sweeps. Of the cooling times only
+// that of the bow-shock gas (CoolShocked) depends on either, and it is
+// recomputed (deriveFlow) when the Mach number changes; the thermal state,
+// the other Λ lookups and the search along the mixing isobar are reused.
+// r must hold a successful Evaluate (or Reevaluate), whose state it relies
+// on. It returns
 // a *FieldError for an invalid mach or rCl and leaves r unchanged then.
 func (r *Result) Reevaluate(mach float64, rCl Length) error {
-	p := r.Params
-	p.Mach, p.RCloud = mach, rCl
 	// The bounds of Validate for these two fields, checked directly; the full
 	// Validate then only runs to word the error.
 	if !(mach > 0 && mach <= MaxMach && rCl >= MinRCloud && rCl <= MaxRCloud) {
+		p := r.Params
+		p.Mach, p.RCloud = mach, rCl
 		if err := p.Validate(); err != nil {
 			return err
 		}
 	}
-	r.Params = p
-	r.State.deriveFlow()
+	r.Params.Mach, r.Params.RCloud = mach, rCl
+	if mach == r.windMach {
+		r.State.deriveRadius() // along the radius the wind and the swept-up gas stay
+	} else {
+		r.State.deriveFlow()
+	}
 	for i := range r.Criteria {
-		r.Outcomes[i] = r.State.evaluate(&r.Criteria[i], r.thresholds[i])
+		r.State.evaluate(&r.Outcomes[i], &r.Criteria[i], r.thresholds[i])
 	}
 	return nil
 }

@@ -55,6 +55,7 @@ type State struct {
 
 	nThermal int             // Cautions[:nThermal] do not depend on the Mach number or the radius
 	cf       CoolingFunction // the cooling function derived with, for the Mach-dependent cooling times
+	windMach float64         // the Mach number VWind and the shocked state were derived for
 }
 
 // A Caution is a warning about the inputs that does not make them invalid.
@@ -119,8 +120,23 @@ func (s *State) derive(p Params, cf CoolingFunction) error {
 // deriveFlow computes what depends on the Mach number and the radius. No
 // cooling time depends on either, so sweeps over them need only this.
 func (s *State) deriveFlow() {
+	s.deriveWind()
+	s.deriveRadius()
+}
+
+// deriveWind computes what depends on the Mach number but not on the
+// radius: the wind speed and the swept-up gas.
+func (s *State) deriveWind() {
 	q := &s.Params
 	s.VWind = Velocity(q.Mach * float64(s.CsHot))
+	s.deriveShocked()
+	s.windMach = q.Mach
+}
+
+// deriveRadius computes what depends on the radius, with the wind of
+// deriveWind, and the flow cautions.
+func (s *State) deriveRadius() {
+	q := &s.Params
 	s.TCC = CloudCrushingTime(q.RCloud, q.Chi, s.VWind)
 	s.TShear = ShearTime(q.RCloud, s.VWind)
 	s.TSoundCold = SoundCrossingTime(q.RCloud, s.CsCold)
@@ -129,7 +145,6 @@ func (s *State) deriveFlow() {
 	s.ColumnCold = CloudColumn(s.NCold, q.RCloud)
 	s.VMix = MixingVelocity(1, s.CsCold, s.CoolingTime(q.MixCooling), s.TSoundCold)
 	s.TGrow = GrowthTime(q.RCloud, q.Chi, s.VMix)
-	s.deriveShocked()
 	s.flowCautions()
 }
 
@@ -163,7 +178,8 @@ func Stagnation(m, gamma float64) (t, rho float64) {
 // deriveShocked computes the state and cooling time of the wind gas swept
 // up ahead of the cloud: the post-shock state for M > 1, the stagnation
 // state for M ≤ 1. It depends on the Mach number, so it belongs to the flow
-// part of the state (the sweep fast path re-derives it).
+// part of the state (the sweep fast path re-derives it when the Mach number
+// changes).
 func (s *State) deriveShocked() {
 	q := &s.Params
 	var rhoR, tR float64
@@ -212,22 +228,26 @@ const (
 
 // flowCautions replaces the cautions that depend on the Mach number or the
 // radius: a wind near or above the speed of light, a cloud larger than a
-// halo.
+// halo. It runs at every point of a sweep, so its messages are joined
+// without fmt.
 func (s *State) flowCautions() {
 	s.Cautions = s.Cautions[:s.nThermal]
 	switch beta := float64(s.VWind) / SpeedOfLight; {
 	case beta >= 1:
-		s.Cautions = append(s.Cautions, Caution{FieldMach, fmt.Sprintf("the wind speed M c_s,hot = %s c exceeds the speed of light: these inputs are unphysical, and every formula here is Newtonian", num3(beta))})
+		s.Cautions = append(s.Cautions, Caution{FieldMach, "the wind speed M c_s,hot = " + num3(beta) + " c exceeds the speed of light: these inputs are unphysical, and every formula here is Newtonian"})
 	case beta >= RelativisticWind:
-		s.Cautions = append(s.Cautions, Caution{FieldMach, fmt.Sprintf("the wind speed M c_s,hot = %s c is a noticeable fraction of the speed of light; every formula here is Newtonian", num3(beta))})
+		s.Cautions = append(s.Cautions, Caution{FieldMach, "the wind speed M c_s,hot = " + num3(beta) + " c is a noticeable fraction of the speed of light; every formula here is Newtonian"})
 	}
 	// Li et al. 2020's "failed pressure confinement" regime (arXiv:1909.02632,
 	// abstract: the ambient hot gas cools too fast to confine the cloud).
 	if s.TCoolHot < s.TCC {
-		s.Cautions = append(s.Cautions, Caution{FieldChi, fmt.Sprintf("the wind cools faster than the cloud is crushed (t_cool,hot = %s t_cc): Li et al. 2020's failed-pressure-confinement regime, outside every criterion's wind-tunnel picture", num3(float64(s.TCoolHot/s.TCC)))})
+		// A fixed text (the ratio is the derived t_cool,hot/t_cc): sweeps
+		// rebuild this caution at every radius, and formatting a number
+		// there cost more than the criteria.
+		s.Cautions = append(s.Cautions, Caution{FieldChi, "the wind cools faster than the cloud is crushed (t_cool,hot < t_cc; see t_cool,hot/t_cc): Li et al. 2020's failed-pressure-confinement regime, outside every criterion's wind-tunnel picture"})
 	}
 	if s.Params.RCloud > MaxCloudRadius {
-		s.Cautions = append(s.Cautions, Caution{FieldRCloud, fmt.Sprintf("r_cl = %s kpc is larger than a galaxy's halo (~100 kpc): check the unit", num3(float64(s.Params.RCloud/Kiloparsec)))})
+		s.Cautions = append(s.Cautions, Caution{FieldRCloud, "r_cl = " + num3(float64(s.Params.RCloud/Kiloparsec)) + " kpc is larger than a galaxy's halo (~100 kpc): check the unit"})
 	}
 }
 

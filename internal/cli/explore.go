@@ -103,9 +103,5 @@ func runExplore(e *env) error {
 // isTerminalReader reports whether r is a terminal.
 func isTerminalReader(r io.Reader) bool {
 	f, ok := r.(*os.File)
-	if !ok {
-		return false
-	}
-	st, err := f.Stat()
-	return err == nil && st.Mode()&os.ModeCharDevice != 0
+	return ok && isTTY(f)
 }

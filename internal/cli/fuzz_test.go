@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"cloudwind/internal/quantity"
+	"cloudwind/internal/report"
 
 	"cloudwind/cooling"
 	"cloudwind/model"
@@ -174,6 +175,37 @@ func FuzzCoolingName(f *testing.F) {
 		src, err := cooling.Resolve("--cooling", s, nil, open)
 		if err == nil && src == nil {
 			t.Fatalf("Resolve(%q) = nil, nil", s)
+		}
+	})
+}
+
+// FuzzShardAndColumns: no --shard or --columns value may panic; a shard
+// accepted lies inside the grid, and a selection accepted names columns
+// of the header, each once.
+func FuzzShardAndColumns(f *testing.F) {
+	for _, s := range []string{"0/4", "3/4", "4/4", "-1/2", "1/0", "a/b", "1/2/3", "chi,*_verdict", "[", "*", "radius", "chi,chi", ",", " 2 / 5 "} {
+		f.Add(s, 1222)
+	}
+	cols := report.SweepColumns(model.BuiltinCriteria())
+	f.Fuzz(func(t *testing.T, s string, total int) {
+		if total < 0 {
+			total = -total
+		}
+		if sh, err := parseShard(s, total); err == nil {
+			if sh.lo < 0 || sh.hi < sh.lo || sh.hi > total || sh.k < 0 || sh.k >= sh.n {
+				t.Fatalf("parseShard(%q, %d) = %+v", s, total, sh)
+			}
+		}
+		sel, err := report.SelectColumns(cols, s)
+		if err != nil {
+			return
+		}
+		seen := map[string]bool{}
+		for k, c := range sel {
+			if seen[c.Name] || (c.Twin >= k) {
+				t.Fatalf("SelectColumns(%q): column %d %s seen twice or twin %d not before it", s, k, c.Name, c.Twin)
+			}
+			seen[c.Name] = true
 		}
 	})
 }

@@ -165,7 +165,16 @@ func readmeCode(md string) (blocks []codeBlock, inline []readmeLine) {
 // before a pipe or redirection, without the explorer.
 func commandLines(b codeBlock) []readmeLine {
 	var out []readmeLine
-	for k, l := range strings.Split(b.text, "\n") {
+	lines := strings.Split(b.text, "\n")
+	for k := 0; k < len(lines); k++ {
+		l, first := lines[k], k
+		for strings.HasSuffix(l, "\\") && k+1 < len(lines) { // a continued line
+			k++
+			l = strings.TrimSuffix(l, "\\") + " " + strings.TrimSpace(lines[k])
+		}
+		if strings.Contains(l, "$SLURM") || strings.Contains(l, "${SLURM") {
+			continue // runs inside a job array: .ci/slurm-array.sh runs one
+		}
 		l = strings.TrimSpace(strings.TrimPrefix(strings.TrimSpace(l), "$ "))
 		if i := strings.IndexAny(l, "|>#"); i >= 0 && !inQuotes(l, i) {
 			l = strings.TrimSpace(l[:i])
@@ -177,7 +186,7 @@ func commandLines(b codeBlock) []readmeLine {
 		if len(args) < 2 || args[1] == "explore" || strings.HasPrefix(args[1], "-") || strings.ToUpper(args[1]) == args[1] {
 			continue // the explorer, or a placeholder such as COMMAND
 		}
-		out = append(out, readmeLine{l, b.line + k})
+		out = append(out, readmeLine{l, b.line + first})
 	}
 	return out
 }

@@ -27,7 +27,7 @@ func TestSweepBadSpecs(t *testing.T) {
 		{[]string{"--chi", "log:10:1e7:3", "--t-cloud", "1e5"}, "--chi: the wind temperature"},
 		{[]string{"--t-cloud", "lin:1e4:3e4:3", "--t-floor", "2e4"}, "--t-floor"},
 		{[]string{"--chi", "log:2:1e4:5000", "--radius", "log:1:10:5000"}, "more than 10000000; pass --force"},
-		{[]string{"--format", "xlsx"}, "--format: want csv, ecsv, json or jsonl"},
+		{[]string{"--format", "xlsx"}, "--format: want csv, ecsv, json, jsonl or parquet"},
 		{[]string{"--workers", "0"}, "--workers"},
 	}
 	for _, c := range cases {

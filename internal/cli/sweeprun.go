@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"strconv"
+	"strings"
 	"sync"
 	"time"
 
@@ -26,11 +27,15 @@ type chunkResult struct {
 // runSweepTo evaluates the grid in parallel and writes rows to w in grid
 // order. Memory stays flat: at most 2 × workers chunks are in flight.
 func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) error {
-	cols := report.SweepColumns(opt.criteria)
-	if err := opt.format.Header(w, cols, sweepMeta(opt)); err != nil {
+	plan, err := planSweep(opt)
+	if err != nil {
 		return err
 	}
-	nChunks := (opt.grid.total + sweepChunk - 1) / sweepChunk
+	if err := opt.format.Header(w, opt.cols, sweepMeta(opt)); err != nil {
+		return err
+	}
+	rows := opt.shard.hi - opt.shard.lo
+	nChunks := (rows + sweepChunk - 1) / sweepChunk
 	type job struct {
 		k   int
 		out chan chunkResult
@@ -46,7 +51,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			sw := newSweepWorker(opt, cols)
+			sw := newSweepWorker(opt, plan)
 			for j := range jobs {
 				buf := pool.Get().([]byte)[:0]
 				buf, err := sw.chunk(buf, j.k)
@@ -75,7 +80,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 
 	var bar *progressBar
 	if opt.progress {
-		bar = &progressBar{w: e.stderr, total: opt.grid.total, start: time.Now()}
+		bar = &progressBar{w: e.stderr, total: rows, start: time.Now()}
 	}
 	var werr error
 	done := 0
@@ -103,7 +108,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 		}
 		done += sweepChunk
 		if bar != nil && werr == nil {
-			bar.update(min(done, opt.grid.total), false)
+			bar.update(min(done, rows), false)
 		}
 	}
 	wg.Wait()
@@ -117,7 +122,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 		return werr
 	}
 	if bar != nil {
-		bar.update(opt.grid.total, true)
+		bar.update(rows, true)
 	}
 	if opt.format.Footer != "" {
 		_, werr = io.WriteString(w, opt.format.Footer)
@@ -125,56 +130,133 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 	return werr
 }
 
+// sweepPlan is what the workers compute: the columns written, read from
+// results that hold only the criteria those columns name. With --columns
+// naming two criteria, the other criteria are not evaluated at all; each
+// criterion's outcome depends on nothing but the state and itself, so the
+// values written are the same.
+type sweepPlan struct {
+	cols     []report.Column
+	criteria []model.Criterion
+}
+
+// planSweep returns the plan of opt: opt.cols and opt.criteria, or when
+// the columns name only some criteria, those criteria and the same columns
+// built for them.
+func planSweep(opt *sweepOptions) (sweepPlan, error) {
+	all := sweepPlan{cols: opt.cols, criteria: opt.criteria}
+	written := make(map[string]bool, len(opt.cols))
+	names := make([]string, len(opt.cols))
+	for i, c := range opt.cols {
+		written[c.Name], names[i] = true, c.Name
+	}
+	var sub []model.Criterion
+	for _, c := range opt.criteria {
+		base := strings.ReplaceAll(c.ID, "-", "_")
+		for _, suffix := range []string{"_ratio", "_radius_crit_pc", "_margin", "_verdict"} {
+			if written[base+suffix] {
+				sub = append(sub, c)
+				break
+			}
+		}
+	}
+	if len(sub) == len(opt.criteria) {
+		return all, nil
+	}
+	cols, err := report.SelectColumns(report.SweepColumns(sub), strings.Join(names, ","))
+	if err != nil {
+		return sweepPlan{}, fmt.Errorf("the columns of the criteria evaluated: %w", err) // cannot happen: the names are SweepColumns' own
+	}
+	return sweepPlan{cols: cols, criteria: sub}, nil
+}
+
 // sweepWorker evaluates and formats points. It keeps the thermal state of
 // the last point, so that points differing only in radius and Mach number
 // take the fast path (model.Result.Reevaluate).
 type sweepWorker struct {
-	opt   *sweepOptions
-	cols  []report.Column
-	idx   []int
-	prev  []int // axis indices of the last evaluated point; nil before the first
-	res   model.Result
-	vals  []float64 // the last value of each numeric column
-	text  [][]byte  // its formatted text, reused while the value repeats
-	seen  []bool    // text holds the formatting of vals
-	coolZ float64
-	cf    model.CoolingFunction
-	fast  []bool // axis k may change on the fast path
+	opt      *sweepOptions
+	criteria []model.Criterion
+	cols     []report.Column
+	idx      []int // axis indices of the current point
+	prev     []int // axis indices of the last evaluated point; nil before the first
+	res      model.Result
+	num      []float64 // the current point's value of each numeric column
+	str      []string  // the current point's value of each string column
+	lo, hi   []float64 // every value in [lo, hi] has the numeric column's text (report.AppendNumberRange)
+	strs     []string  // the value each string column's text holds
+	text     [][]byte  // the formatted fields, reused while the value repeats
+	seen     []bool    // text holds a formatting: of a value in [lo, hi], or of strs
+	coolZ    float64
+	cf       model.CoolingFunction
+	fast     []bool // axis k may change on the fast path
+	kMach    int    // the Mach-number axis, or -1
+	kRadius  int    // the radius axis, or -1
 }
 
-func newSweepWorker(opt *sweepOptions, cols []report.Column) *sweepWorker {
-	sw := &sweepWorker{opt: opt, cols: cols, idx: make([]int, len(opt.grid.axes)),
-		vals: make([]float64, len(cols)), text: make([][]byte, len(cols)), seen: make([]bool, len(cols)),
-		fast: make([]bool, len(opt.grid.axes))}
+func newSweepWorker(opt *sweepOptions, plan sweepPlan) *sweepWorker {
+	n := len(plan.cols)
+	sw := &sweepWorker{opt: opt, criteria: plan.criteria, cols: plan.cols, idx: make([]int, len(opt.grid.axes)),
+		num: make([]float64, n), str: make([]string, n), lo: make([]float64, n), hi: make([]float64, n), strs: make([]string, n),
+		text: make([][]byte, n), seen: make([]bool, n), fast: make([]bool, len(opt.grid.axes)), kMach: -1, kRadius: -1}
 	for k, a := range opt.grid.axes {
-		sw.fast[k] = a.field == model.FieldMach || a.field == model.FieldRCloud
+		switch a.field {
+		case model.FieldMach:
+			sw.fast[k], sw.kMach = true, k
+		case model.FieldRCloud:
+			sw.fast[k], sw.kRadius = true, k
+		}
 	}
 	return sw
 }
 
-// chunk appends the rows of chunk k to buf.
+// chunk appends the rows of chunk k of the shard to buf.
 func (sw *sweepWorker) chunk(buf []byte, k int) ([]byte, error) {
-	lo := k * sweepChunk
-	hi := min(lo+sweepChunk, sw.opt.grid.total)
+	sh := &sw.opt.shard
+	lo := sh.lo + k*sweepChunk
+	hi := min(lo+sweepChunk, sh.hi)
+	g := &sw.opt.grid
+	g.point(lo, sw.idx)
 	for i := lo; i < hi; i++ {
+		if i > lo {
+			g.next(sw.idx)
+		}
 		if err := sw.evaluate(i); err != nil {
 			return buf, err
 		}
+		sw.values()
 		sw.format()
-		buf = sw.opt.format.AppendRow(buf, sw.cols, sw.text, i == 0)
+		buf = sw.opt.format.AppendRow(buf, sw.cols, sw.text, i == sh.lo)
 	}
 	return buf, nil
 }
 
-// format fills sw.text with the fields of the current point. Along the
-// fast axes most columns repeat (every thermal quantity, r_crit), so a
-// value equal to the column's last one reuses its text.
+// values reads the columns of the current point into sw.num and sw.str.
+func (sw *sweepWorker) values() {
+	for c := range sw.cols {
+		col := &sw.cols[c]
+		if col.IsString {
+			sw.str[c] = col.Str(&sw.res)
+		} else {
+			sw.num[c] = col.Num(&sw.res)
+		}
+	}
+}
+
+// format fills sw.text with the fields of sw.num and sw.str. Along the
+// fast axes most columns repeat (every thermal quantity), or change only
+// in their last bits (r_crit, computed from the radius), so a value whose
+// text is the column's last text keeps it: one equal to the last string,
+// or inside the last number's interval of equal text.
 func (sw *sweepWorker) format() {
 	js := sw.opt.format.JSON
 	for c := range sw.cols {
 		col := &sw.cols[c]
 		if col.IsString {
-			s := col.Str(&sw.res)
+			s := sw.str[c]
+			if sw.seen[c] && s == sw.strs[c] {
+				continue
+			}
+			sw.strs[c], sw.seen[c] = s, true
 			if js {
 				sw.text[c] = strconv.AppendQuote(sw.text[c][:0], s)
 			} else {
@@ -182,28 +264,33 @@ func (sw *sweepWorker) format() {
 			}
 			continue
 		}
-		v := col.Num(&sw.res)
-		if sw.seen[c] && v == sw.vals[c] {
+		v := sw.num[c]
+		if sw.seen[c] && v >= sw.lo[c] && v <= sw.hi[c] { // never for NaN
 			continue
 		}
-		sw.vals[c], sw.seen[c] = v, true
-		if t := col.Twin; t >= 0 && sw.vals[t] == v {
+		sw.seen[c] = true
+		if t := col.Twin; t >= 0 && sw.num[t] == v {
 			sw.text[c] = append(sw.text[c][:0], sw.text[t]...)
+			sw.lo[c], sw.hi[c] = sw.lo[t], sw.hi[t]
 			continue
 		}
-		sw.text[c] = report.AppendNumber(sw.text[c][:0], v, js)
+		sw.text[c], sw.lo[c], sw.hi[c] = report.AppendNumberRange(sw.text[c][:0], v, js)
 	}
 }
 
-// evaluate computes point i into sw.res.
+// evaluate computes point i, whose axis indices are in sw.idx, into sw.res.
 func (sw *sweepWorker) evaluate(i int) error {
 	g := &sw.opt.grid
-	g.point(i, sw.idx)
 	if sw.prev != nil && sw.onlyFastChanged() {
-		p := sw.res.Params
-		g.apply(&p, sw.idx)
+		mach, r := sw.res.Params.Mach, float64(sw.res.Params.RCloud)
+		if k := sw.kMach; k >= 0 {
+			mach = g.axes[k].values[sw.idx[k]]
+		}
+		if k := sw.kRadius; k >= 0 {
+			r = g.axes[k].values[sw.idx[k]]
+		}
 		copy(sw.prev, sw.idx)
-		return sw.res.Reevaluate(p.Mach, p.RCloud)
+		return sw.res.Reevaluate(mach, model.Length(r))
 	}
 	p := sw.opt.base
 	g.apply(&p, sw.idx)
@@ -214,7 +301,7 @@ func (sw *sweepWorker) evaluate(i int) error {
 		}
 		sw.cf, sw.coolZ = cf, p.Metallicity
 	}
-	if err := sw.res.Evaluate(p, sw.cf, sw.opt.criteria); err != nil {
+	if err := sw.res.Evaluate(p, sw.cf, sw.criteria); err != nil {
 		return fmt.Errorf("grid point %d: %w", i, err)
 	}
 	if sw.prev == nil {
@@ -222,6 +309,17 @@ func (sw *sweepWorker) evaluate(i int) error {
 	}
 	copy(sw.prev, sw.idx)
 	return nil
+}
+
+// next advances idx from a point's axis indices to those of the next
+// point (the last axis fastest).
+func (g *sweepGrid) next(idx []int) {
+	for k := len(g.axes) - 1; k >= 0; k-- {
+		if idx[k]++; idx[k] < len(g.axes[k].values) {
+			return
+		}
+		idx[k] = 0
+	}
 }
 
 // onlyFastChanged reports whether the current point differs from the last

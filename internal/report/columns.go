@@ -1,11 +1,14 @@
 package report
 
 import (
-	"math"
+	"fmt"
+	"path"
 	"strconv"
 	"strings"
 
 	"cloudwind/internal/quantity"
+	"cloudwind/internal/safetext"
+	"cloudwind/internal/suggest"
 	"cloudwind/model"
 )
 
@@ -100,26 +103,84 @@ func SweepColumns(cs []model.Criterion) []Column {
 	return cols
 }
 
-// AppendNumber appends v with nine significant figures (enough for a
-// 1e-6 cross-check after the reader's own rounding), "nan" or "inf" as
-// numpy and astropy read them, or JSON null when json is set.
-func AppendNumber(b []byte, v float64, json bool) []byte {
-	switch {
-	case math.IsNaN(v):
-		if json {
-			return append(b, "null"...)
-		}
-		return append(b, "nan"...)
-	case math.IsInf(v, 1):
-		if json {
-			return append(b, "null"...)
-		}
-		return append(b, "inf"...)
-	case math.IsInf(v, -1):
-		if json {
-			return append(b, "null"...)
-		}
-		return append(b, "-inf"...)
+// SelectColumns returns the columns of cols named by spec, a comma list of
+// names as in the header, each of which may be a glob (path.Match syntax:
+// "*_radius_crit_pc", "t_cool_*"), in the order of the list; a glob's
+// matches keep the header's order. A name that matches nothing, an
+// invalid glob and a column selected twice are errors; a name that is
+// close to a column's suggests it. Twins are remapped to the selection,
+// and dropped when the twin is not selected before its column.
+func SelectColumns(cols []Column, spec string) ([]Column, error) {
+	index := make(map[string]int, len(cols))
+	names := make([]string, len(cols))
+	for i, c := range cols {
+		index[c.Name], names[i] = i, c.Name
 	}
-	return strconv.AppendFloat(b, v, 'g', 9, 64)
+	var picked []int
+	chosen := make(map[int]bool)
+	add := func(i int, item string) error {
+		if chosen[i] {
+			return fmt.Errorf("column %q is selected twice (by %q)", cols[i].Name, item)
+		}
+		chosen[i] = true
+		picked = append(picked, i)
+		return nil
+	}
+	for _, raw := range strings.Split(spec, ",") {
+		item := strings.TrimSpace(raw)
+		if item == "" {
+			return nil, fmt.Errorf("empty column name in %q (want a comma list such as chi,radius_pc,*_verdict)", safetext.Clip(spec, 60))
+		}
+		if !strings.ContainsAny(item, `*?[\`) {
+			i, ok := index[item]
+			if !ok {
+				msg := fmt.Sprintf("unknown column %q", safetext.Clip(item, 40))
+				s := suggest.Closest(item, names)
+				for _, n := range names { // a name without its unit suffix: radius → radius_pc
+					if s == "" && strings.HasPrefix(n, item+"_") && strings.Count(n[len(item)+1:], "_") == 0 {
+						s = n
+					}
+				}
+				if s != "" {
+					return nil, fmt.Errorf("%s (did you mean %q?)", msg, s)
+				}
+				return nil, fmt.Errorf("%s (run with --format csv and no --columns to see every name)", msg)
+			}
+			if err := add(i, item); err != nil {
+				return nil, err
+			}
+			continue
+		}
+		n := 0
+		for i, name := range names {
+			ok, err := path.Match(item, name)
+			if err != nil {
+				return nil, fmt.Errorf("invalid pattern %q: %v", safetext.Clip(item, 40), err)
+			}
+			if ok {
+				if err := add(i, item); err != nil {
+					return nil, err
+				}
+				n++
+			}
+		}
+		if n == 0 {
+			return nil, fmt.Errorf("pattern %q matches no column", safetext.Clip(item, 40))
+		}
+	}
+	out := make([]Column, len(picked))
+	pos := make(map[int]int, len(picked))
+	for k, i := range picked {
+		pos[i] = k
+	}
+	for k, i := range picked {
+		c := cols[i]
+		if t, ok := pos[c.Twin]; c.Twin >= 0 && ok && t < k {
+			c.Twin = t
+		} else {
+			c.Twin = -1
+		}
+		out[k] = c
+	}
+	return out, nil
 }
