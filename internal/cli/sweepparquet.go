@@ -2,11 +2,9 @@ package cli
 
 import (
 	"context"
-	"errors"
 	"io"
 	"slices"
 	"sync"
-	"time"
 
 	"cloudwind/internal/report"
 )
@@ -27,98 +25,20 @@ func runSweepParquet(ctx context.Context, e *env, opt *sweepOptions, w io.Writer
 	if err != nil {
 		return err
 	}
-	rows := opt.shard.hi - opt.shard.lo
-	nChunks := (rows + sweepChunk - 1) / sweepChunk
-	type result struct {
-		b   *report.Batch
-		err error
-	}
-	type job struct {
-		k   int
-		out chan result
-	}
-	jobs := make(chan job)
-	queue := make(chan chan result, parquetInFlight(opt.workers, len(opt.cols)))
-	ctx, cancel := context.WithCancel(ctx)
-	defer cancel()
 	pool := sync.Pool{New: func() any { return report.NewBatch(opt.cols, sweepChunk) }}
-
-	var wg sync.WaitGroup
-	for range opt.workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
+	err = runChunks(ctx, e, opt, parquetInFlight(opt.workers, len(opt.cols)),
+		func() func(k int) (*report.Batch, error) {
 			sw := newSweepWorker(opt, plan)
-			for j := range jobs {
+			return func(k int) (*report.Batch, error) {
 				b := pool.Get().(*report.Batch)
 				b.Reset()
-				j.out <- result{b, sw.batch(b, j.k)}
+				return b, sw.batch(b, k)
 			}
-		}()
-	}
-	go func() {
-		defer close(queue)
-		defer close(jobs)
-		for k := 0; k < nChunks; k++ {
-			out := make(chan result, 1)
-			select {
-			case queue <- out:
-			case <-ctx.Done():
-				return
-			}
-			select {
-			case jobs <- job{k, out}:
-			case <-ctx.Done():
-				return
-			}
-		}
-	}()
-
-	var bar *progressBar
-	if opt.progress {
-		bar = &progressBar{w: e.stderr, total: rows, start: time.Now()}
-	}
-	var werr error
-	done := 0
-	for out := range queue {
-		var r result
-		select {
-		case r = <-out:
-		case <-ctx.Done():
-		}
-		if werr == nil {
-			switch {
-			case ctx.Err() != nil:
-				werr = ctx.Err()
-			case r.err != nil:
-				werr = r.err
-			default:
-				werr = pw.Write(r.b)
-			}
-			if werr != nil {
-				cancel()
-			}
-		}
-		if r.b != nil {
-			pool.Put(r.b)
-		}
-		done += sweepChunk
-		if bar != nil && werr == nil {
-			bar.update(min(done, rows), false)
-		}
-	}
-	wg.Wait()
-	if werr == nil && ctx.Err() != nil {
-		werr = ctx.Err()
-	}
-	if werr != nil {
-		if errors.Is(werr, context.Canceled) {
-			return errors.New("interrupted; no output file was written")
-		}
-		return werr
-	}
-	if bar != nil {
-		bar.update(rows, true)
+		},
+		pw.Write,
+		func(b *report.Batch) { pool.Put(b) })
+	if err != nil {
+		return err
 	}
 	return pw.Close()
 }

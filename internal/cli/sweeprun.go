@@ -18,12 +18,6 @@ import (
 // sweepChunk is the number of grid points one worker formats at a time.
 const sweepChunk = 2048
 
-// chunkResult is one formatted chunk, or the error that stopped it.
-type chunkResult struct {
-	buf []byte
-	err error
-}
-
 // runSweepTo evaluates the grid in parallel and writes rows to w in grid
 // order. Memory stays flat: at most 2 × workers chunks are in flight.
 func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) error {
@@ -34,28 +28,54 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 	if err := opt.format.Header(w, opt.cols, sweepMeta(opt)); err != nil {
 		return err
 	}
-	rows := opt.shard.hi - opt.shard.lo
-	nChunks := (rows + sweepChunk - 1) / sweepChunk
+	pool := sync.Pool{New: func() any { return make([]byte, 0, 1<<20) }}
+	err = runChunks(ctx, e, opt, 2*opt.workers,
+		func() func(k int) ([]byte, error) {
+			sw := newSweepWorker(opt, plan)
+			return func(k int) ([]byte, error) { return sw.chunk(pool.Get().([]byte)[:0], k) }
+		},
+		func(buf []byte) error { _, err := w.Write(buf); return err },
+		func(buf []byte) { pool.Put(buf[:0]) })
+	if err == nil && opt.format.Footer != "" {
+		_, err = io.WriteString(w, opt.format.Footer)
+	}
+	return err
+}
+
+// runChunks is the pipeline of every sweep format: the chunks of
+// sweepChunk rows of the shard are produced on opt.workers goroutines
+// (newWorker gives each its own producer) and consumed in grid order on
+// this one, with at most inFlight chunks produced and not yet consumed, so
+// memory stays flat. release returns a chunk's storage once consumed (or
+// dropped after an error). It draws the progress bar, stops at the first
+// error, and reports an interruption as such.
+func runChunks[T any](ctx context.Context, e *env, opt *sweepOptions, inFlight int,
+	newWorker func() func(k int) (T, error), consume func(T) error, release func(T)) error {
+	type result struct {
+		v   T
+		err error
+		ok  bool
+	}
 	type job struct {
 		k   int
-		out chan chunkResult
+		out chan result
 	}
+	rows := opt.shard.hi - opt.shard.lo
+	nChunks := (rows + sweepChunk - 1) / sweepChunk
 	jobs := make(chan job)
-	queue := make(chan chan chunkResult, 2*opt.workers)
+	queue := make(chan chan result, inFlight)
 	ctx, cancel := context.WithCancel(ctx)
 	defer cancel()
-	pool := sync.Pool{New: func() any { return make([]byte, 0, 1<<20) }}
 
 	var wg sync.WaitGroup
 	for range opt.workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			sw := newSweepWorker(opt, plan)
+			produce := newWorker()
 			for j := range jobs {
-				buf := pool.Get().([]byte)[:0]
-				buf, err := sw.chunk(buf, j.k)
-				j.out <- chunkResult{buf, err}
+				v, err := produce(j.k)
+				j.out <- result{v, err, true}
 			}
 		}()
 	}
@@ -64,7 +84,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 		defer close(queue)
 		defer close(jobs)
 		for k := 0; k < nChunks; k++ {
-			out := make(chan chunkResult, 1)
+			out := make(chan result, 1)
 			select {
 			case queue <- out:
 			case <-ctx.Done():
@@ -85,7 +105,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 	var werr error
 	done := 0
 	for out := range queue {
-		var r chunkResult
+		var r result
 		select {
 		case r = <-out:
 		case <-ctx.Done():
@@ -97,14 +117,14 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 			case r.err != nil:
 				werr = r.err
 			default:
-				_, werr = w.Write(r.buf)
+				werr = consume(r.v)
 			}
 			if werr != nil {
 				cancel()
 			}
 		}
-		if r.buf != nil {
-			pool.Put(r.buf[:0])
+		if r.ok {
+			release(r.v)
 		}
 		done += sweepChunk
 		if bar != nil && werr == nil {
@@ -124,10 +144,7 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 	if bar != nil {
 		bar.update(rows, true)
 	}
-	if opt.format.Footer != "" {
-		_, werr = io.WriteString(w, opt.format.Footer)
-	}
-	return werr
+	return nil
 }
 
 // sweepPlan is what the workers compute: the columns written, read from
