@@ -98,7 +98,7 @@ spec = "builtin"
 const demoOutflow = `# cloudwind demo scenario: fictional, invented numbers
 [scenario]
 name = "Demo (fictional): clouds in a starburst-driven outflow"
-description = "Invented numbers, no real object: a Chevalier & Clegg wind from 20 M_sun/yr of star formation inside 200 pc, carrying 5 pc clouds; the criteria part ways from 0.6 R to about 20 R. The inputs are the wind at R."
+description = "Invented numbers, no real object: a Chevalier & Clegg wind from 20 M_sun/yr of star formation inside 200 pc, carrying 5 pc clouds; the criteria part ways from about 0.5 R to 20 R. The inputs are the wind at R."
 demo = true
 
 [inputs]
