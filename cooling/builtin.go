@@ -17,14 +17,16 @@ import (
 //
 //	Λ(T, Z) = Λ_H+He(T) + (Z/Z☉) (n_e/n_H)(T) Λ_met(T)   per n_H²,
 //
-// (cooling reference §0 and §6), where Λ_H+He is the primordial solver
+// (in the style of Wiersma, Schaye & Smith 2009, eq. 4, as the README of
+// their tables quotes it), where Λ_H+He is the primordial solver
 // (PrimordialCIE: Cen 1992/KWH96 rates with Voronov 1997 for H and the He+
 // excitation term without Cen's factor, HepBlack81) at
 // y = n_He/n_H = 0.0851, Λ_met is the fit to the metal part of the CHIANTI
 // curves of Ryden & Pogge (2021), per n_e n_H, and n_e/n_H comes from the
 // same H+He solver. Metal electrons are neglected in n_e/n_H: ≤1% above
-// 10^5 K, more below 2×10^4 K where metals supply the electrons (cooling
-// reference §1 and §7). Its nodes run from 10^4 to 10^8 K every 0.01 dex.
+// 10^5 K, more below 2×10^4 K where metals supply the electrons
+// (measured: Sutherland & Dopita 1993 solar has n_e/n_H = 1.209 against
+// 1.196 from H+He alone). Its nodes run from 10^4 to 10^8 K every 0.01 dex.
 // This part is the curve as it was before the part below 10^4 K was added,
 // node for node, so every result for temperatures at and above 10^4 K
 // (the default cloud temperature of 10^4 K included) is unchanged.
@@ -79,14 +81,16 @@ type Builtin struct {
 
 // BuiltinHeliumRatio is the He/H number ratio y of the built-in curve: that
 // of the Grevesse & Sauval (1998) mixture of the CHIANTI curves (0.0851,
-// DERIVED from X = 0.7347, Y = 0.2483; cooling reference §7).
+// derived from X = 0.7347, Y = 0.2483, Asplund, Amarsi & Grevesse 2021,
+// Table 4).
 const BuiltinHeliumRatio = 0.0851
 
 // Range of the built-in nodes: log10 T from builtinLo/100 to builtinHi/100
 // in steps of 0.01 dex for the CIE part, the range of the CHIANTI curves
-// (cooling reference §7), and from builtinLowLo/100 to builtinLo/100 for
-// the KI02 part (10 K, the lower end of the range KI02 describe, from
-// memory). Integers, so that every node is the correctly rounded i/100.
+// (log T = 4.00–8.00 in the files of Ryden & Pogge 2021), and from
+// builtinLowLo/100 to builtinLo/100 for the KI02 part (10 K, the lower end
+// of the range KI02 describe, from memory). Integers, so that every node is
+// the correctly rounded i/100.
 const (
 	builtinLowLo = 100
 	builtinLo    = 400
@@ -129,7 +133,7 @@ func newBuiltin(fsys fs.FS, name string) (*Builtin, error) {
 		ion, c := PrimordialCIE(t, BuiltinHeliumRatio, PrimordialOptions{})
 		b.log10T[i] = x
 		b.hhe[i] = float64(c.Total())
-		b.met[i] = ion.NeOverNH * math.Pow(10, fit.log10Lambda(x)) // n_e n_H → n_H², cooling reference §1, §7
+		b.met[i] = ion.NeOverNH * math.Pow(10, fit.log10Lambda(x)) // n_e n_H → n_H²: derived, Λ per n_e n_H times n_e/n_H
 		if !(b.hhe[i] > 0) || !(b.met[i] > 0) || math.IsInf(b.hhe[i], 0) || math.IsInf(b.met[i], 0) {
 			return nil, fmt.Errorf("built-in cooling: non-positive Λ at 10^%.2f K", x)
 		}
@@ -168,7 +172,8 @@ func newBuiltin(fsys fs.FS, name string) (*Builtin, error) {
 // call it per metallicity.
 //
 // The metal part scales linearly in Z, which the CHIANTI curves follow to
-// within 7% from 10^-3 to 10 Z☉ (cooling reference §6–§7); above 10 Z☉
+// within 7% from 10^-3 to 10 Z☉ (measured, with the corrected Z of the
+// files labelled 0.005, 0.05, 0.5 and 5; see fitmetals); above 10 Z☉
 // Meta.Warnings says so. It returns an error for z < 0, NaN or ±Inf.
 func (b *Builtin) At(z float64) (*PowerLaw, error) {
 	xs, ys, tcap, err := b.nodes(z)

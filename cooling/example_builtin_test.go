@@ -64,7 +64,8 @@ func ExamplePrimordialCIE() {
 	// KWH96 as published: Λ = 5.84e-23 erg cm^3 s^-1
 }
 
-// Bremsstrahlung of fully ionised gas at 10^8 K (cooling reference §4.2).
+// Bremsstrahlung of fully ionised gas at 10^8 K (Rybicki & Lightman 1979;
+// the values derived).
 func ExampleFreeFree() {
 	fmt.Printf("C_ff = %.6g\n", cooling.FreeFreePrefactor())
 	fmt.Printf("Λ_ff = %.4g erg cm^3 s^-1\n", float64(cooling.FreeFree(1e8, 0.0833, 1.2)))

@@ -30,15 +30,14 @@ const (
 )
 
 // FreeFreePrefactor returns the thermal bremsstrahlung constant of
-// Rybicki & Lightman (1979) eq. 5.15b (equation number FROM MEMORY; cooling
-// reference §4.2),
+// Rybicki & Lightman (1979) eq. 5.15b (equation number FROM MEMORY),
 //
 //	C_ff = (2^5 π e^6 / (3 h m_e c^3)) (2π k / (3 m_e))^{1/2},
 //
 // in erg cm³ s⁻¹ K^-1/2, computed from the CODATA 2018 constants:
-// 1.42556e-27 (cooling reference §4.2 and §8 row 1). Rybicki & Lightman
-// quote it rounded as 1.4e-27 (FROM MEMORY). The emissivity of a plasma is
-// ε_ff = C_ff T^{1/2} n_e n_i Z_i² ḡ_B.
+// 1.42556e-27 (derived). Rybicki & Lightman quote it rounded as 1.4e-27
+// (FROM MEMORY). The emissivity of a plasma is ε_ff = C_ff T^{1/2} n_e n_i
+// Z_i² ḡ_B.
 func FreeFreePrefactor() float64 { return freeFreeA * math.Sqrt(freeFreeB) }
 
 // GauntKWH96 returns the frequency-averaged free-free Gaunt factor used by
@@ -46,8 +45,8 @@ func FreeFreePrefactor() float64 { return freeFreeA * math.Sqrt(freeFreeB) }
 //
 //	ḡ_ff(T) = 1.1 + 0.34 exp(−(5.5 − log10 T)²/3),
 //
-// (KWH96 via cooling reference §4.1, secondary). It lies between 1.1 and
-// 1.44 and is 1.44 at 10^5.5 K.
+// (KWH96, via public code; secondary). It lies between 1.1 and 1.44 and is
+// 1.44 at 10^5.5 K.
 //
 // Special cases are:
 //
@@ -70,9 +69,9 @@ func GauntKWH96(t model.Temperature) float64 {
 // with C_ff = FreeFreePrefactor() (Rybicki & Lightman 1979 eq. 5.15b, FROM
 // MEMORY), y = n_He/n_H and gaunt the frequency-averaged Gaunt factor ḡ_B
 // (a constant such as 1.2, the typical value Rybicki & Lightman give, FROM
-// MEMORY; or GauntKWH96(t)). The weights (1 + 4y)(1 + 2y) are those of
-// cooling reference §1. Example: 2.661e-23 at 10^8 K with ḡ = 1.2 and
-// y = 0.0833 (cooling reference §4.2).
+// MEMORY; or GauntKWH96(t)). The weight (1 + 4y)(1 + 2y) = (n_p + 4 n_He)
+// n_e/n_H² is derived for fully ionised H+He. Example: 2.661e-23 at 10^8 K
+// with ḡ = 1.2 and y = 0.0833 (derived).
 //
 // Special cases are:
 //

@@ -8,12 +8,11 @@ import (
 	"cloudwind/model"
 )
 
-// Historical fits, kept for comparison with the literature that used them
-// (cooling reference §4.3). They are labelled Historical in Meta and are not
-// the built-in curve.
+// Historical fits, kept for comparison with the literature that used them.
+// They are labelled Historical in Meta and are not the built-in curve.
 
 // RosenBregman95Lambda returns the Rosen & Bregman (1995) piecewise power
-// law in erg cm³ s⁻¹ (cooling reference §4.3, SECONDARY: several
+// law in erg cm³ s⁻¹ (SECONDARY: the coefficients as in several
 // independent public code files):
 //
 //	Λ = 2.2380e-32 T^2.0     for   300 ≤ T < 2000 K
@@ -24,8 +23,8 @@ import (
 //
 // The 10^5–4×10^7 K coefficient is 1.78e-18, which is continuous to 0.1% at
 // both ends; one public version has 1.67e-18, which leaves a 6% jump at
-// 10^5 K (cooling reference §4.3). The paper writes L = n² Λ with an
-// ambiguous density; cloudwind treats it as n_H² (cooling reference §1).
+// 10^5 K (measured). The paper writes L = n² Λ with an ambiguous density;
+// cloudwind treats it as n_H² (cloudwind's choice, labelled).
 //
 // Special cases are:
 //
@@ -62,7 +61,7 @@ func RosenBregman95() (*PowerLaw, error) {
 		Name:          "Rosen & Bregman 1995 (historical fit)",
 		Citation:      "Rosen & Bregman 1995, ApJ 440, 634 (journal reference from memory; coefficients via several public code files, unverified against the paper)",
 		Normalisation: PerN2,
-		Metallicity:   math.NaN(), // not stated in the cooling reference
+		Metallicity:   math.NaN(), // not known: the paper was not checked
 		Historical:    true,
 		Caveats: []string{
 			"historical piecewise power law, kept for comparison; fit range 300 K and above",
@@ -83,12 +82,12 @@ func RosenBregman95() (*PowerLaw, error) {
 var ErrBelowValidity = errors.New("temperature below the fit's range of validity")
 
 // tozziNormanMinKeV is the lowest kT at which the Tozzi & Norman (2001) fit
-// may be used, 0.1 keV (cooling reference §4.3: it diverges from tabulated
-// cooling below that).
+// may be used, 0.1 keV (cloudwind's choice: measured against Sutherland &
+// Dopita 1993 it diverges from tabulated cooling below that).
 const tozziNormanMinKeV = 0.1
 
 // tozziNormanMaxLog10T is the top of its sampled range: 10^8.5 K, the upper
-// end of the measured agreement with SD93 (cooling reference §4.3).
+// end of the measured agreement with SD93.
 const tozziNormanMaxLog10T = 8.5
 
 // TozziNorman01Lambda returns the Tozzi & Norman (2001) fit for Z = 0.3 Z☉,
@@ -96,12 +95,12 @@ const tozziNormanMaxLog10T = 8.5
 //	Λ = [C1 (kT/keV)^-1.7 + C2 (kT/keV)^0.5 + C3] × 10^-22 erg cm³ s⁻¹,
 //	C1 = 8.6e-3, C2 = 5.8e-2, C3 = 6.3e-2,
 //
-// (cooling reference §4.3, SECONDARY: public code, which also has a variant
-// with C2 = 5.8e-3; that is a typo, since the T^{1/2} term is the
-// bremsstrahlung of §4.2 only with 5.8e-2). The value is in the source's
-// normalisation, taken as per n_e n_H: measured that way it agrees with
-// Sutherland & Dopita (1993) [Fe/H] = −0.5 within ±20% for
-// 10^6.1 ≤ T ≤ 10^8.5 K (cooling reference §4.3).
+// (SECONDARY: the constants as in public code, not checked against the
+// paper; one file has a variant with C2 = 5.8e-3, a typo, since the T^{1/2}
+// term matches Rybicki & Lightman bremsstrahlung only with 5.8e-2). The
+// value is in the source's normalisation, taken as per n_e n_H: measured
+// that way it agrees with Sutherland & Dopita (1993) [Fe/H] = −0.5 within
+// ±20% for 10^6.1 ≤ T ≤ 10^8.5 K (measured).
 //
 // It returns ErrBelowValidity for kT < 0.1 keV (T < 1.16×10^6 K), where
 // the fit diverges from tabulated cooling, and for NaN.
@@ -115,7 +114,7 @@ func TozziNorman01Lambda(t model.Temperature) (model.CoolingRate, error) {
 	if !(kT >= tozziNormanMinKeV) {
 		return 0, fmt.Errorf("kT = %s keV (T = %s K) is below %s keV, the limit of the Tozzi & Norman 2001 fit: %w", model.FormatNumber(kT, 3), num(T), num(tozziNormanMinKeV), ErrBelowValidity)
 	}
-	const c1, c2, c3 = 8.6e-3, 5.8e-2, 6.3e-2 // TN01 via cooling reference §4.3
+	const c1, c2, c3 = 8.6e-3, 5.8e-2, 6.3e-2 // Tozzi & Norman 2001, via public code (secondary, unchecked against the paper)
 	return model.CoolingRate((c1*math.Pow(kT, -1.7) + c2*math.Sqrt(kT) + c3) * 1e-22), nil
 }
 
@@ -124,10 +123,10 @@ func TozziNorman01Lambda(t model.Temperature) (model.CoolingRate, error) {
 // kT = 0.1 keV (1.16×10^6 K) to 10^8.5 K. Below the first node the range
 // policy gives Λ = 0 and reports BelowTable.
 //
-// Conversion: the fit is taken as per n_e n_H (cooling reference §4.3), so
-// Λ_hd = (n_e/n_H) Λ with n_e/n_H from the primordial solver at y = 0.0851
-// (fully ionised above 0.1 keV: 1 + 2y to 0.1%). The helium ratio the fit
-// assumed is not known here.
+// Conversion: the fit is taken as per n_e n_H (cloudwind's choice; the
+// measured agreement above assumes it), so Λ_hd = (n_e/n_H) Λ with n_e/n_H
+// from the primordial solver at y = 0.0851 (fully ionised above 0.1 keV: 1
+// + 2y to 0.1%). The helium ratio the fit assumed is not known here.
 func TozziNorman01() (*PowerLaw, error) {
 	tMin := model.Temperature(tozziNormanMinKeV * kiloElectronVolt / model.Boltzmann)
 	f := func(t model.Temperature) model.CoolingRate {

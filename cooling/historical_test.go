@@ -9,14 +9,14 @@ import (
 )
 
 // TestRosenBregman95Continuity checks that the segments of the Rosen &
-// Bregman (1995) fit meet within 0.2% at 10^5 and 4×10^7 K (cooling
-// reference §8 row 12; measured 0.1% in §4.3).
+// Bregman (1995) fit meet within 0.2% at 10^5 and 4×10^7 K (0.1%
+// measured).
 func TestRosenBregman95Continuity(t *testing.T) {
-	for _, tb := range []float64{2000, 8000, 1e5, 4e7} { // §8 row 12 names 1e5 and 4e7 K
+	for _, tb := range []float64{2000, 8000, 1e5, 4e7} { // every break; 1e5 and 4e7 K bound the 1.78e-18 segment
 		below := float64(RosenBregman95Lambda(model.Temperature(tb * (1 - 1e-12))))
 		at := float64(RosenBregman95Lambda(model.Temperature(tb)))
 		if !biWithin(below, at, 0.002) {
-			t.Errorf("RosenBregman95Lambda just below %g K = %.6g, at it %.6g; want equal within 0.2%% (cooling reference §8 row 12)", tb, below, at)
+			t.Errorf("RosenBregman95Lambda just below %g K = %.6g, at it %.6g; want equal within 0.2%% (measured 0.1%%)", tb, below, at)
 		}
 	}
 	if v := RosenBregman95Lambda(299); v != 0 {
@@ -25,14 +25,14 @@ func TestRosenBregman95Continuity(t *testing.T) {
 	if v := RosenBregman95Lambda(model.Temperature(math.NaN())); !math.IsNaN(float64(v)) {
 		t.Errorf("RosenBregman95Lambda(NaN) = %g, want NaN", float64(v))
 	}
-	// Segment values (cooling reference §4.3 coefficients, derived).
+	// Segment values (the coefficients of RosenBregman95Lambda, derived).
 	for _, tc := range []struct{ t, want float64 }{
 		{1000, 2.2380e-32 * 1e6},
 		{1e6, 1.7800e-18 * math.Pow(1e6, -0.65)},
 		{1e8, 3.2217e-27 * 1e4},
 	} {
 		if got := float64(RosenBregman95Lambda(model.Temperature(tc.t))); !biWithin(got, tc.want, 1e-14) {
-			t.Errorf("RosenBregman95Lambda(%g) = %.8g, want %.8g (cooling reference §4.3)", tc.t, got, tc.want)
+			t.Errorf("RosenBregman95Lambda(%g) = %.8g, want %.8g (Rosen & Bregman 1995 coefficients)", tc.t, got, tc.want)
 		}
 	}
 }
@@ -66,19 +66,19 @@ func TestRosenBregman95Curve(t *testing.T) {
 	}
 }
 
-// TestTozziNorman01 checks the fit's value (cooling reference §4.3), its
-// refusal below kT = 0.1 keV, and the sampled curve.
+// TestTozziNorman01 checks the fit's value (Tozzi & Norman 2001, via public
+// code), its refusal below kT = 0.1 keV, and the sampled curve.
 func TestTozziNorman01(t *testing.T) {
-	// At kT = 1 keV: (C1 + C2 + C3) × 1e-22 = 1.296e-23 (derived from §4.3).
+	// At kT = 1 keV: (C1 + C2 + C3) × 1e-22 = 1.296e-23 (derived from the constants).
 	t1keV := model.Temperature(kiloElectronVolt / model.Boltzmann)
 	if got, err := TozziNorman01Lambda(t1keV); err != nil || !biWithin(float64(got), 1.296e-23, 1e-12) {
-		t.Errorf("TozziNorman01Lambda(%g K = 1 keV) = %g, %v; want 1.296e-23, nil (cooling reference §4.3)", float64(t1keV), float64(got), err)
+		t.Errorf("TozziNorman01Lambda(%g K = 1 keV) = %g, %v; want 1.296e-23, nil (derived from the Tozzi & Norman 2001 constants)", float64(t1keV), float64(got), err)
 	}
 	// The public variant "0.63 + 0.58 sqrt(T) + 0.086 T^-1.7" in 1e-23,
-	// T in keV (cooling reference §4.3), at 4 keV: 0.63 + 1.16 + 0.086 × 4^-1.7.
+	// T in keV (public code, secondary), at 4 keV: 0.63 + 1.16 + 0.086 × 4^-1.7.
 	want := (0.63 + 0.58*2 + 0.086*math.Pow(4, -1.7)) * 1e-23
 	if got, err := TozziNorman01Lambda(4 * t1keV); err != nil || !biWithin(float64(got), want, 1e-12) {
-		t.Errorf("TozziNorman01Lambda(4 keV) = %g, %v; want %g (cooling reference §4.3)", float64(got), err, want)
+		t.Errorf("TozziNorman01Lambda(4 keV) = %g, %v; want %g (the public variant of Tozzi & Norman 2001)", float64(got), err, want)
 	}
 	t01 := 0.1 * t1keV // 0.1 keV = 1.16045e6 K
 	for _, T := range []model.Temperature{t01 * (1 - 1e-9), 1e6, 1e4, 0, -1, model.Temperature(math.NaN())} {

@@ -11,23 +11,22 @@ import (
 // built-in curve uses below 10^4 K, capped at the CIE value at 10^4 K
 // (see Builtin).
 //
-// Status (cooling reference §4.3): the formula and its constants are
-// CONFIRMED only through secondary sources, several public code files
-// that agree (KI_heat = 2.0e-26, KI_v1 = 1e7, KI_v2 = 1.4e-2,
-// KI_T1 = 1.184e5, KI_T2 = 1e3, KI_T3 = 92); the paper itself was not
-// read, so no equation number is given. That the printed paper had a typo,
-// corrected by Vázquez-Semadeni et al. (2007), is from memory; which term
-// it concerned was not checked. The constants below are those of the
-// public codes.
+// Status: the formula and its constants are CONFIRMED only through
+// secondary sources, several public code files that agree (KI_heat =
+// 2.0e-26, KI_v1 = 1e7, KI_v2 = 1.4e-2, KI_T1 = 1.184e5, KI_T2 = 1e3, KI_T3
+// = 92); the paper itself was not read, so no equation number is given.
+// That the printed paper had a typo, corrected by Vázquez-Semadeni et al.
+// (2007), is from memory; which term it concerned was not checked. The
+// constants below are those of the public codes.
 //
 // Checks that could be made here (derived, see lowtemp_test.go): the
-// products Γ v1 = 2.0e-19 and Γ v2 = 2.8e-28 erg cm³ s⁻¹ are those quoted
-// in cooling reference §4.3; and the thermal equilibrium n Λ(T) = Γ that
-// KI02's fit is built for falls at warm-neutral temperatures (~5×10^3 K)
-// for n = 1 cm⁻³ and at cold-neutral ones (~40 K) for n = 100 cm⁻³, the
-// two stable phases of the neutral ISM. That supports the normalisation
-// per n² (n the hydrogen density, from memory), which cloudwind takes as
-// per n_H².
+// products Γ v1 = 2.0e-19 and Γ v2 = 2.8e-28 erg cm³ s⁻¹ are the
+// coefficients of Λ as it is commonly quoted (secondary); and the thermal
+// equilibrium n Λ(T) = Γ that KI02's fit is built for falls at warm-neutral
+// temperatures (~5×10^3 K) for n = 1 cm⁻³ and at cold-neutral ones (~40 K)
+// for n = 100 cm⁻³, the two stable phases of the neutral ISM. That supports
+// the normalisation per n² (n the hydrogen density, from memory), which
+// cloudwind takes as per n_H².
 //
 // What the fit is and is not: it describes neutral gas with heating, not
 // collisional ionisation equilibrium. KI02 write the net loss rate per unit
@@ -39,7 +38,7 @@ import (
 // metal cooling: cloudwind scales it with Z/Z☉ and leaves the Lyα term
 // alone (cloudwind's choice; KI02's fit is for solar-neighbourhood gas,
 // from memory). The fit is used only up to 10^4 K, the top of the range it
-// describes (cooling reference §4.3: T ≲ 10^4 K).
+// describes (the neutral ISM, T ≲ 10^4 K; from memory).
 
 // The constants of KI02 as public codes write them (SECONDARY; unverified
 // against the paper): Λ/Γ = v1 exp(−T1/(T + T2)) + v2 T^{1/2} exp(−T3/T).
@@ -52,9 +51,9 @@ const (
 	ki02T3    = 92      // K ("KI_T3")
 )
 
-// ki02Top is the top of the range of the KI02 fit, 10^4 K (cooling
-// reference §4.3: the fit describes T ≲ 10^4 K), and the bottom of the
-// built-in curve's CIE part.
+// ki02Top is the top of the range of the KI02 fit, 10^4 K (the fit
+// describes T ≲ 10^4 K; from memory), and the bottom of the built-in
+// curve's CIE part.
 const ki02Top = 1e4
 
 // ki02Terms returns the two terms of the KI02 fit at T (K) in

@@ -14,16 +14,16 @@ import (
 )
 
 // ltKI02 is the Koyama & Inutsuka (2002) fit written out with the
-// constants as cooling reference §4.3 quotes them (SECONDARY: public code),
+// constants as public code writes them (SECONDARY),
 // independently of the package's constants.
 func ltKI02(T, z float64) float64 {
 	return 2.0e-19*math.Exp(-1.184e5/(T+1000)) + z*2.8e-28*math.Sqrt(T)*math.Exp(-92/T)
 }
 
-// TestKoyamaInutsuka02Lambda checks the fit at several temperatures
-// against the formula (derived: the values were computed with Python's
-// math module from Λ = 2.0e-19 e^{−1.184e5/(T+1000)} + z 2.8e-28 √T
-// e^{−92/T}, cooling reference §4.3, and are quoted to 7 figures), and its
+// TestKoyamaInutsuka02Lambda checks the fit at several temperatures against
+// the formula (derived: the values were computed with Python's math module
+// from Λ = 2.0e-19 e^{−1.184e5/(T+1000)} + z 2.8e-28 √T e^{−92/T}, the form
+// as commonly quoted (secondary), and are quoted to 7 figures), and its
 // special cases.
 func TestKoyamaInutsuka02Lambda(t *testing.T) {
 	for _, tc := range []struct{ t, z, want float64 }{
@@ -42,7 +42,7 @@ func TestKoyamaInutsuka02Lambda(t *testing.T) {
 			t.Errorf("KoyamaInutsuka02Lambda(%g K, %g) = %.7g, want %.7g (derived)", tc.t, tc.z, got, tc.want)
 		}
 		if w := ltKI02(tc.t, tc.z); !scalar.EqualWithinRel(got, w, 1e-14) {
-			t.Errorf("KoyamaInutsuka02Lambda(%g K, %g) = %.16g, want the formula %.16g (cooling reference §4.3)", tc.t, tc.z, got, w)
+			t.Errorf("KoyamaInutsuka02Lambda(%g K, %g) = %.16g, want the formula %.16g (KI02 as public code writes it)", tc.t, tc.z, got, w)
 		}
 	}
 	for _, tc := range []struct {
@@ -86,18 +86,17 @@ func TestKoyamaInutsuka02Equilibrium(t *testing.T) {
 		}
 	}
 	if g := ki02Gamma * ki02V1; !scalar.EqualWithinRel(g, 2.0e-19, 1e-15) {
-		t.Errorf("Γ v1 = %g, want 2.0e-19 erg cm³ s⁻¹ (cooling reference §4.3)", g)
+		t.Errorf("Γ v1 = %g, want 2.0e-19 erg cm³ s⁻¹ (KI02 as commonly quoted)", g)
 	}
 	if g := ki02Gamma * ki02V2; !scalar.EqualWithinRel(g, 2.8e-28, 1e-15) {
-		t.Errorf("Γ v2 = %g, want 2.8e-28 erg cm³ s⁻¹ K^-1/2 (cooling reference §4.3)", g)
+		t.Errorf("Γ v2 = %g, want 2.8e-28 erg cm³ s⁻¹ K^-1/2 (KI02 as commonly quoted)", g)
 	}
 }
 
-// ltCIE returns the CIE curve of the versions without the part below
-// 10^4 K, Λ_H+He + z (n_e/n_H) Λ_met on the 0.01-dex nodes from 10^4 to
-// 10^8 K, as a PowerLaw built here from its definition (cooling reference
-// §0, §6; Builtin): PrimordialCIE and the embedded metal fit, not the
-// Builtin's stored parts.
+// ltCIE returns the CIE curve of the versions without the part below 10^4
+// K, Λ_H+He + z (n_e/n_H) Λ_met on the 0.01-dex nodes from 10^4 to 10^8 K,
+// as a PowerLaw built here from its definition (Builtin): PrimordialCIE and
+// the embedded metal fit, not the Builtin's stored parts.
 func ltCIE(t testing.TB, z float64) *PowerLaw {
 	t.Helper()
 	fit, err := loadMetalFit(assets.FS, metalFitFile)
@@ -344,11 +343,10 @@ func TestBuiltinColdCloud(t *testing.T) {
 	}
 }
 
-// TestBuiltinIntegralAcrossCap checks the exact integrals and cooling
-// times on the built-in curve against Gauss–Legendre quadrature of its
-// own nodes (the quadrature does not use the code under test; cooling
-// reference §8 row 13: 1e-12 relative), over ranges that cross T_cap and
-// 10^4 K, and over the whole table.
+// TestBuiltinIntegralAcrossCap checks the exact integrals and cooling times
+// on the built-in curve against Gauss–Legendre quadrature of its own nodes
+// (the quadrature does not use the code under test; 1e-12 relative), over
+// ranges that cross T_cap and 10^4 K, and over the whole table.
 func TestBuiltinIntegralAcrossCap(t *testing.T) {
 	b := biMustBuiltin(t)
 	for _, z := range []float64{0, 0.1, 1, 10} {

@@ -18,7 +18,8 @@ import (
 // The metal part of the built-in cooling function: a natural cubic spline
 // in log10 T – log10 Λ through 24 knots, fitted by cooling/internal/fitmetals
 // to the metal part of the CHIANTI-based CIE curves of Ryden & Pogge (2021,
-// companion data, CC-BY-4.0; cooling reference §7),
+// Interstellar and Intergalactic Medium, Cambridge University Press,
+// companion data, CC-BY-4.0),
 //
 //	Λ_met(T) = (Λ_z1(T) − Λ_z0.001(T)) / 0.999,
 //

@@ -111,8 +111,8 @@ func TestParseMetalFitErrors(t *testing.T) {
 }
 
 // TestMetalFitAccuracy checks that the embedded fit reproduces its own
-// target, Λ_met = (Λ_z1 − Λ_z0.001)/0.999 from the file values (cooling
-// reference §7), within the accuracy its header states, band by band.
+// target, Λ_met = (Λ_z1 − Λ_z0.001)/0.999 from the file values (Ryden &
+// Pogge 2021), within the accuracy its header states, band by band.
 func TestMetalFitAccuracy(t *testing.T) {
 	m, err := loadMetalFit(assets.FS, metalFitFile)
 	if err != nil {
@@ -144,10 +144,10 @@ func TestMetalFitAccuracy(t *testing.T) {
 }
 
 // TestChiantiReference checks the reference curves as this package reads
-// them: node values of cooling reference §8 rows 17–20 (file values, exact
-// at nodes to the 0.001 dex of the files), the effective metallicities of
-// row 21 (measured, ±0.01 dex) and the linear-Z model of row 22 (measured,
-// 7%). They guard the reading and the §7 facts the built-in relies on.
+// them: node values (file values of Ryden & Pogge 2021, exact at nodes to
+// the 0.001 dex of the files), the effective metallicities of the half-dex
+// files (measured, ±0.01 dex) and the linear-Z model (measured, 7%). They
+// guard the reading and the facts about the files the built-in relies on.
 func TestChiantiReference(t *testing.T) {
 	z1, z0 := biReadChianti(t, "cooling_z1.txt"), biReadChianti(t, "cooling_z0.001.txt")
 	at := func(c biChiantiCurve, x float64) float64 { return c.y[int(math.Round((x-4)*100))] }
@@ -162,21 +162,21 @@ func TestChiantiReference(t *testing.T) {
 	}
 	const dex = 0.0005
 	if x, y := peak(z0, 4, 4.5); math.Abs(x-4.22) > 1e-9 || math.Abs(y+21.766) > dex {
-		t.Errorf("cooling_z0.001.txt H peak 10^%.3f at 10^%.2f K, want 10^-21.766 at 10^4.22 K (§8 row 17)", y, x)
+		t.Errorf("cooling_z0.001.txt H peak 10^%.3f at 10^%.2f K, want 10^-21.766 at 10^4.22 K (file values)", y, x)
 	}
 	if x, y := peak(z1, 4, 8); math.Abs(x-5.36) > 1e-9 || math.Abs(y+21.217) > dex {
-		t.Errorf("cooling_z1.txt peak 10^%.3f at 10^%.2f K, want 10^-21.217 at 10^5.36 K (§8 row 18)", y, x)
+		t.Errorf("cooling_z1.txt peak 10^%.3f at 10^%.2f K, want 10^-21.217 at 10^5.36 K (file values)", y, x)
 	}
 	for _, tc := range []struct {
 		c    biChiantiCurve
 		name string
 		x, y float64
 	}{
-		{z1, "z1", 5, -21.266}, {z1, "z1", 6, -21.892}, {z1, "z1", 7, -22.525}, {z1, "z1", 8, -22.610}, // §8 row 19
-		{z0, "z0.001", 6, -23.296}, {z0, "z0.001", 8, -22.630}, // §8 row 20
+		{z1, "z1", 5, -21.266}, {z1, "z1", 6, -21.892}, {z1, "z1", 7, -22.525}, {z1, "z1", 8, -22.610}, // file values
+		{z0, "z0.001", 6, -23.296}, {z0, "z0.001", 8, -22.630}, // file values
 	} {
 		if got := at(tc.c, tc.x); math.Abs(got-tc.y) > dex {
-			t.Errorf("cooling_%s.txt at 10^%g K = 10^%.3f, want 10^%.3f (§8 rows 19–20)", tc.name, tc.x, got, tc.y)
+			t.Errorf("cooling_%s.txt at 10^%g K = 10^%.3f, want 10^%.3f (file values)", tc.name, tc.x, got, tc.y)
 		}
 	}
 	x, met, base := biChiantiMetals(t)
@@ -184,8 +184,8 @@ func TestChiantiReference(t *testing.T) {
 		file   string
 		log10Z float64
 	}{
-		{"cooling_z0.005.txt", -2.5}, {"cooling_z0.05.txt", -1.5}, {"cooling_z0.5.txt", -0.5}, {"cooling_z5.txt", 0.5}, // §8 row 21
-		{"cooling_z0.01.txt", -2}, {"cooling_z0.1.txt", -1}, {"cooling_z10.txt", 1}, // §7 table: as labelled
+		{"cooling_z0.005.txt", -2.5}, {"cooling_z0.05.txt", -1.5}, {"cooling_z0.5.txt", -0.5}, {"cooling_z5.txt", 0.5}, // measured: half-dex values
+		{"cooling_z0.01.txt", -2}, {"cooling_z0.1.txt", -1}, {"cooling_z10.txt", 1}, // measured: as labelled
 	} {
 		c := biReadChianti(t, tc.file)
 		num, den := 0.0, 0.0
@@ -197,7 +197,7 @@ func TestChiantiReference(t *testing.T) {
 		}
 		z := num / den
 		if math.Abs(math.Log10(z)-tc.log10Z) > 0.01 {
-			t.Errorf("effective Z of %s = 10^%.3f, want 10^%g ± 0.01 dex (cooling reference §8 row 21, §7)", tc.file, math.Log10(z), tc.log10Z)
+			t.Errorf("effective Z of %s = 10^%.3f, want 10^%g ± 0.01 dex (measured)", tc.file, math.Log10(z), tc.log10Z)
 		}
 		z = math.Pow(10, tc.log10Z)
 		for i, xi := range x {
@@ -206,7 +206,7 @@ func TestChiantiReference(t *testing.T) {
 			}
 			want := math.Pow(10, c.y[i])
 			if got := base[i] + z*met[i]; math.Abs(got/want-1) > 0.07 {
-				t.Errorf("linear-Z model for %s at 10^%.2f K = %.4g, file %.4g; want within 7%% (cooling reference §8 row 22)", tc.file, xi, got, want)
+				t.Errorf("linear-Z model for %s at 10^%.2f K = %.4g, file %.4g; want within 7%% (measured)", tc.file, xi, got, want)
 			}
 		}
 	}

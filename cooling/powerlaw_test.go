@@ -53,7 +53,7 @@ func TestPowerLawNodes(t *testing.T) {
 
 func TestPowerLawRangePolicy(t *testing.T) {
 	p := testCurve(t, false)
-	// Below the first node: Λ = 0 (cooling reference §9.4).
+	// Below the first node: Λ = 0 (the range policy).
 	for _, temp := range []model.Temperature{9999, 1, 0, -5, model.Temperature(math.NaN())} {
 		if l := p.Lambda(temp); l != 0 {
 			t.Errorf("Lambda(%g) = %g below the table, want 0", float64(temp), float64(l))
@@ -62,7 +62,7 @@ func TestPowerLawRangePolicy(t *testing.T) {
 	if c := p.Classify(5e3); c != BelowTable {
 		t.Errorf("Classify(5e3) = %v, want below table", c)
 	}
-	// Above the last node: Λ ∝ T^{1/2} from the last node (cooling reference §9.4).
+	// Above the last node: Λ ∝ T^{1/2} from the last node (the range policy).
 	top := p.Lambda(1e8)
 	for _, k := range []float64{2, 10, 1e3} {
 		got := float64(p.Lambda(model.Temperature(1e8 * k)))
@@ -115,7 +115,7 @@ func TestPowerLawInModel(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	// t_cool ∝ T²/Λ along the isobar (physics reference §4.1, derived): the
+	// t_cool ∝ T²/Λ along the isobar (derived: n ∝ 1/T at fixed P): the
 	// node search must find the minimum a fine brute-force scan finds.
 	best, bestT := math.Inf(1), 0.0
 	for lt := 4.0; lt <= 6.0; lt += 1e-4 {

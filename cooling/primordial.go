@@ -9,21 +9,20 @@ import (
 
 // Primordial (hydrogen + helium) cooling in collisional ionisation
 // equilibrium, from the rate coefficients of Cen (1992) as adopted by Katz,
-// Weinberg & Hernquist (1996, KWH96), with Voronov (1997) for the collisional
-// ionisation of H by default (cooling reference §4.1 and §5.3), and by
-// default without Cen's factor (1 + T_5^{1/2})⁻¹ on the He+ excitation
-// cooling (HepBlack81; cooling reference §12.2).
+// Weinberg & Hernquist (1996, KWH96), with Voronov (1997) for the
+// collisional ionisation of H by default, and by default without Cen's
+// factor (1 + T_5^{1/2})⁻¹ on the He+ excitation cooling (HepBlack81;
+// measured against Gnat & Ferland 2012, Table 1B).
 //
 // Provenance of the coefficients: the original KWH96 table was not viewed.
 // The ionisation and recombination rates are those of a table adapted from
-// KWH96 in the documentation of a public hydrodynamics code, and the cooling
-// coefficients are identical in two independent public code files, one
-// citing Cen (1992); all are quoted in cooling reference §4.1 (SECONDARY).
-// The Voronov coefficients are those of cion.dat in Debian's mocassin-data
-// (cooling reference §2 and §5.3), with the column order ΔE, P, A, X, K
-// still to be checked against Voronov (1997). Cen (1992) also has
+// KWH96 in the documentation of a public hydrodynamics code, and the
+// cooling coefficients are identical in two independent public code files,
+// one citing Cen (1992); all are SECONDARY. The Voronov coefficients are
+// those of cion.dat in Debian's mocassin-data, with the column order ΔE, P,
+// A, X, K still to be checked against Voronov (1997). Cen (1992) also has
 // density-dependent He(2³S) terms ∝ n_e² n_He+; they are negligible at the
-// low densities of interest and omitted (cooling reference §4.1).
+// low densities of interest and omitted (cloudwind's choice).
 
 // HIonisation selects the collisional ionisation rate of H0.
 type HIonisation int
@@ -31,11 +30,12 @@ type HIonisation int
 const (
 	// VoronovH is Voronov (1997) for H0 collisional ionisation and its
 	// ionisation cooling (13.6 eV per ionisation). It puts the H peak on
-	// the Cloudy-based Wiersma et al. (2009) value to within 1% (cooling
-	// reference §5.3). The default.
+	// the Cloudy-based Wiersma et al. (2009) value to within 1%
+	// (measured). The default.
 	VoronovH HIonisation = iota
 	// KWH96H is the Cen (1992)/KWH96 rate Γ_eH0 and cooling term, for
-	// comparison (24–54% high at the H peak; cooling reference §5.1).
+	// comparison (24–54% high at the H peak against Wiersma et al. 2009 and
+	// Sutherland & Dopita 1993, measured).
 	KWH96H
 )
 
@@ -111,8 +111,8 @@ type Ionisation struct {
 }
 
 // PrimordialCooling is the breakdown of the primordial cooling function,
-// every term per n_H² in erg cm³ s⁻¹ (the density products of cooling
-// reference §4.1 divided by n_H²).
+// every term per n_H² in erg cm³ s⁻¹ (the density products of Cen 1992's
+// cooling terms divided by n_H²).
 type PrimordialCooling struct {
 	ExcitationH0      model.CoolingRate // collisional excitation of H0
 	ExcitationHep     model.CoolingRate // collisional excitation of He+
@@ -135,8 +135,8 @@ func (c PrimordialCooling) Total() model.CoolingRate {
 // The voronovH… constants are the Voronov (1997) fit coefficients for H I
 // as given in cion.dat of Debian's mocassin-data (first row, "13.6 0.
 // 2.91E-08 0.2320 0.39"), read in the column order ΔE [eV], P,
-// A [cm³ s⁻¹], X, K (cooling reference §2 and §5.3; the column order is to
-// be checked against Voronov 1997).
+// A [cm³ s⁻¹], X, K (the column order is to be checked against Voronov
+// 1997).
 const (
 	voronovHdE = 13.6    // ΔE, eV
 	voronovHP  = 0.0     // P
@@ -153,24 +153,24 @@ type rates struct {
 
 // cenRates returns the Cen (1992)/KWH96 rate coefficients at T (K) > 0,
 // with Voronov (1997) for Γ_eH0 unless opt says otherwise. T_n = T/10^n,
-// f = (1 + T_5^{1/2})⁻¹. All from KWH96 via cooling reference §4.1
-// (SECONDARY) except the Voronov rate.
+// f = (1 + T_5^{1/2})⁻¹. All from KWH96 via public code (SECONDARY) except
+// the Voronov rate.
 func cenRates(T float64, opt PrimordialOptions) rates {
 	sqrtT := math.Sqrt(T)
 	f := 1 / (1 + math.Sqrt(T/1e5))
 	sup := math.Pow(T/1e3, -0.2) / (1 + math.Pow(T/1e6, 0.7)) // T3^-0.2/(1+T6^0.7)
 	r := rates{
-		aHp:   8.40e-11 / sqrtT * sup,                                                          // α_H+, KWH96 via §4.1
-		aHep:  1.50e-10 * math.Pow(T, -0.6353),                                                 // α_He+, KWH96 via §4.1
-		ad:    1.9e-3 * math.Pow(T, -1.5) * math.Exp(-470000/T) * (1 + 0.3*math.Exp(-94000/T)), // α_d, KWH96 via §4.1
-		aHepp: 3.36e-10 / sqrtT * sup,                                                          // α_He++ = 4 α_H+, KWH96 via §4.1
-		gHe0:  2.38e-11 * sqrtT * math.Exp(-285335.4/T) * f,                                    // Γ_eHe0, KWH96 via §4.1
-		gHep:  5.68e-12 * sqrtT * math.Exp(-631515/T) * f,                                      // Γ_eHe+, KWH96 via §4.1
+		aHp:   8.40e-11 / sqrtT * sup,                                                          // α_H+, KWH96 (secondary)
+		aHep:  1.50e-10 * math.Pow(T, -0.6353),                                                 // α_He+, KWH96 (secondary)
+		ad:    1.9e-3 * math.Pow(T, -1.5) * math.Exp(-470000/T) * (1 + 0.3*math.Exp(-94000/T)), // α_d, KWH96 (secondary)
+		aHepp: 3.36e-10 / sqrtT * sup,                                                          // α_He++ = 4 α_H+, KWH96 (secondary)
+		gHe0:  2.38e-11 * sqrtT * math.Exp(-285335.4/T) * f,                                    // Γ_eHe0, KWH96 (secondary)
+		gHep:  5.68e-12 * sqrtT * math.Exp(-631515/T) * f,                                      // Γ_eHe+, KWH96 (secondary)
 	}
 	if opt.HIonisation == KWH96H {
-		r.gH0 = 5.85e-11 * sqrtT * math.Exp(-157809.1/T) * f // Γ_eH0, KWH96 via §4.1
+		r.gH0 = 5.85e-11 * sqrtT * math.Exp(-157809.1/T) * f // Γ_eH0, KWH96 (secondary)
 	} else {
-		r.gH0 = voronovRate(T) // Γ_eH0, Voronov 1997 via cion.dat (§5.3; to be checked against the paper)
+		r.gH0 = voronovRate(T) // Γ_eH0, Voronov 1997 via cion.dat (to be checked against the paper)
 	}
 	return r
 }
@@ -180,7 +180,7 @@ func cenRates(T float64, opt PrimordialOptions) rates {
 //
 //	k = A (1 + P U^{1/2}) U^K e^{−U} / (X + U),  U = ΔE/(k_B T),
 //
-// (functional form FROM MEMORY, cooling reference §5.3; coefficients from
+// (Voronov 1997; functional form FROM MEMORY; coefficients from
 // cion.dat, see voronovHA).
 func voronovRate(T float64) float64 {
 	u := voronovHdE * model.ElectronVolt / (model.Boltzmann * T)
@@ -188,15 +188,14 @@ func voronovRate(T float64) float64 {
 }
 
 // balance solves the CIE ionisation balance with no radiation field
-// (cooling reference §4.1, algebra DERIVED):
+// (algebra DERIVED from the rates; KWH96's form too, from memory):
 //
 //	n_H0/n_H = α_H+/(α_H+ + Γ_eH0),
 //	n_He0 : n_He+ : n_He++ = (α_He+ + α_d)/Γ_eHe0 : 1 : Γ_eHe+/α_He++,
 //	n_e = n_H+ + n_He+ + 2 n_He++.
 //
 // A rate that underflows to zero at low T (Γ_eHe0 below a few hundred K in
-// float64) gives the all-neutral limit, never NaN (cooling reference §4.1,
-// Go implementation note).
+// float64) gives the all-neutral limit, never NaN (cloudwind's guard).
 func balance(r rates, y float64) Ionisation {
 	var s Ionisation
 	// Hydrogen.
@@ -246,7 +245,7 @@ func neutralIonisation() Ionisation { return Ionisation{XH0: 1, XHe0: 1} }
 
 // PrimordialIonisation returns the CIE ionisation state of hydrogen and
 // helium at temperature t for a helium-to-hydrogen number ratio y, with no
-// radiation field (cooling reference §4.1).
+// radiation field (the rates of cenRates).
 //
 // Special cases are:
 //
@@ -267,7 +266,8 @@ func PrimordialIonisation(t model.Temperature, y float64, opt PrimordialOptions)
 // NeOverNH returns n_e/n_H of hydrogen and helium in CIE at temperature t
 // for y = n_He/n_H, with the default rates (Voronov 1997 for H). Metal
 // electrons are neglected: ≤1% above 10^5 K, more below 2×10^4 K where H is
-// partly neutral and metals supply electrons (cooling reference §1). Its
+// partly neutral and metals supply electrons (measured: Sutherland &
+// Dopita 1993 solar has n_e/n_H = 1.209 against 1.196 from H+He). Its
 // signature suits a loader that converts per-n_e-n_H tables to n_H².
 // Special cases are those of PrimordialIonisation.
 func NeOverNH(t model.Temperature, y float64) float64 {
@@ -276,11 +276,11 @@ func NeOverNH(t model.Temperature, y float64) float64 {
 
 // PrimordialCIE returns the CIE ionisation state and the cooling function
 // of hydrogen and helium at temperature t, per n_H², for y = n_He/n_H. The
-// cooling terms are those of Cen (1992) as adopted by KWH96 (cooling
-// reference §4.1), each multiplied by its density product and divided by
-// n_H²; with VoronovH the H ionisation cooling is 13.6 eV × the Voronov
-// rate (cooling reference §4.1, §5.3), and with HepBlack81 (the default)
-// the He+ excitation term lacks Cen's factor (see HepExcitation).
+// cooling terms are those of Cen (1992) as adopted by KWH96 (SECONDARY, see
+// cenRates), each multiplied by its density product and divided by n_H²;
+// with VoronovH the H ionisation cooling is 13.6 eV × the Voronov rate
+// (derived: the KWH96 term is 13.6 eV × its rate), and with HepBlack81 (the
+// default) the He+ excitation term lacks Cen's factor (see HepExcitation).
 //
 // Special cases are:
 //
@@ -305,38 +305,37 @@ func PrimordialCIE(t model.Temperature, y float64, opt PrimordialOptions) (Ionis
 	nH0, nHp := s.XH0, s.XHp                           // per n_H
 	nHe0, nHep, nHepp := y*s.XHe0, y*s.XHep, y*s.XHepp // per n_H
 	var c PrimordialCooling
-	c.ExcitationH0 = model.CoolingRate(7.50e-19 * math.Exp(-118348/T) * f * ne * nH0) // KWH96 via §4.1
-	// He+ excitation: the KWH96 coefficient (via cooling reference §4.1,
-	// SECONDARY) with Cen's factor f only for HepKWH96; without it, the
-	// form attributed to Black (1981) (SECONDARY, from memory), which
-	// matches Gnat & Ferland (2012) Table 1B to 0.90–1.02 over
-	// 7×10^4–1.2×10^5 K (cooling reference §12.2; measured).
+	c.ExcitationH0 = model.CoolingRate(7.50e-19 * math.Exp(-118348/T) * f * ne * nH0) // KWH96 (secondary)
+	// He+ excitation: the KWH96 coefficient (SECONDARY) with Cen's factor f
+	// only for HepKWH96; without it, the form attributed to Black (1981)
+	// (SECONDARY, from memory), which matches Gnat & Ferland (2012) Table
+	// 1B to 0.90–1.02 over 7×10^4–1.2×10^5 K (measured).
 	hep := 5.54e-17 * math.Pow(T, -0.397) * math.Exp(-473638/T)
 	if opt.HepExcitation == HepKWH96 {
 		hep *= f
 	}
 	c.ExcitationHep = model.CoolingRate(hep * ne * nHep)
 	if opt.HIonisation == KWH96H {
-		c.IonisationH0 = model.CoolingRate(1.27e-21 * sqrtT * math.Exp(-157809.1/T) * f * ne * nH0) // KWH96 via §4.1
+		c.IonisationH0 = model.CoolingRate(1.27e-21 * sqrtT * math.Exp(-157809.1/T) * f * ne * nH0) // KWH96 (secondary)
 	} else {
-		c.IonisationH0 = model.CoolingRate(voronovHdE * model.ElectronVolt * r.gH0 * ne * nH0) // 13.6 eV × Voronov rate, §4.1/§5.3
+		c.IonisationH0 = model.CoolingRate(voronovHdE * model.ElectronVolt * r.gH0 * ne * nH0) // 13.6 eV × Voronov rate (derived)
 	}
-	c.IonisationHe0 = model.CoolingRate(9.38e-22 * sqrtT * math.Exp(-285335.4/T) * f * ne * nHe0)                                        // KWH96 via §4.1
-	c.IonisationHep = model.CoolingRate(4.95e-22 * sqrtT * math.Exp(-631515/T) * f * ne * nHep)                                          // KWH96 via §4.1
-	c.RecombinationHp = model.CoolingRate(8.70e-27 * sqrtT * sup * ne * nHp)                                                             // KWH96 via §4.1
-	c.RecombinationHep = model.CoolingRate(1.55e-26 * math.Pow(T, 0.3647) * ne * nHep)                                                   // KWH96 via §4.1
-	c.RecombinationHepp = model.CoolingRate(3.48e-26 * sqrtT * sup * ne * nHepp)                                                         // KWH96 via §4.1
-	c.DielectronicHep = model.CoolingRate(1.24e-13 * math.Pow(T, -1.5) * math.Exp(-470000/T) * (1 + 0.3*math.Exp(-94000/T)) * ne * nHep) // KWH96 via §4.1
+	c.IonisationHe0 = model.CoolingRate(9.38e-22 * sqrtT * math.Exp(-285335.4/T) * f * ne * nHe0)                                        // KWH96 (secondary)
+	c.IonisationHep = model.CoolingRate(4.95e-22 * sqrtT * math.Exp(-631515/T) * f * ne * nHep)                                          // KWH96 (secondary)
+	c.RecombinationHp = model.CoolingRate(8.70e-27 * sqrtT * sup * ne * nHp)                                                             // KWH96 (secondary)
+	c.RecombinationHep = model.CoolingRate(1.55e-26 * math.Pow(T, 0.3647) * ne * nHep)                                                   // KWH96 (secondary)
+	c.RecombinationHepp = model.CoolingRate(3.48e-26 * sqrtT * sup * ne * nHepp)                                                         // KWH96 (secondary)
+	c.DielectronicHep = model.CoolingRate(1.24e-13 * math.Pow(T, -1.5) * math.Exp(-470000/T) * (1 + 0.3*math.Exp(-94000/T)) * ne * nHep) // KWH96 (secondary)
 	// Free-free with KWH96's coefficient 1.42e-27 (0.4% below the
 	// Rybicki & Lightman value FreeFreePrefactor) and Gaunt factor.
-	c.FreeFree = model.CoolingRate(1.42e-27 * GauntKWH96(t) * sqrtT * (nHp + nHep + 4*nHepp) * ne) // KWH96 via §4.1
+	c.FreeFree = model.CoolingRate(1.42e-27 * GauntKWH96(t) * sqrtT * (nHp + nHep + 4*nHepp) * ne) // KWH96 (secondary)
 	return s, c
 }
 
 // Primordial returns the primordial CIE cooling curve Λ_H+He(T) per n_H²
 // for y = n_He/n_H, sampled every 0.01 dex from 10^4 to 10^9 K (the range
-// over which the rates were compared with Cloudy-based tables, cooling
-// reference §5.1). The source computes Λ per n_H² directly.
+// over which the rates were compared with Cloudy-based tables: measured
+// against Wiersma et al. 2009). The source computes Λ per n_H² directly.
 func Primordial(y float64, opt PrimordialOptions) (*PowerLaw, error) {
 	if math.IsNaN(y) || math.IsInf(y, 0) || y < 0 {
 		return nil, fmt.Errorf("helium ratio y = %g: want a finite y ≥ 0", y)

@@ -16,8 +16,8 @@ import (
 
 // Checks against the Sutherland & Dopita (1993, ApJS 88, 253; journal
 // reference from memory) CIE tables that Debian's python3-pydl installs
-// (cooling reference §12.1; pydl 1.0.0~rc2-4 in Debian 12), loaded the way
-// the README tells a user to load them.
+// (pydl 1.0.0~rc2-4 in Debian 12), loaded the way the README tells a user
+// to load them.
 
 // sdDir returns pydl's cooling-table directory. When python3-pydl is
 // missing the test fails under CI=true (.ci/run installs it) and is
@@ -76,7 +76,7 @@ func sdLoad(t *testing.T, path string, settings ...string) (xs, ys []float64) {
 type sdRow struct{ logT, ne, nH, nt, net, norm float64 }
 
 // sdRows reads the rows of an SD93 file directly (4 header lines, then
-// whitespace-separated columns; cooling reference §3.1), keyed by log T
+// whitespace-separated columns, as the authors' files are), keyed by log T
 // in hundredths.
 func sdRows(t *testing.T, path string) map[int]sdRow {
 	t.Helper()
@@ -106,15 +106,15 @@ func sdRows(t *testing.T, path string) map[int]sdRow {
 	return rows
 }
 
-// sdCheck is a row of cooling reference §12.1's table (file values,
-// CONFIRMED there from the package's files) with ratios measured at that
-// temperature, per n_H²: the built-in against the file (at Z = 1 against
-// m-00, solar; without metals, builtin-hhe with y = 0.0851, against mzero,
-// y ≈ 0.064), and for mzero also the H+He solver at the file's y = 0.064,
-// with the default rates and with KWH96's as published.
+// sdCheck is a row of an SD93 file (file values, as the python3-pydl copies
+// print them) with ratios measured at that temperature, per n_H²: the
+// built-in against the file (at Z = 1 against m-00, solar; without metals,
+// builtin-hhe with y = 0.0851, against mzero, y ≈ 0.064), and for mzero
+// also the H+He solver at the file's y = 0.064, with the default rates and
+// with KWH96's as published.
 type sdCheck struct {
 	logT      float64
-	ne        string  // n_e as §12.1 prints it (its digits set the check's precision)
+	ne        string  // n_e as the file prints it (its digits set the check's precision)
 	net, norm float64 // log Λ_net, log Λ_N as printed (2 decimals, as in the file)
 	ratio     float64 // built-in / SD93, measured
 	y064      float64 // PrimordialCIE(y = 0.064) / mzero, measured (mzero only)
@@ -133,15 +133,14 @@ func sdPrinted(v float64, s string) bool {
 }
 
 // TestSutherlandDopita93 loads m-00.cie and mzero.cie exactly as the README
-// tells a user to (`--table 'skip: 4' --table 'norm: nH2' --table
-// 'columns: T=1 lambda=5'`, through Resolve), checks the node values of
-// cooling reference §12.1 (exact to the printed digits), checks the
-// normalisation conversion from Λ_N (norm nent with the ne, nH and nt
-// columns) against Λ_net (§8 row 11: 0.02 dex, the rounding of the
-// printed logs), and measures the built-in against both files at the
-// temperatures of §12.1's table. The ratios are regression bounds (±2%,
-// which also covers the files' rounding to 0.005 dex): they document how
-// far apart the curves are, not an accuracy target.
+// tells a user to (`--table 'skip: 4' --table 'norm: nH2' --table 'columns:
+// T=1 lambda=5'`, through Resolve), checks the node values of the files
+// (exact to the printed digits), checks the normalisation conversion from
+// Λ_N (norm nent with the ne, nH and nt columns) against Λ_net (0.02 dex,
+// the rounding of the printed logs), and measures the built-in against both
+// files at the temperatures of the rows below. The ratios are regression
+// bounds (±2%, which also covers the files' rounding to 0.005 dex): they
+// document how far apart the curves are, not an accuracy target.
 func TestSutherlandDopita93(t *testing.T) {
 	dir := sdDir(t)
 	settings := []string{"skip: 4", "norm: nH2", "columns: T=1 lambda=5"} // README, "Your own cooling table"
@@ -152,24 +151,24 @@ func TestSutherlandDopita93(t *testing.T) {
 		rows []sdCheck
 	}{
 		{"m-00.cie", 1, []sdCheck{
-			// §12.1 row 4.00: the built-in's CIE value at 10^4 K, 1.22e-26
+			// file row 4.00: the built-in's CIE value at 10^4 K, 1.22e-26
 			// (the bottom CIE node; the cap of the KI02 part), against
 			// SD93's 2.24e-26, both collapsing there: 0.546 (measured).
 			{logT: 4.00, ne: "0.0023", net: -25.65, norm: -23.06, ratio: 0.5462},
-			{logT: 4.20, ne: "0.568", net: -21.99, norm: -21.79, ratio: 0.8734}, // §12.1 row 4.20; measured
-			// §12.1 row 5.00: SD93 solar 2.1× the built-in (measured 0.479;
-			// §12.1 reported 2.2× before the He II change).
+			{logT: 4.20, ne: "0.568", net: -21.99, norm: -21.79, ratio: 0.8734}, // file row 4.20; measured
+			// file row 5.00: SD93 solar 2.1× the built-in (measured 0.479;
+			// an earlier measurement gave 2.2× before the He II change).
 			{logT: 5.00, ne: "1.188", net: -20.87, norm: -20.99, ratio: 0.4786},
-			{logT: 5.35, ne: "1.201", net: -20.84, norm: -20.96, ratio: 0.4956}, // §12.1 row 5.35, SD93's peak; measured
-			{logT: 6.00, ne: "1.205", net: -21.84, norm: -21.96, ratio: 1.025},  // §12.1 row 6.00; measured (§12.1: within 2% before)
-			{logT: 7.00, ne: "1.209", net: -22.45, norm: -22.57, ratio: 0.9808}, // §12.1 row 7.00; measured
-			{logT: 8.00, ne: "1.209", net: -22.46, norm: -22.58, ratio: 0.7859}, // §12.1 row 8.00; measured
+			{logT: 5.35, ne: "1.201", net: -20.84, norm: -20.96, ratio: 0.4956}, // file row 5.35, SD93's peak; measured
+			{logT: 6.00, ne: "1.205", net: -21.84, norm: -21.96, ratio: 1.025},  // file row 6.00; measured (within 2% before the He II change)
+			{logT: 7.00, ne: "1.209", net: -22.45, norm: -22.57, ratio: 0.9808}, // file row 7.00; measured
+			{logT: 8.00, ne: "1.209", net: -22.46, norm: -22.58, ratio: 0.7859}, // file row 8.00; measured
 		}},
 		{"mzero.cie", 0, []sdCheck{
-			// §12.1 rows; ratios measured. At the file's y the default H+He is
+			// File rows; ratios measured. At the file's y the default H+He is
 			// 1.2–1.3× mzero in the He+ region (He+ excitation without Cen's
-			// factor), KWH96 as published 0.80–0.83 (cooling reference §5.1:
-			// 0.73–0.87 over 10^4.8–10^5.7 K).
+			// factor), KWH96 as published 0.80–0.83 (a Python prototype of the
+			// same rates measured 0.73–0.87 over 10^4.8–10^5.7 K).
 			{logT: 4.20, ne: "0.567", net: -22.12, norm: -21.90, ratio: 1.034, y064: 1.034, kwh064: 0.9943},
 			{logT: 5.00, ne: "1.121", net: -22.25, norm: -22.33, ratio: 1.765, y064: 1.313, kwh064: 0.7979},
 			{logT: 5.35, ne: "1.128", net: -22.89, norm: -22.97, ratio: 1.585, y064: 1.227, kwh064: 0.8336},
@@ -182,20 +181,20 @@ func TestSutherlandDopita93(t *testing.T) {
 		xs, ys := sdLoad(t, path, settings...)
 		xn, yn := sdLoad(t, path, "skip: 4", "norm: nent", "columns: T=1 lambda=6 ne=2 nH=3 nt=4")
 		if len(xs) != 91 || xs[0] != 4 || xs[90] != 8.5 || len(xn) != len(xs) {
-			t.Fatalf("%s: %d nodes from 10^%g K (nent: %d), want 91 from 10^4 to 10^8.5 K (cooling reference §3.1)", tc.file, len(xs), xs[0], len(xn))
+			t.Fatalf("%s: %d nodes from 10^%g K (nent: %d), want 91 from 10^4 to 10^8.5 K (the SD93 grid)", tc.file, len(xs), xs[0], len(xn))
 		}
 		raw := sdRows(t, path)
 		p := mustAt(t, b, tc.z)
 		for _, c := range tc.rows {
 			i := int(math.Round((c.logT - 4) / 0.05))
 			r := raw[int(math.Round(c.logT*100))]
-			// The file values of §12.1, exact to the printed digits.
+			// The file values, exact to the printed digits.
 			if xs[i] != c.logT || ys[i] != c.net || !sdPrinted(r.ne, c.ne) || r.norm != c.norm || r.nH != 1 {
-				t.Errorf("%s at log T = %.2f: node (%g, %g), n_e %g, n_H %g, log Λ_N %g; want (%g, %g), n_e %s, n_H 1, log Λ_N %g (cooling reference §12.1)",
+				t.Errorf("%s at log T = %.2f: node (%g, %g), n_e %g, n_H %g, log Λ_N %g; want (%g, %g), n_e %s, n_H 1, log Λ_N %g (SD93 file values)",
 					tc.file, c.logT, xs[i], ys[i], r.ne, r.nH, r.norm, c.logT, c.net, c.ne, c.norm)
 			}
 			// The nent load: Λ_N n_e n_t/n_H² from the file's own columns
-			// (cooling reference §1), and that reproduces Λ_net (§8 row 11).
+			// (derived from the normalisations), and that reproduces Λ_net.
 			if want := c.norm + math.Log10(r.ne*r.nt/(r.nH*r.nH)); math.Abs(yn[i]-want) > 1e-12 || math.Abs(yn[i]-c.net) > 0.02 {
 				t.Errorf("%s at log T = %.2f: nent load gives log Λ = %.4f, want log Λ_N + log(n_e n_t/n_H²) = %.4f and Λ_net %.2f ± 0.02 dex",
 					tc.file, c.logT, yn[i], want, c.net)

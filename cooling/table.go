@@ -9,7 +9,7 @@ import (
 	"cloudwind/model"
 )
 
-// User cooling tables (cooling reference §9.3). ParseTable reads a plain-text
+// User cooling tables (cloudwind's format). ParseTable reads a plain-text
 // table, validates it and converts every Λ column to n_H² once; Table.At
 // then builds the *PowerLaw for a metallicity.
 
@@ -23,14 +23,16 @@ const (
 )
 
 // Plausibility window for Λ per n_H² at T ≥ 10^4.5 K: it catches SI-versus-
-// cgs (a 10^-13 factor) and forgotten logarithms (cooling reference §9.3).
+// cgs (a 10^-13 factor) and forgotten logarithms (cloudwind's choice).
 const (
 	plausibleMinLog10T = 4.5
 	plausibleMin       = 1e-26 // erg cm³ s⁻¹
 	plausibleMax       = 1e-19 // erg cm³ s⁻¹
 )
 
-// Thresholds of load warnings (cooling reference §9.3 and §1).
+// Thresholds of load warnings (cloudwind's choices; below 2×10^4 K H is
+// partly neutral and metals supply electrons, so n_e/n_H from H+He alone is
+// unreliable).
 const (
 	wideStepDex      = 0.2   // warn about coarser log T steps
 	fallbackNeBelow  = 2e4   // K; n_e/n_H from a fallback is unreliable below
@@ -157,7 +159,8 @@ type Table struct {
 //
 // # Conversion and validation
 //
-// Λ is converted to n_H² once (cooling reference §1):
+// Λ is converted to n_H² once (derived from the definitions of the
+// normalisations):
 // Λ_hd = (n_e/n_H) Λ_nenH = (n_e/n_H)(n_t/n_H) Λ_N; n2 is treated as nH2
 // with a warning. The source's normalisation is kept in Meta. ParseTable
 // rejects non-numeric, NaN or infinite values, ragged rows, fewer than 2
@@ -220,7 +223,7 @@ func (t *Table) ZRange() (lo, hi float64, ok bool) {
 }
 
 // At returns the cooling curve at metallicity z (Z/Z☉), per n_H², with
-// nodes at the table's temperatures (cooling reference §9.3):
+// nodes at the table's temperatures (cloudwind's rules):
 //
 //   - HHe+metals form: Λ = Λ_HHe + z Λ_metals,☉ for any z ≥ 0, with a
 //     warning in Meta above 3 Z☉ (W09's metal scaling by n_e/n_H is not
@@ -269,7 +272,7 @@ func (t *Table) At(z float64) (*PowerLaw, error) {
 			}
 			break
 		}
-		w := (z - t.z[j]) / (t.z[j+1] - t.z[j]) // linear in Z (cooling reference §9.3)
+		w := (z - t.z[j]) / (t.z[j+1] - t.z[j]) // linear in Z (cloudwind's choice: Λ is affine in Z)
 		for i := range ys {
 			ys[i] = math.Log10((1-w)*t.lambda[j][i] + w*t.lambda[j+1][i])
 		}

@@ -13,7 +13,8 @@ import (
 const minNormal = 0x1p-1022
 
 // buildTable validates raw rows, drops the clipped ones, converts Λ to n_H²
-// and checks magnitudes (cooling reference §1 and §9.3).
+// and checks magnitudes (the conversion derived from the normalisations,
+// the checks cloudwind's choice).
 func buildTable(raw *rawTable) (*Table, error) {
 	s := raw.set
 	warn := append([]string(nil), raw.warnings...)
@@ -145,7 +146,7 @@ func (raw *rawTable) heats(i int) bool {
 }
 
 // decideLogT applies the log T rule: auto means log when every T < 20; an
-// explicit setting must agree with the data (cooling reference §9.3).
+// explicit setting must agree with the data (cloudwind's rule).
 func decideLogT(raw *rawTable, given *bool) (bool, error) {
 	big := -1 // first row with T ≥ 20
 	for i, v := range raw.t {
@@ -193,7 +194,8 @@ func decideLogLambda(raw *rawTable, given *bool) (bool, error) {
 }
 
 // conversion returns, for the rows from first on, the factor that turns the
-// table's Λ into Λ per n_H² (cooling reference §1):
+// table's Λ into Λ per n_H² (derived from L = n_H² Λ_hd = n_e n_H Λ_nenH =
+// n_e n_t Λ_N):
 //
 //	nH2, n2: 1;  nenH: n_e/n_H;  nent: (n_e/n_H)(n_t/n_H).
 func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, []string, error) {
@@ -241,7 +243,7 @@ func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, [
 				return nil, nil, &ParseError{Line: raw.line[i], Err: fmt.Errorf("n_e/n_H = %s from NeOverNH at T = %s K: %w", num(ne), model.FormatNumber(math.Pow(10, x[i]), 4), ErrNonPositive)}
 			}
 		default:
-			ne = 1 + 2*s.y // fully ionised H+He (cooling reference §1)
+			ne = 1 + 2*s.y // fully ionised H+He (derived: n_e = n_H + 2 n_He)
 		}
 		if s.neCol == 0 && x[i] < math.Log10(fallbackNeBelow) {
 			lowT = true
@@ -272,7 +274,7 @@ func (raw *rawTable) conversion(first int, x []float64, logT bool) ([]float64, [
 
 // plausible checks a converted column (lam, or lam + metals at Z☉ when
 // metals is not nil) at T ≥ 10^4.5 K against (1e-26, 1e-19) erg cm³ s⁻¹
-// (cooling reference §9.3).
+// (cloudwind's plausibility window).
 func (raw *rawTable) plausible(log10T []float64, first int, lam, metals []float64, col int) error {
 	for k, x := range log10T {
 		if x < plausibleMinLog10T {

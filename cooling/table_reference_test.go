@@ -19,9 +19,9 @@ func tblReferenceDir(t *testing.T) string {
 }
 
 // TestTableChiantiReference loads the CHIANTI reference files by naming
-// their columns and checks nodes (cooling reference §8 rows 17–20, file
-// values per n_e n_H, exact at nodes to 0.001 dex), converted here with
-// the fully ionised n_e/n_H = 1+2y (§1) at y = 0.0851 (He/H of the files'
+// their columns and checks nodes (file values of Ryden & Pogge 2021, per
+// n_e n_H, exact at nodes to 0.001 dex), converted here with the fully
+// ionised n_e/n_H = 1+2y (derived) at y = 0.0851 (He/H of the files'
 // GS98 abundances, 10^(10.93−12); from memory).
 func TestTableChiantiReference(t *testing.T) {
 	dir := tblReferenceDir(t)

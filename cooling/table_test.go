@@ -49,8 +49,8 @@ const tblOwn = "# cloudwind-table\n" +
 	"6.0 -22.3 -22.1 -21.8\n"
 
 // TestParseTableMalformed gives one malformed input per sentinel error and
-// checks the *ParseError and its line (cooling reference §9.3 validation
-// list; lines counted by hand).
+// checks the *ParseError and its line (ParseTable's validation list; lines
+// counted by hand).
 func TestParseTableMalformed(t *testing.T) {
 	nh2 := TableOptions{Norm: ptr(PerNH2)}
 	own := "# cloudwind-table\n# norm: nH2\n"
@@ -164,8 +164,8 @@ func TestParseTableLimits(t *testing.T) {
 }
 
 // TestParseTableOwnLayout loads the directive file and checks conversion
-// and metadata (cooling reference §1: Λ_hd = (n_e/n_H) Λ_nenH; the 1+2y
-// fallback of §1).
+// and metadata (derived: Λ_hd = (n_e/n_H) Λ_nenH; the fully ionised 1+2y
+// fallback).
 func TestParseTableOwnLayout(t *testing.T) {
 	tab := tblParse(t, tblOwn, TableOptions{})
 	m := tab.Meta()
@@ -175,7 +175,7 @@ func TestParseTableOwnLayout(t *testing.T) {
 	if lo, hi, ok := tab.ZRange(); lo != 0.1 || hi != 1 || !ok {
 		t.Errorf("ZRange() = %g, %g, %v; want 0.1, 1, true", lo, hi, ok)
 	}
-	shift := math.Log10(1 + 2*0.0851) // derived, §1
+	shift := math.Log10(1 + 2*0.0851) // derived, fully ionised n_e/n_H
 	rows := [][]float64{{4.5, -21.9, -21.8, -21.5}, {5.0, -21.7, -21.4, -21.0}, {5.5, -21.8, -21.5, -21.1}, {6.0, -22.3, -22.1, -21.8}}
 	for j, z := range []float64{0.1, 0.3, 1} {
 		xs, ys := tblNodes(t, tab, z)
@@ -211,7 +211,7 @@ func tblHasWarning(ws []string, sub string) bool {
 }
 
 // TestTableLinearZ checks linear interpolation in Z, node by node, and the
-// range (cooling reference §9.3: linear in Z, not log Z; error outside).
+// range (cloudwind's rule: linear in Z, not log Z; error outside).
 func TestTableLinearZ(t *testing.T) {
 	src := "4.5 1e-22 2e-22 6e-22\n5 2e-22 3e-22 7e-22\n6 1e-23 2e-23 5e-23\n"
 	tab := tblParse(t, src, TableOptions{Norm: ptr(PerNH2), LambdaColumns: []int{2, 3, 4}, Z: []float64{0, 0.5, 2}})
@@ -235,7 +235,8 @@ func TestTableLinearZ(t *testing.T) {
 	}
 }
 
-// tblW09 writes a W09 z_collis-style table (cooling reference §3.2): T
+// tblW09 writes a table in the style of Wiersma, Schaye & Smith 2009's CIE
+// "z_collis" table (columns as its README describes them): T
 // linear from 10^2 to 10^9 K every 0.25 dex; Λ_HHe/n_H², n_e/n_H, metals
 // only, then two element columns. Values are synthetic; the low-T rows are
 // negative (net heating) as in the real files.
@@ -257,7 +258,7 @@ func tblW09() (string, [][3]float64) {
 }
 
 // TestTableW09 loads the W09-style table through its HHe and metals
-// columns (cooling reference §8 row 16: Λ_HHe + 0.3 Λ_met at nodes, exact).
+// columns (derived: Λ_HHe + 0.3 Λ_met at nodes, exact).
 func TestTableW09(t *testing.T) {
 	src, rows := tblW09()
 	opt := TableOptions{Norm: ptr(PerNH2), HHeColumn: 2, MetalsColumn: 4, NeColumn: 3}
@@ -306,10 +307,10 @@ func tblRound(v float64) float64 {
 	return r
 }
 
-// tblSD93 writes a Sutherland & Dopita 1993-style CIE file (cooling reference
-// §3.1): 4 header lines, 12 columns, log T 4.0–8.5 every 0.05, n_H = 1.000,
-// log(lambda net) per n_H² and log(lambda norm) = log(net/(n_e n_t)), both
-// printed to 2 decimals. Values are synthetic.
+// tblSD93 writes a Sutherland & Dopita 1993-style CIE file (the format of
+// the authors' files): 4 header lines, 12 columns, log T 4.0–8.5 every
+// 0.05, n_H = 1.000, log(lambda net) per n_H² and log(lambda norm) =
+// log(net/(n_e n_t)), both printed to 2 decimals. Values are synthetic.
 func tblSD93() (src string, lognet, ne, nt []float64) {
 	var b strings.Builder
 	b.WriteString("CIE cooling curve (synthetic)\nSolar abundances\n\n" +
@@ -328,8 +329,8 @@ func tblSD93() (src string, lognet, ne, nt []float64) {
 }
 
 // TestTableSD93 loads the SD93-style file by its net column (per n_H²) and
-// by its norm column converted with the file's n_e, n_H and n_t (cooling
-// reference §8 rows 9–11: nodes exact; conversion within 0.02 dex).
+// by its norm column converted with the file's n_e, n_H and n_t (nodes
+// exact; conversion within 0.02 dex, the rounding of the printed logs).
 func TestTableSD93(t *testing.T) {
 	src, lognet, ne, nt := tblSD93()
 	net := tblParse(t, src, TableOptions{SkipLines: 4, Norm: ptr(PerNH2), LambdaColumns: []int{5}})
@@ -348,7 +349,7 @@ func TestTableSD93(t *testing.T) {
 		if math.Abs(yn[i]-lognet[i]) > 0.02 {
 			t.Errorf("SD93 norm × n_e n_t: node %d log Λ = %.4f, net column %g (want within 0.02 dex)", i, yn[i], lognet[i])
 		}
-		// Exact conversion of the norm column (§1: Λ_hd = (n_e/n_H)(n_t/n_H) Λ_N).
+		// Exact conversion of the norm column (derived: Λ_hd = (n_e/n_H)(n_t/n_H) Λ_N).
 		want := math.Round((lognet[i]-math.Log10(ne[i]*nt[i]))*100)/100 + math.Log10(ne[i]*nt[i])
 		if !scalar.EqualWithinAbs(yn[i], want, 1e-12) {
 			t.Errorf("SD93 norm: node %d log Λ = %.15g, want %.15g", i, yn[i], want)
@@ -359,7 +360,8 @@ func TestTableSD93(t *testing.T) {
 	}
 }
 
-// tblChianti writes a CHIANTI-style file (cooling reference §7): '#'
+// tblChianti writes a file in the style of Ryden & Pogge 2021's CHIANTI
+// curves: '#'
 // comments, an uncommented column-name row, log T from 4 to 5 every
 // 0.01 and log Λ per n_e n_H. Values are synthetic.
 func tblChianti() (string, []float64) {
@@ -377,7 +379,7 @@ func tblChianti() (string, []float64) {
 }
 
 // TestTableChianti loads the CHIANTI-style file by naming its columns and
-// converts per n_e n_H to n_H² with a caller's n_e/n_H (cooling reference §1).
+// converts per n_e n_H to n_H² with a caller's n_e/n_H (derived).
 func TestTableChianti(t *testing.T) {
 	src, total := tblChianti()
 	neOverNH := func(T model.Temperature, y float64) float64 { return (1 + 2*y) * float64(T) / (float64(T) + 1e4) }
@@ -387,7 +389,7 @@ func TestTableChianti(t *testing.T) {
 	}
 	xs, ys := tblNodes(t, tab, math.NaN())
 	for i := range ys {
-		// Λ_hd = (n_e/n_H) Λ_nenH (§1), with the caller's n_e/n_H.
+		// Λ_hd = (n_e/n_H) Λ_nenH (derived), with the caller's n_e/n_H.
 		want := total[i] + math.Log10(neOverNH(model.Temperature(math.Pow(10, xs[i])), 0.0851))
 		if !scalar.EqualWithinAbs(ys[i], want, 1e-12) {
 			t.Errorf("CHIANTI-style node %d: log Λ = %.15g, want %.15g", i, ys[i], want)
@@ -405,7 +407,7 @@ func TestTableChianti(t *testing.T) {
 
 // TestTableFormat checks the accepted syntax: CRLF, commas, BOM, inline
 // comments, Fortran exponents, blank lines, an explicit header row, and the
-// auto-detected logs (cooling reference §9.3 format).
+// auto-detected logs (cloudwind's format).
 func TestTableFormat(t *testing.T) {
 	want := []float64{-22, math.Log10(2e-22), math.Log10(3e-22)}
 	for _, c := range []struct {
@@ -430,7 +432,7 @@ func TestTableFormat(t *testing.T) {
 			t.Errorf("%s: warnings %q, want the numeric header noted", c.name, tab.Meta().Warnings)
 		}
 	}
-	// n2 is read as n_H², with a warning (cooling reference §1).
+	// n2 is read as n_H², with a warning (cloudwind's choice: n² is ambiguous).
 	tab := tblParse(t, "4 -22\n5 -21\n", TableOptions{Norm: ptr(PerN2)})
 	if _, ys := tblNodes(t, tab, math.NaN()); ys[0] != -22 || !tblHasWarning(tab.Meta().Warnings, "ambiguous") {
 		t.Errorf("n2: log Λ = %g, warnings %q; want −22 and the ambiguity warning", ys[0], tab.Meta().Warnings)

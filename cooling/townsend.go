@@ -9,10 +9,10 @@ import (
 )
 
 // Exact cooling times on a piecewise power law (Townsend 2009, ApJS 181,
-// 391, arXiv:0901.3146; formulas as written in cooling reference §4.4 and
-// §9.5). On a segment where Λ = Λ_k (T/T_k)^{α_k} the integral of T^m/Λ has
-// a closed form, so summing segments is exact for the curve as interpolated:
-// there is no step size and no ODE solver.
+// 391, arXiv:0901.3146; the segment integrals and their inverse are derived
+// here). On a segment where Λ = Λ_k (T/T_k)^{α_k} the integral of T^m/Λ has
+// a closed form, so summing segments is exact for the curve as
+// interpolated: there is no step size and no ODE solver.
 
 // Process is the thermodynamic path of cooling gas.
 type Process int
@@ -37,7 +37,7 @@ func (pr Process) String() string {
 // held constant while it cools (see TimeToCool for what that costs).
 type Gas struct {
 	NH        model.NumberDensity // n_H at the initial temperature T0, cm⁻³; > 0
-	TotalPerH float64             // n_tot/n_H, all particles per H nucleus; fully ionised H+He: 2+3y (cooling reference §1); > 0
+	TotalPerH float64             // n_tot/n_H, all particles per H nucleus; fully ionised H+He: 2+3y (derived); > 0
 }
 
 // CoolingTime is the result of TimeToCool.
@@ -45,11 +45,12 @@ type CoolingTime struct {
 	Time model.Time // time to cool from T0 to T1, s
 	// FloorFraction is the fraction of Time accrued while the gas is within
 	// 0.1 dex above the effective floor, in [0, 1]; 0 when T1 lies more than
-	// 0.1 dex above it (cooling reference §9.4).
+	// 0.1 dex above it (cloudwind's choice).
 	FloorFraction float64
 	// FloorDominated is FloorFraction > 0.5: most of the time is spent just
 	// above the floor, so the answer depends mainly on where the floor is
-	// (cooling reference §9.4 and §5.4).
+	// (cloudwind's flag: in CIE, Λ collapses just above 10^4 K, measured on
+	// published tables).
 	FloorDominated bool
 	// Floor is the effective floor, max(floor, first node): Λ = 0 below
 	// the first node, so cooling stops there as it does at a floor.
@@ -57,11 +58,11 @@ type CoolingTime struct {
 }
 
 // floorBandDex is the width of the band above the floor whose share of the
-// time is reported (cooling reference §9.4).
+// time is reported (cloudwind's choice).
 const floorBandDex = 0.1
 
 // floorDominatedAbove is the FloorFraction above which a time is flagged
-// (cooling reference §9.4).
+// (cloudwind's choice).
 const floorDominatedAbove = 0.5
 
 // nodeTolerance is the relative distance below the first node within which
@@ -98,7 +99,7 @@ var (
 //	               = (T_k^{α_k}/Λ_k) ln(b/a)            (p = 0),
 //
 // evaluated as (a^{m+1}/Λ(a)) expm1(p ln(b/a))/p, which stays accurate as
-// p → 0 (Townsend 2009; cooling reference §9.5). m = 0 gives the isochoric
+// p → 0 (Townsend 2009). m = 0 gives the isochoric
 // and m = 1 the isobaric cooling time; other integers work too.
 //
 // Special cases are:
@@ -139,8 +140,8 @@ func (p *PowerLaw) clampToTable(lt float64) (float64, bool) {
 
 // integral returns ∫ T^{q−1}/Λ dT between ln T = la and lb, for
 // lnT[0] ≤ la ≤ lb (lb may be +Inf), as the sum over segments of
-// G(lo) expm1(p Δ)/p with G = T^q/Λ and p = q − α (Townsend 2009; cooling
-// reference §9.5). G is carried from node to node as G e^{pΔ} = G + G
+// G(lo) expm1(p Δ)/p with G = T^q/Λ and p = q − α (Townsend 2009). G is
+// carried from node to node as G e^{pΔ} = G + G
 // expm1(pΔ), so a whole segment costs one expm1.
 func (p *PowerLaw) integral(la, lb, q float64) float64 {
 	if !(lb > la) {
@@ -177,7 +178,7 @@ func (p *PowerLaw) integral(la, lb, q float64) float64 {
 		}
 		lo = hi
 	}
-	// The extension above the last node, Λ ∝ T^{1/2} (cooling reference §9.4).
+	// The extension above the last node, Λ ∝ T^{1/2} (range policy, see PowerLaw).
 	return sum + g*expm1Over(q-ExtensionSlope, lb-lo)
 }
 
@@ -199,7 +200,8 @@ func expm1Over(pw, d float64) float64 {
 }
 
 // prefactor returns C with t = C ∫ T^m/Λ dT, and q = m+1, for the process
-// (cooling reference §9.5):
+// (derived: thermal energy f n_tot k T lost at n_H² Λ per volume, with n_H
+// constant when isochoric and n_H T constant when isobaric):
 //
 //	isochoric: t = (3/2)(n_tot/n_H)(k/n_H) ∫ dT/Λ
 //	isobaric:  t = (5/2)(n_tot/n_H) k/(n_H0 T0) ∫ T dT/Λ
@@ -240,7 +242,7 @@ func (p *PowerLaw) effectiveFloor(floor model.Temperature) (tf, lf float64, err 
 
 // TimeToCool returns the time gas takes to cool from t0 to t1 (t1 ≤ t0)
 // along the process, at constant composition, with Λ per n_H² from p
-// (Townsend 2009; cooling reference §9.5):
+// (Townsend 2009; the prefactors derived, see prefactor):
 //
 //	isochoric: t = (3/2)(n_tot/n_H)(k/n_H) ∫_{T1}^{T0} dT/Λ
 //	isobaric:  t = (5/2)(n_tot/n_H) k/(n_H0 T0) ∫_{T1}^{T0} T dT/Λ,
@@ -253,14 +255,14 @@ func (p *PowerLaw) effectiveFloor(floor model.Temperature) (tf, lf float64, err 
 // A t1 below the effective floor is never reached: TimeToCool returns
 // ErrBelowFloor rather than +Inf, so the caller can say why. The result
 // reports the share of the time spent within 0.1 dex above the floor and
-// flags it when above one half (cooling reference §9.4).
+// flags it when above one half (cloudwind's choice).
 //
 // Approximation: n_tot/n_H is held constant, i.e. the gas is treated as
-// fully ionised throughout. That is wrong below about 2×10^4 K, where n_e/n_H
-// drops and n_tot/n_H falls from ≈2.25 to ≈1.1 (cooling reference §9.5): the
-// thermal energy, and so the time spent there, is overestimated by up to
-// ≈2× (derived). Λ_CIE collapses there too, so the floor flag usually fires
-// first.
+// fully ionised throughout. That is wrong below about 2×10^4 K, where
+// n_e/n_H drops and n_tot/n_H falls from ≈2.25 to ≈1.1 (derived: 2+3y fully
+// ionised, 1+y neutral): the thermal energy, and so the time spent there,
+// is overestimated by up to ≈2× (derived). Λ_CIE collapses there too, so
+// the floor flag usually fires first.
 //
 // Special cases are:
 //
@@ -312,7 +314,7 @@ func (p *PowerLaw) TimeToCool(proc Process, g Gas, t0, t1, floor model.Temperatu
 
 // TemperatureAfter returns the temperature of gas that starts at t0 and
 // cools along the process for a time dt: the exact inverse of TimeToCool
-// (cooling reference §9.5, inverse formula, derived there). Within a
+// (derived). Within a
 // segment, with x = dt Λ(b)/(C b^{m+1}) for gas at T = b and C the
 // prefactor of TimeToCool,
 //
@@ -362,7 +364,7 @@ func (p *PowerLaw) TemperatureAfter(proc Process, g Gas, t0 model.Temperature, d
 // coolLn walks down from ln T = lb (> lf) for the reduced time s = t/C and
 // returns the final ln T, or atFloor when the floor lf is reached. On each
 // segment the whole reduced time from b down to lo is
-// G(b) expm1(−pΔ)/(−p), G = T^q/Λ (derived from cooling reference §9.5).
+// G(b) expm1(−pΔ)/(−p), G = T^q/Λ (derived from the segment integral).
 func (p *PowerLaw) coolLn(lb, lf, q, s float64) (la float64, atFloor bool) {
 	n := len(p.lnT)
 	k := n - 1 // segment whose interior lies just below lb
@@ -389,7 +391,7 @@ func (p *PowerLaw) coolLn(lb, lf, q, s float64) (la float64, atFloor bool) {
 			seg = g * e / -pw
 		}
 		if s < seg {
-			// ln a = ln b + log1p(−p x)/p, x = s/G(b) (cooling reference §9.5).
+			// ln a = ln b + log1p(−p x)/p, x = s/G(b) (derived).
 			x := s / g
 			d := x
 			if y := -pw * x; y != 0 {

@@ -12,8 +12,7 @@ import (
 )
 
 // twBremsC is the normalisation of the test law Λ = C T^{1/2}; any positive
-// value works (the prefactor of cooling reference §8 row 1 times 1.5,
-// rounded; synthetic).
+// value works (FreeFreePrefactor times 1.5, rounded; synthetic).
 const twBremsC = 2.1e-27
 
 // twBrems returns Λ = twBremsC T^{1/2} with nodes every 0.5 dex from 10^4
@@ -32,8 +31,8 @@ func twBrems(t *testing.T) *PowerLaw {
 	return p
 }
 
-// TestCoolingTimeBremsstrahlung checks the analytic case of cooling
-// reference §8 row 14 (tolerance 1e-12 there). For Λ = C T^{1/2}, derived:
+// TestCoolingTimeBremsstrahlung checks an analytic case (tolerance 1e-12).
+// For Λ = C T^{1/2}, derived:
 //
 //	isochoric: t = (3/2) x (k/n_H) 2(√T0 − √T1)/C = 3 n_tot k (√T0 − √T1)/(n_H² C)
 //	isobaric:  t = (5/2) x k/(n_H T0) (2/3)(T0^{3/2} − T1^{3/2})/C
@@ -95,7 +94,7 @@ func (c twCurve) lnLambda(k int, u float64) float64 {
 
 // twRandomCurve draws nodes on a 1/64-dex grid and slopes in [−4, 4]; a
 // quarter of the segments get slope q exactly and a quarter q ± 1e-10 (the
-// p = 0 and p ≈ 0 cases of cooling reference §8 row 13). log10 Λ values are
+// p = 0 and p ≈ 0 cases). log10 Λ values are
 // multiples of 2^-40, so a slope of exactly 1 or 2 survives NewPowerLaw's
 // division without rounding.
 func twRandomCurve(t *testing.T, r *rand.Rand, q float64) twCurve {
@@ -150,8 +149,8 @@ func (c twCurve) quadIntegral(la, lb, q float64) float64 {
 }
 
 // TestIntegralQuadrature checks the exact integrals against numerical
-// quadrature on random piecewise power laws (cooling reference §8 row 13:
-// 1e-12 relative, or 1e-10 if the quadrature limits it; here 1e-12 holds).
+// quadrature on random piecewise power laws (tolerance 1e-12 relative, or
+// 1e-10 if the quadrature limits it; here 1e-12 holds).
 func TestIntegralQuadrature(t *testing.T) {
 	r := rand.New(rand.NewPCG(1, 2))
 	exactLog := 0
@@ -187,7 +186,7 @@ func TestIntegralQuadrature(t *testing.T) {
 }
 
 // TestIntegralSpecialCases checks the "Special cases are:" rows of
-// Integral (definition of the range policy, cooling reference §9.4).
+// Integral (definition of the range policy, see PowerLaw).
 func TestIntegralSpecialCases(t *testing.T) {
 	p := twBrems(t)
 	nan := model.Temperature(math.NaN())
@@ -221,7 +220,8 @@ func TestIntegralSpecialCases(t *testing.T) {
 
 // twTable is a smooth 401-node curve from 10^4 to 10^8 K every 0.01 dex with
 // a CIE-like shape: a steep rise above 10^4 K, a peak near 10^5.3 K and a
-// T^{1/2}-like tail (synthetic; shape after cooling reference §5.1).
+// T^{1/2}-like tail (synthetic; shape after the primordial and solar CIE
+// curves).
 func twTable(tb testing.TB) *PowerLaw {
 	tb.Helper()
 	xs, ys := make([]float64, 401), make([]float64, 401)
@@ -302,8 +302,8 @@ func TestTemperatureAfterRoundTrip(t *testing.T) {
 }
 
 // TestTemperatureAfterFloor checks that gas reaches the floor in the time
-// TimeToCool gives and stays there (range and floor policy, cooling
-// reference §9.4).
+// TimeToCool gives and stays there (range and floor policy, see
+// PowerLaw).
 func TestTemperatureAfterFloor(t *testing.T) {
 	p := twTable(t)
 	g := Gas{NH: 1e-3, TotalPerH: 2.25}
@@ -338,9 +338,9 @@ func TestTemperatureAfterFloor(t *testing.T) {
 	}
 }
 
-// TestFloorDominated checks the floor-dominated flag of cooling reference
-// §9.4 on a CIE-like cliff (Λ falls 10^3.5 between 1.5e4 and 1e4 K, as in
-// §5.4) and on a flat curve.
+// TestFloorDominated checks the floor-dominated flag on a CIE-like cliff
+// (Λ falls 10^3.5 between 1.5e4 and 1e4 K, as CIE tables do, measured) and
+// on a flat curve.
 func TestFloorDominated(t *testing.T) {
 	cliff, err := NewPowerLaw(
 		[]float64{4, math.Log10(1.5e4), 5, 6},

@@ -6,9 +6,11 @@ import "math"
 const statusFromMemory = "from memory — check the paper"
 
 // BuiltinCriteria returns the criteria cloudwind ships, in display order.
-// Their forms and defaults follow the physics reference §5.12; every
-// constant not checked against its paper has Verified = false and says so
-// in Status. A criteria file can correct any of them by id.
+// Their forms follow the abstract of each cited paper; constants the
+// abstracts do not give are from memory or cloudwind's choice, as each
+// Status says. Every constant not checked against its paper has Verified =
+// false and says so in Status. A criteria file can correct any of them by
+// id.
 func BuiltinCriteria() []Criterion {
 	inf := math.Inf(1)
 	return []Criterion{

@@ -87,6 +87,6 @@ const SolarMassPerYear = MassRate(float64(SolarMass) / float64(Year))
 // SupernovaPowerPerSFR is the energy injection rate per unit
 // star-formation rate that sets an outflow's Ė = α · SupernovaPowerPerSFR ·
 // SFR: 3×10⁴¹ erg s⁻¹ per M☉ yr⁻¹, here in erg g⁻¹ (erg s⁻¹ per g s⁻¹).
-// Status: from memory (physics reference §11.3, "typical inputs"), not
+// Status: from memory (a typical input for a [CC85] wind), not
 // checked against a source; WindLoadingStatus says so for people.
 const SupernovaPowerPerSFR = 3e41 / float64(SolarMassPerYear)

@@ -9,12 +9,12 @@ import (
 )
 
 // Checks of the criteria as their abstracts state them. Check values: the
-// physics reference's §11.1 jump and stagnation checks (derived from the
-// textbook relations, four figures), §4.1's ξ(n_e n_i) ≈ 0.25 (derived),
+// Rankine–Hugoniot jump and isentropic stagnation values (derived from the
+// textbook relations, four figures), ξ(n_e n_i) ≈ 0.25 (derived),
 // and identities of the forms (derived, exact up to rounding).
 
 func TestShockJumpAndStagnation(t *testing.T) {
-	// §11.1 check: γ = 5/3, M = 2 → ρ₂/ρ₁ = 2.2857, P₂/P₁ = 4.75, T₂/T₁ = 2.0781.
+	// Derived check: γ = 5/3, M = 2 → ρ₂/ρ₁ = 2.2857, P₂/P₁ = 4.75, T₂/T₁ = 2.0781.
 	rho, p, tt := ShockJump(2, 5.0/3)
 	for _, c := range []struct {
 		name      string
@@ -28,7 +28,7 @@ func TestShockJumpAndStagnation(t *testing.T) {
 	if rho, p, tt := ShockJump(1, 5.0/3); rho != 1 || p != 1 || tt != 1 {
 		t.Errorf("ShockJump(1) = %g, %g, %g, want 1, 1, 1", rho, p, tt)
 	}
-	// §11.1 check: M = 1 → T₀/T = 4/3, ρ₀/ρ = 1.5396.
+	// Derived check: M = 1 → T₀/T = 4/3, ρ₀/ρ = 1.5396.
 	t0, r0 := Stagnation(1, 5.0/3)
 	if !scalar.EqualWithinRel(t0, 4.0/3, 1e-12) || !scalar.EqualWithinRel(r0, 1.5396, 5e-5) {
 		t.Errorf("Stagnation(1, 5/3) = %.6g, %.6g, want 4/3, 1.5396", t0, r0)
@@ -180,7 +180,7 @@ func TestUncertaintyBand(t *testing.T) {
 }
 
 func TestElectronIonConvention(t *testing.T) {
-	// Physics reference §4.1 (derived): ξ(n_e n_i) ≈ 0.25 for the ionised
+	// Derived: ξ(n_e n_i) ≈ 0.25 for the ionised
 	// A09 mixture at μ = 0.6, against ξ(n_H²) = 0.1959: t_cool(n_e n_i) /
 	// t_cool(n_H²) = 0.1959/0.2501 along an isobar.
 	p := fiducial()
@@ -189,13 +189,13 @@ func TestElectronIonConvention(t *testing.T) {
 	p.DensityProduct = NH2
 	b := mustDerive(t, p, lambdaGO18)
 	want := electronIonPerH2(Asplund2009.X, Asplund2009.Y/Asplund2009.X)
-	if !scalar.EqualWithinRel(want, 1.1774*1.0842, 2e-4) { // §2: 1.1774 and 1.0842
+	if !scalar.EqualWithinRel(want, 1.1774*1.0842, 2e-4) { // derived for A09: (1+X)/(2X) and 1 + Y/(4X)
 		t.Errorf("n_e n_i/n_H² = %g, want 1.1774 × 1.0842", want)
 	}
 	if got := float64(b.TCoolMix / a.TCoolMix); !scalar.EqualWithinRel(got, want, 1e-12) {
 		t.Errorf("t_cool,mix(nh2)/t_cool,mix(neni) = %g, want %g", got, want)
 	}
-	xi := 0.1959 * want // ξ(n_H²) of §4.1 × n_e n_i/n_H²
+	xi := 0.1959 * want // ξ(n_H²) = (X μ m_p/m_H)² = 0.1959 (derived) × n_e n_i/n_H²
 	if !scalar.EqualWithinRel(xi, 0.25, 0.01) {
 		t.Errorf("ξ(n_e n_i) = %g, want ≈ 0.25", xi)
 	}

@@ -37,7 +37,8 @@
 // adiabatic sound speed of the hot gas. One μ = 0.6 serves both phases
 // unless MuCold and MuHot are set. Logarithms are base 10 and named log10….
 // Published threshold radii differ by factors of 2–10 through these choices
-// alone (physics reference §4.3), so every output names them.
+// alone (derived from the factors f and 𝒩; see ConventionSpread), so every
+// output names them.
 //
 // # References
 //
@@ -66,8 +67,8 @@
 //
 // Journal references of [BB18], [CC85], [FG22], [GOJN22], [KDS21], [McC15],
 // [McC18], [TOG21] and [YFB10], the authors of [McC15] and [YFB10], and the
-// year of [BF90] are from memory; the arXiv identifiers are those the
-// physics reference confirmed. The relations of [CC85] are from memory too
+// year of [BF90] are from memory; the arXiv identifiers were checked
+// against the arXiv abstract pages. The relations of [CC85] are from memory too
 // (WindStatus). No equation number is cited, because none was read from the
 // papers themselves.
 //

@@ -6,14 +6,15 @@ import (
 	"sort"
 )
 
-// This file integrates the semi-analytic growth and entrainment ODE of the
-// physics reference §6.5 for one cloud: the settings with their defaults
-// and statuses, the right-hand side, Evolve and its Trajectory. Inside,
-// time is in t_cc,0 (the cloud-crushing time at the initial radius r0),
-// mass in m0, velocity in v_w and position in r0. With ρ_cl and ρ_hot fixed
-// (isobaric) the radius is r/r0 = (m/m0)^{1/3}.
+// This file integrates cloudwind's semi-analytic growth and entrainment ODE
+// (see Evolve: the [TOG21] mixing velocity, growth as in [GO20],
+// destruction in κ t_cc and ram drag) for one cloud: the settings with
+// their defaults and statuses, the right-hand side, Evolve and its
+// Trajectory. Inside, time is in t_cc,0 (the cloud-crushing time at the
+// initial radius r0), mass in m0, velocity in v_w and position in r0. With
+// ρ_cl and ρ_hot fixed (isobaric) the radius is r/r0 = (m/m0)^{1/3}.
 
-// Event levels of Evolve (physics reference §6.5), and its mass cap.
+// Event levels of Evolve (cloudwind's choices), and its mass cap.
 const (
 	DestroyedMass  = 1e-3 // m/m0 below which the cloud is destroyed and the integration stops
 	DoubledMass    = 2.0  // m/m0 that defines the mass-doubling time
@@ -99,8 +100,8 @@ func (tr *Trajectory) At(tcc float64) (m, v, x float64) {
 	return m, v, x
 }
 
-// cloudODE is the right-hand side of physics reference §6.5 in the units
-// above. With μ = m/m0, ρ = r/r0 = μ^{1/3} and Δ = 1 − v/v_w:
+// cloudODE is the right-hand side of Evolve's ODE in the units above. With
+// μ = m/m0, ρ = r/r0 = μ^{1/3} and Δ = 1 − v/v_w:
 //
 //	dμ/dt = S g0 ρ² ρ^{1/4} [M_f] − (1 − S) μ/(κ ρ)   (sphere)
 //	dμ/dt = S g0 μ [M_f]          − (1 − S) μ/(κ ρ)   (fragmented)
@@ -108,11 +109,11 @@ func (tr *Trajectory) At(tcc float64) (m, v, x float64) {
 //	dx/dt = χ^{1/2} v
 //
 // where g0 = t_cc,0/t_grow,0 = 3 f_A v_mix,0/(χ^{1/2} v_w) follows from
-// ṁ_grow = S ρ_hot v_mix f_A 4π r² and m0 = (4π/3) ρ_cl r0³ (derived,
-// physics reference §6.2), v_mix ∝ r^{1/4} at fixed t_cool (§6.1), M_f =
-// (|Δ| v_w/c_s,hot)^{1/2} is the optional Mach factor (§6.1, from memory),
-// and D = 3 C_D (1 + v_A²/v_w²)/(8 χ^{1/2}) follows from F_drag/m (derived,
-// §6.4; magnetic factor McCourt et al. 2015, arXiv:1409.6719).
+// ṁ_grow = S ρ_hot v_mix f_A 4π r² and m0 = (4π/3) ρ_cl r0³ (derived),
+// v_mix ∝ r^{1/4} at fixed t_cool ([TOG21]), M_f = (|Δ| v_w/c_s,hot)^{1/2}
+// is the optional Mach factor ([GO20], from memory), and
+// D = 3 C_D (1 + v_A²/v_w²)/(8 χ^{1/2}) follows from F_drag/m (derived;
+// magnetic factor McCourt et al. 2015, arXiv:1409.6719).
 type cloudODE struct {
 	g0       float64 // t_cc,0/t_grow,0; 0 when growth is switched off
 	machW    float64 // v_w/c_s,hot when the Mach factor is on, else 0
@@ -133,7 +134,8 @@ type cloudODE struct {
 // branch returns S at radius ρ = r/r0. A criterion's ratio τ_cool/τ_dyn is
 // ∝ 1/r at fixed thermal state (t_cc and t_shear are both ∝ r), so
 // ratio(r) = ratio(r0)·r0/r with the threshold fixed: the criterion is
-// evaluated at the current radius (physics reference §6.5).
+// evaluated at the current radius (cloudwind's choice: a shrinking cloud
+// can cross the threshold).
 func (o *cloudODE) branch(rho float64) float64 {
 	if math.IsInf(o.ratio0, 1) {
 		return 0
@@ -150,7 +152,7 @@ func (o *cloudODE) branch(rho float64) float64 {
 		}
 	}
 	if o.smooth {
-		return 1 / (1 + math.Pow(u, o.width)) // a modelling choice, not a published result (§6.5)
+		return 1 / (1 + math.Pow(u, o.width)) // cloudwind's modelling choice, not a published result
 	}
 	if u < 1 {
 		return 1
@@ -167,17 +169,17 @@ func (o *cloudODE) eval(_ float64, y, dy []float64) {
 	grow := 0.0
 	if s > 0 {
 		if o.fragment {
-			grow = s * o.g0 * mu // A ∝ m, v_mix frozen at r0 (turbulent fragmentation, §5.7)
+			grow = s * o.g0 * mu // A ∝ m, v_mix frozen at r0 (turbulent fragmentation, [GOJN22])
 		} else {
-			grow = s * o.g0 * rho * rho * math.Sqrt(math.Sqrt(rho)) // ∝ r² v_mix(r), §6.2
+			grow = s * o.g0 * rho * rho * math.Sqrt(math.Sqrt(rho)) // ∝ r² v_mix(r), derived
 		}
 		if o.machW > 0 {
-			grow *= math.Sqrt(math.Abs(delta) * o.machW) // × (|Δv|/c_s,hot)^{1/2}, §6.1 (from memory)
+			grow *= math.Sqrt(math.Abs(delta) * o.machW) // × (|Δv|/c_s,hot)^{1/2}, [GO20] (from memory)
 		}
 	}
-	loss := (1 - s) * mu * o.invKappa / rho                  // ṁ_loss = (1 − S) m/(κ t_cc(r)), t_cc(r) ∝ r, §6.3
-	dy[0] = grow - loss                                      // dm/dt = ṁ_grow − ṁ_loss, §6.5
-	dy[1] = grow/mu*delta + o.drag*delta*math.Abs(delta)/rho // (ṁ_grow/m)Δv + F_drag/m, §6.4; lost mass keeps v
+	loss := (1 - s) * mu * o.invKappa / rho                  // ṁ_loss = (1 − S) m/(κ t_cc(r)), t_cc(r) ∝ r
+	dy[0] = grow - loss                                      // dm/dt = ṁ_grow − ṁ_loss
+	dy[1] = grow/mu*delta + o.drag*delta*math.Abs(delta)/rho // (ṁ_grow/m)Δv + F_drag/m, derived; lost mass keeps v
 	dy[2] = o.sqrtChi * y[1]                                 // dx/dt = v
 }
 
@@ -204,7 +206,7 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 		return nil, fmt.Errorf("evolve: %s = %s s gives v_mix = %s", mixCooling.Symbol(), num(float64(tc)), num(vmix0))
 	}
 	if set.Disable&TermGrowth == 0 {
-		o.g0 = 3 * set.AreaFactor * vmix0 / (o.sqrtChi * float64(s.VWind)) // t_cc,0/t_grow,0, §6.2 (derived)
+		o.g0 = 3 * set.AreaFactor * vmix0 / (o.sqrtChi * float64(s.VWind)) // t_cc,0/t_grow,0 (derived)
 	}
 	if set.MachFactor {
 		o.machW = float64(s.VWind / s.CsHot)
@@ -213,7 +215,7 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 		o.invKappa = 1 / set.Kappa
 	}
 	if b := set.AlfvenOverWind; set.Disable&TermRamDrag == 0 {
-		o.drag = 3 * set.DragCoefficient * (1 + b*b) / (8 * o.sqrtChi) // §6.4 with McCourt et al. 2015
+		o.drag = 3 * set.DragCoefficient * (1 + b*b) / (8 * o.sqrtChi) // ram drag with McCourt et al. 2015's factor
 	}
 	if c.Cool != CoolNone { // the adiabatic baseline keeps S = 0
 		out := s.Evaluate(c)
@@ -228,23 +230,23 @@ func newCloudODE(s *State, c *Criterion, set *EvolveSettings) (*cloudODE, error)
 	return o, nil
 }
 
-// Evolve integrates the cloud-growth and entrainment ODE of the physics
-// reference §6.5 for the cloud of s, whose branch S follows criterion c at
-// the current radius, from t = 0 (m = m0, v = V0 v_w, x = 0) to TEnd t_cc,0,
-// or until m < DestroyedMass m0 or m > MassCap m0. Zero fields of set take
-// their defaults. In CGS, with Δv = v_w − v and r = (3m/(4πρ_cl))^{1/3}:
+// Evolve integrates cloudwind's cloud-growth and entrainment ODE for the
+// cloud of s, whose branch S follows criterion c at the current radius,
+// from t = 0 (m = m0, v = V0 v_w, x = 0) to TEnd t_cc,0, or until m <
+// DestroyedMass m0 or m > MassCap m0. Zero fields of set take their
+// defaults. In CGS, with Δv = v_w − v and r = (3m/(4πρ_cl))^{1/3}:
 //
 //	ṁ_grow = S ρ_hot v_mix f_A 4π r²,   ṁ_loss = (1 − S) m/(κ t_cc(r))
 //	dm/dt  = ṁ_grow − ṁ_loss
 //	dv/dt  = (ṁ_grow/m) Δv + ½ C_D ρ_hot Δv|Δv| π r² (1 + v_A²/v_w²)/m
 //	dx/dt  = v
 //
-// with t_cc(r) = χ^{1/2} r/v_w and v_mix = α_v c_s,cl (t_cool,X c_s,cl/r)^{−1/4}
-// ([TOG21]; [GO20] for the use in growth). Lost mass carries the cloud's
-// own momentum. The drag boost (1 + v_A²/v_w²) is McCourt et al. 2015
-// (arXiv:1409.6719) as stated with v_w (physics reference §5.10; §6.4
-// writes Δv). With the fragmented area model A ∝ m and v_mix stays at its
-// r0 value. The integrator is the adaptive Dormand–Prince 5(4) pair with
+// with t_cc(r) = χ^{1/2} r/v_w and v_mix = α_v c_s,cl (t_cool,X
+// c_s,cl/r)^{−1/4} ([TOG21]; [GO20] for the use in growth). Lost mass
+// carries the cloud's own momentum. The drag boost (1 + v_A²/v_w²) is
+// McCourt et al. 2015 (arXiv:1409.6719) as its abstract states it, with v_w
+// (not Δv). With the fragmented area model A ∝ m and v_mix stays at its r0
+// value. The integrator is the adaptive Dormand–Prince 5(4) pair with
 // tolerances RelTol and AbsTol on (m/m0, v/v_w, x/r0).
 //
 // Evolve returns a *FieldError from set.Validate, and an error for a nil or
@@ -265,7 +267,7 @@ func Evolve(s *State, c *Criterion, set EvolveSettings) (Trajectory, error) {
 	}
 	nan := math.NaN()
 	tr := Trajectory{TEntrain: nan, TDouble: nan, TDestroy: nan, Ratio0: o.ratio0, Settings: set, sqrtChi: o.sqrtChi}
-	tr.TGrow0 = 1 / o.g0 // t_grow,0 = χ r0/(3 f_A v_mix,0) in t_cc,0, §6.2; +Inf without growth
+	tr.TGrow0 = 1 / o.g0 // t_grow,0 = χ r0/(3 f_A v_mix,0) in t_cc,0 (derived); +Inf without growth
 	if o.machW > 0 {
 		tr.TGrow0 /= math.Sqrt(math.Abs(1-set.V0) * o.machW)
 	}

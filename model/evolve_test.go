@@ -7,9 +7,9 @@ import (
 	"testing"
 )
 
-// Tests of Evolve against the analytic limits of the physics reference
-// §6.2–§6.4 (derived there or in the comments here) and its check-value
-// rows 10 and 11 (§9). Tolerances: the integrator runs at RelTol 1e-10 or
+// Tests of Evolve against the analytic limits of its ODE (accretion only,
+// fragmented growth, ram drag only, destruction only; derived in the
+// comments here). Tolerances: the integrator runs at RelTol 1e-10 or
 // tighter, so DERIVED values are required to 1e-7 relative unless a
 // comment says otherwise.
 
@@ -40,7 +40,7 @@ func mustEvolve(t *testing.T, s *State, c *Criterion, set EvolveSettings) Trajec
 
 // growthTime returns t_grow,0/t_cc,0 = [χ r0/(3 f_A v_mix,0)]/[χ^{1/2} r0/v_w]
 // computed in CGS from the State, with v_mix,0 = α_v c_s,cl (t_cool,cl/t_sc,cl)^{-1/4}
-// (physics reference §6.1–6.2).
+// ([TOG21] form; t_grow for a sphere derived).
 func growthTime(s *State, alphaV, fA float64) float64 {
 	chi, r0 := s.Params.Chi, float64(s.Params.RCloud)
 	vmix := alphaV * float64(s.CsCold) * math.Pow(float64(s.TCoolCold)/(r0/float64(s.CsCold)), -0.25)
@@ -49,9 +49,9 @@ func growthTime(s *State, alphaV, fA float64) float64 {
 }
 
 // TestEvolveAccretionOnly: S = 1 and no ram drag. Momentum conservation
-// gives Δv = Δv0 m0/m (physics reference §6.4); the sphere grows as
-// m = m0 (1 + t/(4 t_grow,0))⁴ (§6.2). So the cloud is entrained
-// (Δv/Δv0 = 0.1, ref row 10: m/m0 = 10) at t = 4 t_grow,0 (10^{1/4} − 1)
+// gives Δv = Δv0 m0/m (derived); the sphere grows as
+// m = m0 (1 + t/(4 t_grow,0))⁴ (derived, AreaSphere). So the cloud is
+// entrained (Δv/Δv0 = 0.1 at m/m0 = 10) at t = 4 t_grow,0 (10^{1/4} − 1)
 // and doubles at t = 4 t_grow,0 (2^{1/4} − 1) (derived).
 func TestEvolveAccretionOnly(t *testing.T) {
 	s := evolveState(t, Parsec)
@@ -71,11 +71,11 @@ func TestEvolveAccretionOnly(t *testing.T) {
 			t.Fatalf("S(%g) = %g, want 1", ti, tr.S[i])
 		}
 	}
-	near(t, "TEntrain (ref row 10)", tr.TEntrain, 4*tg*(math.Pow(10, 0.25)-1), 1e-7)
+	near(t, "TEntrain (m/m0 = 10)", tr.TEntrain, 4*tg*(math.Pow(10, 0.25)-1), 1e-7)
 	near(t, "TDouble", tr.TDouble, 4*tg*(math.Pow(2, 0.25)-1), 1e-7)
 	m, v, _ := tr.At(tr.TEntrain)
-	near(t, "m/m0 at TEntrain (ref row 10)", m, 10, 1e-7)
-	near(t, "Δv/Δv0 at TEntrain (ref row 10)", 1-v, 0.1, 1e-6)
+	near(t, "m/m0 at TEntrain", m, 10, 1e-7)
+	near(t, "Δv/Δv0 at TEntrain", 1-v, 0.1, 1e-6)
 	if !math.IsNaN(tr.TDestroy) || tr.Destroyed || tr.Capped || tr.T[len(tr.T)-1] != DefaultTEnd {
 		t.Errorf("accretion only: stopped at %g (destroyed %v, capped %v, TDestroy %g), want t_end = %g",
 			tr.T[len(tr.T)-1], tr.Destroyed, tr.Capped, tr.TDestroy, DefaultTEnd)
@@ -83,8 +83,8 @@ func TestEvolveAccretionOnly(t *testing.T) {
 }
 
 // TestEvolveFragmented: with A ∝ m and v_mix frozen at r0 the mass grows
-// as m0 exp(t/t_grow,0), t_grow,0 = χ r0/(3 f_A v_mix,0) (physics
-// reference §6.2), and with accretion only Δv = Δv0 e^{−t/t_grow,0} (§6.4).
+// as m0 exp(t/t_grow,0), t_grow,0 = χ r0/(3 f_A v_mix,0) (derived),
+// and with accretion only Δv = Δv0 e^{−t/t_grow,0} (momentum conservation).
 // So TDouble = t_grow,0 ln 2 and TEntrain = t_grow,0 ln 10 (derived).
 func TestEvolveFragmented(t *testing.T) {
 	s := evolveState(t, Parsec)
@@ -115,8 +115,8 @@ func TestEvolveFragmented(t *testing.T) {
 }
 
 // TestEvolveRamDragOnly: no growth and no loss (constant m and r), C_D = 1.
-// Then Δv = Δv0/(1 + t/t_drag), t_drag = (8/(3 C_D)) χ r/Δv0 (physics
-// reference §6.4), so at t = t_drag Δv = v_w/2 for Δv0 = v_w (ref row 11);
+// Then Δv = Δv0/(1 + t/t_drag), t_drag = (8/(3 C_D)) χ r/Δv0 (derived),
+// so at t = t_drag Δv = v_w/2 for Δv0 = v_w;
 // entrainment (Δv = 0.1 v_w) at 9 t_drag; and x = χ^{1/2}(t − t_drag
 // ln(1 + t/t_drag)) r0 per t_cc,0 (derived by integrating v). The wind
 // field multiplies the drag by (1 + v_A²/v_w²) (McCourt et al. 2015), which
@@ -140,7 +140,7 @@ func TestEvolveRamDragOnly(t *testing.T) {
 			}
 		}
 		_, v, x := tr.At(td)
-		near(t, "Δv/Δv0 at t_drag (ref row 11)", (1-v)/dv0, 0.5, 1e-7)
+		near(t, "Δv/Δv0 at t_drag", (1-v)/dv0, 0.5, 1e-7)
 		wantX := math.Sqrt(s.Params.Chi) * (td - dv0*td*math.Log(2))
 		near(t, "x(t_drag)/r0", x, wantX, 1e-7)
 		if dv0 > EntrainedSpeed {
@@ -153,7 +153,7 @@ func TestEvolveRamDragOnly(t *testing.T) {
 // drag. dm/dt = −m/(κ t_cc(r)) with t_cc ∝ r ∝ m^{1/3} gives
 // d(m^{1/3})/dt = −1/(3κ t_cc,0), so m^{1/3} = m0^{1/3}(1 − t/(3κ t_cc,0)),
 // and m = 10⁻³ m0 (m^{1/3} = 0.1 m0^{1/3}) at t = 0.9·3κ = 2.7κ t_cc,0
-// (derived, physics reference §6.3). Lost mass carries its own momentum,
+// (derived). Lost mass carries its own momentum,
 // so v stays v0. With ram drag on the mass history is unchanged.
 func TestEvolveDestructionOnly(t *testing.T) {
 	s := evolveState(t, Parsec)
@@ -208,13 +208,13 @@ func mixedSetup(t *testing.T, f Length) (State, *Criterion, EvolveSettings) {
 	return s, c, set
 }
 
-// TestEvolveMomentumBudget checks the physics reference §6.4 bookkeeping
+// TestEvolveMomentumBudget checks the momentum bookkeeping of Evolve's ODE
 //
 //	d(m v)/dt = ṁ_grow v_w − ṁ_loss v + F_drag,   dm/dt = ṁ_grow − ṁ_loss,
 //
 // along the mixed trajectory: the left sides by central finite differences
 // (δ = 10⁻³ t_cc,0) of runs that end exactly at t ± δ, the right sides
-// recomputed here in CGS from §6.5 with the State's quantities. The
+// recomputed here in CGS from Evolve's ODE with the State's quantities. The
 // tolerance, 10⁻⁶ of the largest term, covers the O(δ²) difference error.
 func TestEvolveMomentumBudget(t *testing.T) {
 	s, c, set := mixedSetup(t, 1) // S falls from 0.5 to 0.05 by t = 8 t_cc
@@ -235,7 +235,7 @@ func TestEvolveMomentumBudget(t *testing.T) {
 		mm, vm := end(tk - delta)
 		dmv := (mp*vp - mm*vm) / (2 * delta * tcc0)
 		dm := (mp - mm) / (2 * delta * tcc0)
-		// Right-hand sides, physics reference §6.5, CGS.
+		// Right-hand sides of Evolve's ODE, CGS.
 		r := math.Cbrt(3 * m / (4 * math.Pi * rhoCl))
 		dv := vw - v
 		tccR := math.Sqrt(chi) * r / vw

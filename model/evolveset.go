@@ -13,7 +13,7 @@ type BranchMode int
 
 const (
 	// BranchSharp sets S = 1 while the criterion holds at the current radius
-	// and S = 0 otherwise (physics reference §6.5). The default.
+	// and S = 0 otherwise (cloudwind's model). The default.
 	BranchSharp BranchMode = iota
 	// BranchSmooth sets S = 1/(1 + (ratio/threshold)^n), n = Width: a
 	// modelling choice, not a published result.
@@ -25,10 +25,11 @@ type AreaModel int
 
 const (
 	// AreaSphere uses A = f_A 4π r² with v_mix at the current radius, which
-	// gives m = m0 (1 + t/(4 t_grow,0))⁴ (physics reference §6.2). The default.
+	// gives m = m0 (1 + t/(4 t_grow,0))⁴ (derived from ṁ ∝ A v_mix ∝ m^{3/4}).
+	// The default.
 	AreaSphere AreaModel = iota
 	// AreaFragmented uses A ∝ m with v_mix frozen at r0 (droplets of fixed
-	// size; turbulent fragmentation, physics reference §5.7), which gives
+	// size; turbulent fragmentation, [GOJN22]), which gives
 	// m = m0 exp(t/t_grow,0).
 	AreaFragmented
 )
@@ -120,12 +121,12 @@ type EvolveSettings struct {
 
 // Defaults of EvolveSettings.
 const (
-	DefaultAlphaV          = 1.0    // from memory (physics reference §6.2)
-	DefaultAreaFactor      = 1.0    // A = 4π r², from memory (physics reference §6.2)
-	DefaultKappa           = 4.0    // physics reference §5.9
-	DefaultDragCoefficient = 0.5    // from memory (physics reference §6.4: ~0.5–1)
-	DefaultSmoothWidth     = 4.0    // "n ~ 4", physics reference §6.5: a modelling choice
-	DefaultTEnd            = 100.0  // t_cc,0; runs last ~20–100+ t_cc (physics reference §7, from memory)
+	DefaultAlphaV          = 1.0    // from memory (the prefactor of the [TOG21] form)
+	DefaultAreaFactor      = 1.0    // A = 4π r², cloudwind's default ([GO20]'s area from memory)
+	DefaultKappa           = 4.0    // from memory, within the ~3–10 t_cc of Nakamura et al. 2006
+	DefaultDragCoefficient = 0.5    // from memory (C_D ~ 0.5–1 is the usual range)
+	DefaultSmoothWidth     = 4.0    // "n ~ 4": cloudwind's modelling choice
+	DefaultTEnd            = 100.0  // t_cc,0; published runs last ~20–100+ t_cc (from memory)
 	DefaultRelTol          = 1e-8   // numerical control
 	DefaultAbsTol          = 1e-10  // numerical control
 	DefaultMaxSteps        = 100000 // numerical control

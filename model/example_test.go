@@ -63,7 +63,7 @@ func ExampleParams_Validate() {
 }
 
 // CloudCrushingTime of a 100 pc cloud at χ = 100 in a 100 km/s wind
-// (physics reference §3.4).
+// (Klein, McKee & Colella 1994: t_cc = χ^{1/2} r_cl/v_wind).
 func ExampleCloudCrushingTime() {
 	t := model.CloudCrushingTime(100*model.Parsec, 100, 100*model.KilometrePerSecond)
 	fmt.Printf("%.4g Myr\n", float64(t/model.Megayear))
@@ -81,8 +81,8 @@ func ExampleCriterion_Threshold() {
 	// 0.316
 }
 
-// Plan the wind-tunnel run of the physics reference's check value (§9 row
-// 13): χ = 100, M = 1.5, 16 cells per cloud radius, C = 0.3, 20 t_cc, in a
+// Plan the wind-tunnel run of the planner's derived step-count check:
+// χ = 100, M = 1.5, 16 cells per cloud radius, C = 0.3, 20 t_cc, in a
 // cloud-tracking frame with the default 40 × 20 × 20 r_cl box, on a mesh
 // of 16³-cell blocks.
 func ExampleMakePlan() {

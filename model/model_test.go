@@ -11,10 +11,9 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 )
 
-// Check values come from the physics reference's check-value table (§9,
-// "ref #N"), whose entries are DERIVED from the stated conventions and
-// CODATA 2018 constants, or name their own source. Tolerance 1e-4 relative
-// (the reference quotes five or six figures).
+// Check values are derived (algebra from the stated conventions and
+// CODATA 2018 constants, quoted to five or six figures), or name their own
+// source. Tolerance 1e-4 relative.
 const refTol = 1e-4
 
 func near(t *testing.T, what string, got, want, tol float64) {
@@ -24,8 +23,8 @@ func near(t *testing.T, what string, got, want, tol float64) {
 	}
 }
 
-// The fiducial problem of ref #4/#7: χ = 100, P/k = 1e3, T_cl = 1e4 K, M = 1,
-// μ = 0.6, γ = 5/3.
+// The fiducial problem of the derived check values: χ = 100, P/k = 1e3,
+// T_cl = 1e4 K, M = 1, μ = 0.6, γ = 5/3.
 func fiducial() Params {
 	p := Fiducial()
 	p.Mu = 0.6
@@ -44,18 +43,21 @@ func mustDerive(t *testing.T, p Params, cf CoolingFunction) State {
 var lambdaGO18 = ConstantCooling{CoolingRate(math.Pow(10, -21.4))} // [GO18] normalisation Λ_mix = 10^-21.4
 
 func TestConstants(t *testing.T) {
-	// ref #1: 1 pc ÷ 1 km/s = 0.977792 Myr (derived from CODATA/IAU constants).
+	// 1 pc ÷ 1 km/s = 0.977792 Myr (derived from CODATA/IAU constants).
 	near(t, "pc/(km/s) in Myr", float64(Parsec)/float64(KilometrePerSecond)/float64(Megayear), 0.977792, refTol)
-	// IAU 2015 Resolution B2 note 4: 1 pc = 3.0856775814913673e18 cm (as given in the physics reference §1).
+	// IAU 2015 Resolution B2 note 4: 1 pc = (648000/π) au = 3.0856775814913673e18 cm.
 	near(t, "Parsec", float64(Parsec), 3.0856775814913673e18, 1e-15)
-	// Physics reference §1: M☉ = 1.3271244e26/6.67430e-8 = 1.98841e33 g (derived).
+	// M☉ = (GM)☉/G = 1.3271244e26/6.67430e-8 = 1.98841e33 g ((GM)☉ of IAU 2015
+	// Resolution B3 from memory, G CODATA 2018; the division derived).
 	near(t, "SolarMass", float64(SolarMass), 1.98841e33, 1e-5)
-	// Physics reference §1: m_H = 1.6735328e-24 g (secondary source).
+	// m_H = 1.00782503223 u = 1.6735328e-24 g (secondary source: the value public
+	// codes take from NIST and the Atomic Mass Evaluation).
 	near(t, "HydrogenAtomMass", float64(HydrogenAtomMass), 1.6735328e-24, 1e-7)
 }
 
 func TestMixtureMu(t *testing.T) {
-	// ref #2: A09 (X, Y, Z = 0.7381, 0.2485, 0.0134) → μ = 0.59906; AG89 → 0.61415.
+	// A09 (X, Y, Z = 0.7381, 0.2485, 0.0134, [AAG21] Table 4) → μ = 0.59906; AG89 →
+	// 0.61415 (derived from 1/μ = 2X + 3Y/4 + Z/2).
 	near(t, "A09 μ", Asplund2009.MuIonised(), 0.59906, refTol)
 	near(t, "AG89 μ", AndersGrevesse1989.MuIonised(), 0.61415, refTol)
 	for _, m := range Mixtures() {
@@ -66,37 +68,38 @@ func TestMixtureMu(t *testing.T) {
 }
 
 func TestSoundSpeed(t *testing.T) {
-	// ref #3: c_s(1e6 K, μ = 0.6) = 151.423 km/s; c_s(1e4 K) = 15.1423 km/s.
+	// Derived: c_s(1e6 K, μ = 0.6) = 151.423 km/s; c_s(1e4 K) = 15.1423 km/s.
 	near(t, "SoundSpeed(1e6, 0.6, 5/3)", float64(SoundSpeed(1e6, 0.6, 5.0/3))/1e5, 151.423, refTol)
 	near(t, "SoundSpeed(1e4, 0.6, 5/3)", float64(SoundSpeed(1e4, 0.6, 5.0/3))/1e5, 15.1423, refTol)
-	// Physics reference §3.2: c_s(1e4 K, μ = 1.22) = 10.62 km/s (four figures).
+	// Derived: c_s(1e4 K, μ = 1.22) = 10.62 km/s (four figures).
 	near(t, "SoundSpeed(1e4, 1.22, 5/3)", float64(SoundSpeed(1e4, 1.22, 5.0/3))/1e5, 10.62, 5e-4)
 }
 
 func TestFiducialState(t *testing.T) {
 	s := mustDerive(t, fiducial(), lambdaGO18)
-	// ref #4: n_cl = 0.1, n_hot = 1e-3 cm⁻³, T_hot = 1e6, T_mix = 1e5 K, n_mix = 1e-2.
+	// Derived (pressure equilibrium, T_mix = (T_cl T_hot)^{1/2} [BF90]): n_cl = 0.1, n_hot = 1e-3 cm⁻³, T_hot = 1e6, T_mix = 1e5 K, n_mix = 1e-2.
 	near(t, "NCold", float64(s.NCold), 0.1, refTol)
 	near(t, "NHot", float64(s.NHot), 1e-3, refTol)
 	near(t, "THot", float64(s.THot), 1e6, refTol)
 	near(t, "TMix", float64(s.TMix), 1e5, refTol)
 	near(t, "NMix", float64(s.NMix), 1e-2, refTol)
-	// Physics reference §3.1: ρ_hot = 1.00357e-27 g cm⁻³ (μ = 0.6).
+	// Derived: ρ_hot = 1.00357e-27 g cm⁻³ (μ = 0.6).
 	near(t, "RhoHot", float64(s.RhoHot), 1.00357e-27, refTol)
-	// ref #6: v_w = 151.423 km/s, t_cc = 0.064574 Myr, t_shear = t_cc/10, χ^{1/2} t_cc = 0.64574 Myr.
+	// Derived: v_w = 151.423 km/s, t_cc = 0.064574 Myr, t_shear = t_cc/10, χ^{1/2} t_cc = 0.64574 Myr.
 	near(t, "VWind", float64(s.VWind)/1e5, 151.423, refTol)
 	near(t, "TCC", float64(s.TCC/Megayear), 0.064574, refTol)
 	near(t, "TShear", float64(s.TShear/Megayear), 0.0064574, refTol)
 	near(t, "TDrag", float64(s.TDrag/Megayear), 0.64574, refTol)
-	// ref #6 (derived identity): t_cc = t_sc,cl / M.
+	// Derived identity (one μ): t_cc = t_sc,cl / M.
 	near(t, "TSoundCold/M", float64(s.TSoundCold), float64(s.TCC), 1e-12)
-	// ref #7: t_cool,mix = 5.2021e12 s = 0.164843 Myr with f = 3/2, 𝒩 = n².
+	// Derived: t_cool,mix = 5.2021e12 s = 0.164843 Myr with f = 3/2, 𝒩 = n² and the
+	// [GO18] normalisation Λ_mix = 10^-21.4.
 	p := fiducial()
 	p.DensityProduct = N2
 	s = mustDerive(t, p, lambdaGO18)
 	near(t, "TCoolMix (s)", float64(s.TCoolMix), 5.2021e12, refTol)
 	near(t, "TCoolMix (Myr)", float64(s.TCoolMix/Megayear), 0.164843, refTol)
-	// ref #12: r = 1 pc, n = 0.1, μ = 0.6 → m = 1.2351e31 g = 6.2113e-3 M☉, N = 3.0857e17 cm⁻².
+	// Derived: r = 1 pc, n = 0.1, μ = 0.6 → m = 1.2351e31 g = 6.2113e-3 M☉, N = 3.0857e17 cm⁻².
 	near(t, "MassCold (g)", float64(s.MassCold), 1.2351e31, refTol)
 	near(t, "MassCold (M☉)", float64(s.MassCold/SolarMass), 6.2113e-3, refTol)
 	near(t, "ColumnCold", float64(s.ColumnCold), 3.0857e17, refTol)
@@ -111,13 +114,13 @@ func go18(t *testing.T, p Params, cf CoolingFunction) Outcome {
 }
 
 func TestGronkeOhNormalisation(t *testing.T) {
-	// ref #7 and the statement: Λ_mix = 10^-21.4, χ = 100, T_cl = 1e4, P/k = 1e3,
+	// Derived, and the statement: Λ_mix = 10^-21.4, χ = 100, T_cl = 1e4, P/k = 1e3,
 	// M = 1, μ = 0.6, γ = 5/3, f = 3/2, 𝒩 = n² give r_crit = 2.5528 pc ("few pc" in [GO18]).
 	base := fiducial()
 	base.DensityProduct = N2
 	near(t, "r_crit,GO fiducial (pc)", float64(go18(t, base, lambdaGO18).RCrit/Parsec), 2.5528, refTol)
 
-	// ref #8: P/k = 2e3 → 1.2764 pc; M = 1.5 → 3.8292 pc; T_cl = 2e4 → 14.441 pc (Λ fixed).
+	// Derived from r_crit ∝ T_cl^{5/2} M χ/(P Λ): P/k = 2e3 → 1.2764 pc; M = 1.5 → 3.8292 pc; T_cl = 2e4 → 14.441 pc (Λ fixed).
 	cases := []struct {
 		name string
 		set  func(*Params)
@@ -133,11 +136,11 @@ func TestGronkeOhNormalisation(t *testing.T) {
 		near(t, "r_crit,GO "+c.name+" (pc)", float64(go18(t, p, lambdaGO18).RCrit/Parsec), c.want, refTol)
 	}
 
-	// ref #9 / physics reference §4.3: f = 5/2, 𝒩 = n_H² (X = 0.7381) → 21.717 pc.
+	// Derived (convention sensitivity): f = 5/2, 𝒩 = n_H² (X = 0.7381) → 21.717 pc.
 	p := fiducial()
 	p.HeatCapacity, p.DensityProduct = Isobaric, NH2
 	near(t, "r_crit,GO f=5/2 nH2 (pc)", float64(go18(t, p, lambdaGO18).RCrit/Parsec), 21.717, refTol)
-	// Physics reference §4.3, the other rows.
+	// Derived, the other conventions.
 	p.HeatCapacity = Isochoric
 	near(t, "r_crit,GO f=3/2 nH2 (pc)", float64(go18(t, p, lambdaGO18).RCrit/Parsec), 13.030, refTol)
 	p.HeatCapacity, p.DensityProduct = Isobaric, N2
@@ -145,7 +148,7 @@ func TestGronkeOhNormalisation(t *testing.T) {
 }
 
 // TestGronkeOhScaling checks r_crit ∝ T_cl^{5/2} M χ/(P Λ_mix) at fixed Λ
-// (physics reference §5.1, derived) over a grid of multiplicative steps.
+// (derived from the [GO18] criterion) over a grid of multiplicative steps.
 func TestGronkeOhScaling(t *testing.T) {
 	base := fiducial()
 	r0 := float64(go18(t, base, lambdaGO18).RCrit)
@@ -215,14 +218,14 @@ func TestRoundTrip(t *testing.T) {
 }
 
 func TestIsobaricRatios(t *testing.T) {
-	// ref #18: same f and ξ, χ = 100, Λ_mix/Λ_hot = 3 → t_cool,hot/t_cool,mix = 300.
+	// Derived: same f and ξ, χ = 100, Λ_mix/Λ_hot = 3 → t_cool,hot/t_cool,mix = 300.
 	// A power law through T_mix = 1e5 and T_hot = 1e6 with Λ_mix/Λ_hot = 3 has slope −log10(3).
 	cf := PowerLawCooling{L0: 3e-22, T0: 1e5, Slope: -math.Log10(3)}
 	p := fiducial()
 	p.DensityProduct = N2
 	s := mustDerive(t, p, cf)
 	near(t, "t_cool,hot/t_cool,mix", float64(s.TCoolHot/s.TCoolMix), 300, 1e-12)
-	// Physics reference §4.2 (derived): t_cool,cl/t_cool,mix = χ⁻¹ Λ(T_mix)/Λ(T_cl).
+	// Derived: t_cool,cl/t_cool,mix = χ⁻¹ Λ(T_mix)/Λ(T_cl).
 	near(t, "t_cool,cl/t_cool,mix", float64(s.TCoolCold/s.TCoolMix), float64(s.LambdaMix/s.LambdaCold)/100, 1e-12)
 }
 
@@ -270,7 +273,7 @@ type noNodes struct{ cf CoolingFunction }
 func (n noNodes) Lambda(t Temperature) CoolingRate { return n.cf.Lambda(t) }
 
 func TestSeparateMu(t *testing.T) {
-	// Physics reference §2: T_hot = χ T_cl μ_hot/μ_cl; ρ_cl/ρ_hot must stay χ.
+	// Derived from equal P = ρ k_B T/(μ m_p): T_hot = χ T_cl μ_hot/μ_cl; ρ_cl/ρ_hot must stay χ.
 	p := fiducial()
 	p.MuCold, p.MuHot = 1.22, 0.6
 	s := mustDerive(t, p, lambdaGO18)
@@ -423,10 +426,11 @@ func TestBuiltinCriteria(t *testing.T) {
 			t.Errorf("%s: missing status, citation or range status", c.ID)
 		}
 	}
-	// Physics reference §5.12: what it marks FROM MEMORY must be unverified here.
+	// Criteria whose constants are from memory (not in their papers' abstracts)
+	// must be unverified here.
 	for _, id := range []string{"li-2020", "sparre-2020", "abruzzo-2023", "farber-gronke-2022", "turbulent-box"} {
 		if c, _ := CriterionByID(cs, id); c.Verified {
-			t.Errorf("%s is marked verified; the reference has its constants from memory", id)
+			t.Errorf("%s is marked verified; its constants are from memory", id)
 		}
 	}
 }

@@ -9,8 +9,8 @@ import (
 // This file holds the steady adiabatic outflow of Chevalier & Clegg 1985
 // [CC85]: energy Ė and mass Ṁ injected uniformly inside a radius R,
 // spherical, steady, no gravity, no radiative cooling. The Mach number
-// M(r) solves an implicit relation on each side of R (physics reference
-// §11.3; the relations are from memory, WindStatus says so for people);
+// M(r) solves an implicit relation on each side of R ([CC85]; the
+// relations are from memory, WindStatus says so for people);
 // mass conservation and Bernoulli's constant then give every other
 // quantity. A cold cloud at T_cl in pressure equilibrium at radius r sees
 // χ(r) = T(r)/T_cl (one μ), M(r) and P(r), so CloudParams turns the wind
@@ -91,9 +91,9 @@ const (
 var ErrConflict = errors.New("conflicting inputs")
 
 // Accepted ranges of the outflow inputs. Like those of Params they catch
-// typos and unit mistakes, not physics: starburst and AGN outflows have
-// Ė ~ 10⁴⁰–10⁴⁵ erg s⁻¹ and R ~ 0.1–0.5 kpc (physics reference §11.3,
-// from memory); loadings above 10 (α) or 100 (β) are not in use.
+// typos and unit mistakes, not physics: starburst and AGN outflows have Ė ~
+// 10⁴⁰–10⁴⁵ erg s⁻¹ and R ~ 0.1–0.5 kpc (from memory); loadings above 10
+// (α) or 100 (β) are not in use.
 var windFieldRanges = map[string]fieldRange{
 	FieldEnergyRate:    {1e30, 1e50, false, 1, " erg s⁻¹"},
 	FieldMassRate:      {1e15, 1e32, false, 1, " g s⁻¹"},
@@ -116,7 +116,7 @@ func CheckWindField(field string, v float64) error {
 
 // FiducialWind returns an illustrative outflow (cloudwind's choice, not a
 // published set-up): SFR = 10 M☉ yr⁻¹ with α = β = 1, R = 300 pc (within
-// the 0.1–0.5 kpc recalled as typical, physics reference §11.3), clouds at
+// the 0.1–0.5 kpc recalled as typical, from memory), clouds at
 // T_cl = 10⁴ K and Z = 1 Z☉, and the default conventions. Its terminal
 // speed is 976 km s⁻¹ and its temperature at R about 10⁷ K.
 func FiducialWind() WindParams {
@@ -144,7 +144,7 @@ func (p WindParams) cloudTemplate() Params {
 //
 //	Ė = α · SupernovaPowerPerSFR · SFR,   Ṁ = β · SFR,
 //
-// when SFR is set (physics reference §11.3; from memory, WindLoadingStatus).
+// when SFR is set (typical [CC85] inputs, from memory; WindLoadingStatus).
 func (p WindParams) Rates() (Power, MassRate) {
 	if p.SFR != 0 {
 		return Power(p.EnergyLoading * SupernovaPowerPerSFR * float64(p.SFR)), MassRate(p.MassLoading * float64(p.SFR))
@@ -205,8 +205,8 @@ func (p WindParams) Validate() error {
 }
 
 // windCentralTemperature returns T(0) = μ m_p c_s(0)²/(γ k_B) with
-// c_s(0)² = (γ−1) Ė/Ṁ, Bernoulli's constant at M = 0 (physics reference
-// §11.3, derived).
+// c_s(0)² = (γ−1) Ė/Ṁ, Bernoulli's constant at M = 0 (derived from
+// v²/2 + c_s²/(γ−1) = Ė/Ṁ of [CC85]).
 func windCentralTemperature(eDot, mDot, gamma, mu float64) float64 {
 	cs2 := (gamma - 1) * eDot / mDot
 	return mu * float64(ProtonMass) * cs2 / (gamma * Boltzmann)
@@ -217,8 +217,8 @@ func windCentralTemperature(eDot, mDot, gamma, mu float64) float64 {
 //
 //	v_∞ = (2Ė/Ṁ)^{1/2},
 //
-// Bernoulli's constant v²/2 + c_s²/(γ−1) = Ė/Ṁ at c_s = 0 [CC85] (physics
-// reference §11.3; from memory, the limit derived).
+// Bernoulli's constant v²/2 + c_s²/(γ−1) = Ė/Ṁ at c_s = 0 [CC85] (the
+// relation from memory, the limit derived).
 //
 // Special cases are:
 //
@@ -330,9 +330,9 @@ func (g *cc85) logMach(rho float64) float64 {
 //
 //	r/R = ((3γ + M⁻²)/(1 + 3γ))^{−(3γ+1)/(5γ+1)} ((γ − 1 + 2M⁻²)/(1 + γ))^{(γ+1)/(2(5γ+1))},
 //
-// [CC85] (physics reference §11.3; the relation is from memory, no
-// equation number read). Computed in logs, so it is exact at M = 1 and
-// free of overflow as M → 0, where r/R → M e^{C_in} (derived).
+// [CC85] (the relation is from memory, no equation number read). Computed
+// in logs, so it is exact at M = 1 and free of overflow as M → 0, where r/R
+// → M e^{C_in} (derived).
 //
 // Special cases are:
 //
@@ -354,9 +354,8 @@ func CC85RadiusInside(mach, gamma float64) float64 {
 //
 //	(r/R)² = M^{2/(γ−1)} ((γ − 1 + 2M⁻²)/(1 + γ))^{(γ+1)/(2(γ−1))},
 //
-// [CC85] (physics reference §11.3; the relation is from memory, no
-// equation number read). Computed in logs, so it is exact at M = 1 and
-// free of overflow for large M.
+// [CC85] (the relation is from memory, no equation number read). Computed
+// in logs, so it is exact at M = 1 and free of overflow for large M.
 //
 // Special cases are:
 //
@@ -378,7 +377,7 @@ func CC85RadiusOutside(mach, gamma float64) float64 {
 //	CC85RadiusInside(M, γ) = r/R  (M < 1, r < R),   CC85RadiusOutside(M, γ) = r/R  (M > 1, r > R),
 //
 // the subsonic branch inside and the supersonic one outside [CC85]
-// (relations from memory, physics reference §11.3). It is found by Brent's
+// (relations from memory). It is found by Brent's
 // method [Bre73] on ln M between bounds that bracket it (derived, see
 // outflow.go), to a relative 10⁻¹⁵ in M (plus 2ε|ln M|); round trips
 // through the relations return r/R to 2×10⁻¹⁴.
@@ -453,7 +452,7 @@ type WindPoint struct {
 }
 
 // At returns the wind at radius r. With M from CC85Mach and Bernoulli's
-// constant and mass conservation ([CC85], physics reference §11.3):
+// constant and mass conservation ([CC85]; relations from memory):
 //
 //	v = v_∞ M (M² + 2/(γ−1))^{-1/2},   c_s = v/M,
 //	ρ v = Ṁ r/(4πR³) (r < R),   ρ v = Ṁ/(4πr²) (r ≥ R),
@@ -523,8 +522,8 @@ func (w *Wind) Mach(r Length) float64 {
 //	t_cool = f n k_B T/(𝒩 Λ(T)),
 //
 // with the conventions of the wind's Params (f, 𝒩 = n_H² or n², the
-// cooling floor), as State.TCoolHot for a cloud there (physics reference
-// §4.1).
+// cooling floor), as State.TCoolHot for a cloud there (the definition of
+// package doc, Conventions).
 //
 // Special cases are:
 //
@@ -598,7 +597,7 @@ const coolingSamplesPerDecade = 32
 //	t_cool(r_cool) = r_cool/v(r_cool),
 //
 // and whether there is one: past it the adiabatic solution is not
-// self-consistent (physics reference §11.3 assumes no cooling; the
+// self-consistent ([CC85]'s solution assumes no cooling; the
 // comparison is cloudwind's test of that). The ratio is sampled 32 times per decade (at least 16
 // intervals) and the first crossing refined by Brent's method on ln r
 // [Bre73] to 10⁻¹² in ln r; a dip below and back within one sample
@@ -637,8 +636,8 @@ func (w *Wind) CoolingRadius(cf CoolingFunction, lo, hi Length) (Length, bool, e
 //
 //	χ = T(r)/T_cl,   M = M(r),   P/k_B = P(r)/k_B,
 //
-// pressure equilibrium with one μ (physics reference §3 and §11.3,
-// derived), with T_cl, Z, γ, μ and the conventions of the wind. It returns
+// pressure equilibrium with one μ (derived: P = n k_B T is the same in
+// both phases), with T_cl, Z, γ, μ and the conventions of the wind. It returns
 // them with the error of their Validate, wrapped with the radius
 // (errors.As finds the *FieldError).
 //

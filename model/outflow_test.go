@@ -8,17 +8,17 @@ import (
 )
 
 // Tests of the Chevalier & Clegg (1985) outflow. The relations themselves
-// are from memory (physics reference §11.3); every check value here is
-// DERIVED from them or from the conservation laws, and says so. The
+// are from memory; every check value here is DERIVED from them or from the
+// conservation laws, and says so. The
 // strongest check, TestWindMomentum, verifies that the remembered
 // relations satisfy the steady Euler momentum equation, which they must
 // if they were remembered correctly.
 
 var cc85Gammas = []float64{1.1, 4.0 / 3, 5.0 / 3, 2, 3}
 
-// insideRef and outsideRef evaluate the relations of the physics reference
-// §11.3 as written there, with math.Pow, independently of the log forms
-// of outflow.go.
+// insideRef and outsideRef evaluate the [CC85] relations (from memory) in
+// their direct form, with math.Pow, independently of the log forms of
+// outflow.go.
 func insideRef(m, g float64) float64 {
 	return math.Pow((3*g+1/(m*m))/(1+3*g), -(3*g+1)/(5*g+1)) * math.Pow((g-1+2/(m*m))/(1+g), (g+1)/(2*(5*g+1)))
 }
@@ -36,8 +36,8 @@ func mustWind(t testing.TB, p WindParams) Wind {
 	return w
 }
 
-// TestCC85SonicPoint: M(R) = 1 satisfies both branches (physics reference
-// §11.3, derived: every factor is 1 there), so CC85Mach(1) = 1 and both
+// TestCC85SonicPoint: M(R) = 1 satisfies both branches (derived: every
+// factor is 1 there), so CC85Mach(1) = 1 and both
 // inverse relations give r/R = 1 exactly.
 func TestCC85SonicPoint(t *testing.T) {
 	for _, g := range cc85Gammas {
@@ -59,10 +59,9 @@ func TestCC85SonicPoint(t *testing.T) {
 	}
 }
 
-// TestCC85RoundTrip: solve M at r, put it into the relation as the
-// physics reference writes it (insideRef, outsideRef: not the code's log
-// forms), and get r back to 1e-12 relative; the subsonic branch inside R,
-// the supersonic one outside.
+// TestCC85RoundTrip: solve M at r, put it into the relation as the direct
+// form (insideRef, outsideRef: not the code's log forms), and get r back to
+// 1e-12 relative; the subsonic branch inside R, the supersonic one outside.
 func TestCC85RoundTrip(t *testing.T) {
 	var radii []float64
 	for k := -24; k <= 24; k++ {
@@ -114,7 +113,7 @@ func TestCC85RoundTrip(t *testing.T) {
 	}
 }
 
-// TestCC85Limits: the derived limits of physics reference §11.3 for
+// TestCC85Limits: the derived limits of the [CC85] relations for
 // γ = 5/3 and r ≫ R, with their first corrections (derived here by
 // expanding the outside relation: M³ = 16 (r/R)² (1 + 3/M²)^{-2}, so
 // M/M_∞ − 1 ≈ −2/M²; and v = v_∞ (1 + 3/M²)^{-1/2}, so 1 − v/v_∞ ≈ 1.5/M²),
@@ -124,7 +123,7 @@ func TestCC85Limits(t *testing.T) {
 	const g = 5.0 / 3
 	for _, rho := range []float64{1e3, 1e4, 1e6} {
 		m := CC85Mach(rho, g)
-		mInf := math.Pow(4, 2.0/3) * math.Pow(rho, 2.0/3) // physics reference §11.3 (derived)
+		mInf := math.Pow(4, 2.0/3) * math.Pow(rho, 2.0/3) // derived
 		dev := m/mInf - 1
 		if want := -2 / (m * m); math.Abs(dev/want-1) > 1e-2 {
 			t.Errorf("r/R = %g: M/(4^{2/3}(r/R)^{2/3}) − 1 = %.4g, want ≈ −2/M² = %.4g (±1%%)", rho, dev, want)
@@ -138,7 +137,7 @@ func TestCC85Limits(t *testing.T) {
 	}
 	for _, rho := range []float64{1e4, 1e6} {
 		m := w.Mach(Length(rho) * bigR)
-		// T ∝ r^{-4/3}, ρ ∝ r^{-2} (physics reference §11.3, derived); corrections O(1/M²).
+		// T ∝ r^{-4/3}, ρ ∝ r^{-2} (derived); corrections O(1/M²).
 		if s := slope(func(p WindPoint) float64 { return float64(p.T) }, rho); math.Abs(s+4.0/3) > 10/(m*m) {
 			t.Errorf("r/R = %g: d ln T/d ln r = %.9f, want −4/3 (±10/M² = %.2g)", rho, s, 10/(m*m))
 		}
@@ -161,10 +160,10 @@ func TestCC85Limits(t *testing.T) {
 	}
 }
 
-// TestWindFluxes: mass and energy fluxes (physics reference §11.3,
-// derived). Outside R, 4π r² ρ v = Ṁ and 4π r² ρ v (v²/2 + c_s²/(γ−1)) = Ė;
-// inside, ρ v = Ṁ r/(4πR³) and the energy flux is Ė (r/R)³ (the energy
-// injected within r). Also continuity at R.
+// TestWindFluxes: mass and energy fluxes (derived). Outside R, 4π r² ρ v =
+// Ṁ and 4π r² ρ v (v²/2 + c_s²/(γ−1)) = Ė; inside, ρ v = Ṁ r/(4πR³) and the
+// energy flux is Ė (r/R)³ (the energy injected within r). Also continuity
+// at R.
 func TestWindFluxes(t *testing.T) {
 	for _, p := range []WindParams{
 		FiducialWind(),
@@ -306,7 +305,7 @@ func TestWindSpecialCases(t *testing.T) {
 	}
 }
 
-// TestWindParams: Rates (physics reference §11.3: Ė = α 3×10⁴¹ erg s⁻¹
+// TestWindParams: Rates (typical [CC85] inputs: Ė = α 3×10⁴¹ erg s⁻¹
 // per M☉ yr⁻¹, Ṁ = β SFR, from memory; the arithmetic derived), the
 // defaults, and the fiducial wind's stated numbers: v_∞ = (2·3×10⁴¹ erg s⁻¹
 // / 1 M☉ yr⁻¹)^{1/2} = 976 km s⁻¹ (derived, three figures in its doc) and

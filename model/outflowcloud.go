@@ -7,8 +7,8 @@ import (
 )
 
 // This file carries one cloud outward through a Chevalier & Clegg wind:
-// the growth and entrainment ODE of Evolve (physics reference §6.5) with
-// the thermal state taken at the cloud's current radius r(t). Inside, the
+// the growth and entrainment ODE of Evolve with the thermal state taken at
+// the cloud's current radius r(t). Inside, the
 // state is y = (m/m0, v/v_∞, r/R) against τ = t v_∞/R.
 //
 // At each evaluation the wind at r gives v_w, c_s,hot, ρ_hot, T_hot and
@@ -289,7 +289,7 @@ func (o *carryODE) coolingTime(k CoolingTimeKind, pt *WindPoint, rhoCl float64) 
 		if !o.mmOK {
 			return math.Inf(1)
 		}
-		return o.f * Boltzmann * o.mmT * o.mmT / (o.xiIso * p * o.mmLam) // f k T²/(ξ P Λ), physics reference §4.1
+		return o.f * Boltzmann * o.mmT * o.mmT / (o.xiIso * p * o.mmLam) // f k T²/(ξ P Λ), derived: t_cool at fixed P
 	}
 	return math.Inf(1)
 }
@@ -311,7 +311,7 @@ func (o *carryODE) local(y []float64) carryLocal {
 	delta := vw - v
 	l.tcc = math.Sqrt(chi) * l.rCl / vw // t_cc(r) with the local v_w, as Evolve
 
-	// Branch: the criterion at the current radius and the local state (§6.5).
+	// Branch: the criterion at the current radius and the local state (as Evolve).
 	l.ratio, l.thr = math.Inf(1), 1
 	u := math.Inf(1)
 	switch {
@@ -331,7 +331,7 @@ func (o *carryODE) local(y []float64) carryLocal {
 	case math.IsInf(l.ratio, 1), math.IsInf(u, 1):
 		l.s = 0
 	case o.smooth:
-		l.s = 1 / (1 + math.Pow(u, o.set.Width)) // a modelling choice, not a published result (§6.5)
+		l.s = 1 / (1 + math.Pow(u, o.set.Width)) // cloudwind's modelling choice, not a published result
 	case u < 1:
 		l.s = 1
 	}
@@ -341,20 +341,20 @@ func (o *carryODE) local(y []float64) carryLocal {
 		l.tcoolMix = o.coolingTime(o.mixKind, pt, rhoCl)
 		l.vmix = float64(MixingVelocity(o.set.AlphaV, Velocity(o.csCl), Time(l.tcoolMix), Time(l.rCl/o.csCl))) // [TOG21] form
 		if o.set.MachFactor {
-			l.vmix *= math.Sqrt(math.Abs(delta) / csHot) // × (|Δv|/c_s,hot)^{1/2}, §6.1 (from memory)
+			l.vmix *= math.Sqrt(math.Abs(delta) / csHot) // × (|Δv|/c_s,hot)^{1/2}, [GO20] (from memory)
 		}
-		grow = l.s * rhoHot * l.vmix * o.set.AreaFactor * 4 * math.Pi * l.rCl * l.rCl // ṁ_grow = S ρ_hot v_mix f_A 4π r², §6.2
+		grow = l.s * rhoHot * l.vmix * o.set.AreaFactor * 4 * math.Pi * l.rCl * l.rCl // ṁ_grow = S ρ_hot v_mix f_A 4π r² (as Evolve)
 	}
 	loss := 0.0
 	if o.lossOn {
-		loss = (1 - l.s) * m / (o.set.Kappa * l.tcc) // ṁ_loss = (1 − S) m/(κ t_cc(r)), §6.3
+		loss = (1 - l.s) * m / (o.set.Kappa * l.tcc) // ṁ_loss = (1 − S) m/(κ t_cc(r)) (as Evolve)
 	}
 	drag := 0.0
 	if o.dragOn {
-		drag = 0.5 * o.set.DragCoefficient * rhoHot * delta * math.Abs(delta) * math.Pi * l.rCl * l.rCl * o.dragBoost // §6.4, McCourt et al. 2015
+		drag = 0.5 * o.set.DragCoefficient * rhoHot * delta * math.Abs(delta) * math.Pi * l.rCl * l.rCl * o.dragBoost // ram drag, McCourt et al. 2015 factor
 	}
-	l.mdot = grow - loss           // §6.5
-	l.dvdt = grow/m*delta + drag/m // (ṁ_grow/m)Δv + F_drag/m, §6.4; lost mass keeps v
+	l.mdot = grow - loss           // dm/dt = ṁ_grow − ṁ_loss
+	l.dvdt = grow/m*delta + drag/m // (ṁ_grow/m)Δv + F_drag/m, derived; lost mass keeps v
 	return l
 }
 
@@ -388,11 +388,11 @@ func (o *carryODE) eval(_ float64, y, dy []float64) {
 	dy[2] = y[1] // d(r/R)/dτ = v/v_∞
 }
 
-// Carry integrates the cloud-growth and entrainment ODE of Evolve
-// (physics reference §6.5) for a cloud of radius rCl launched at radius
-// set.R0 with speed set.V0 through the wind, with the thermal state at
-// its current radius r(t): in CGS, with Δv = v_w(r) − v and
-// r_cl = (3m/(4πρ_cl(r)))^{1/3}, ρ_cl = μ m_p P(r)/(k_B T_cl),
+// Carry integrates the cloud-growth and entrainment ODE of Evolve for a
+// cloud of radius rCl launched at radius set.R0 with speed set.V0 through
+// the wind, with the thermal state at its current radius r(t): in CGS, with
+// Δv = v_w(r) − v and r_cl = (3m/(4πρ_cl(r)))^{1/3}, ρ_cl = μ m_p P(r)/(k_B
+// T_cl),
 //
 //	ṁ_grow = S ρ_hot(r) v_mix f_A 4π r_cl²,   ṁ_loss = (1 − S) m/(κ t_cc)
 //	dm/dt  = ṁ_grow − ṁ_loss

@@ -6,13 +6,13 @@ import (
 	"testing"
 )
 
-// Tests of Wind.Carry. The physics is Evolve's with the state of the
-// local wind, so the first test checks exactly that; the others check
-// derived limits and scalings (each derived in its comment), the events,
-// the interpolation, convergence, and the two published statements the
-// physics reference confirms for clouds in a Chevalier & Clegg wind:
-// Gronke & Oh 2020's constant growth rate and Dutta, Sharma & Gronke
-// 2025's suppressed growth (both qualitative, from the abstracts).
+// Tests of Wind.Carry. The physics is Evolve's with the state of the local
+// wind, so the first test checks exactly that; the others check derived
+// limits and scalings (each derived in its comment), the events, the
+// interpolation, convergence, and two published statements for clouds in a
+// Chevalier & Clegg wind: Gronke & Oh 2020's constant growth rate and
+// Dutta, Sharma & Gronke 2025's suppressed growth (both qualitative, from
+// the abstracts).
 
 // carryWind is the fiducial outflow with the synthetic stub table of
 // bench_test.go (no physical source; shape only).
@@ -130,17 +130,17 @@ func TestCarryGrowthScaling(t *testing.T) {
 }
 
 // TestCarryGronkeOh2020 is our measurement against a qualitative published
-// statement: Gronke & Oh 2020 (arXiv:1907.04771, abstract, confirmed in
-// physics reference §5.10) find that in a Chevalier & Clegg wind "the mass
-// growth rate is constant". With the fiducial outflow, the stub table and
-// the gronke-oh-2018 branch, a 1 pc cloud launched at rest at R grows from
-// R to 9.3 R (then the criterion fails and it is destroyed), and over that
-// stretch dm/dt stays within 6.8% of its mean ((max − min)/mean; slope
-// d ln ṁ/d ln r = −0.03): constant, as stated. The tolerance 0.1 covers
-// the measurement, not a published number. It holds only in a band of
-// sizes (TestCarryGrowthScaling): we measured spreads of 0.81 (slope
-// +0.56) for 0.1 pc and 1.06 (slope −0.26) for 30 pc clouds launched at R,
-// checked here as "≥ 0.5 with slopes of opposite sign".
+// statement: Gronke & Oh 2020 (arXiv:1907.04771, abstract) find that in a
+// Chevalier & Clegg wind "the mass growth rate is constant". With the
+// fiducial outflow, the stub table and the gronke-oh-2018 branch, a 1 pc
+// cloud launched at rest at R grows from R to 9.3 R (then the criterion
+// fails and it is destroyed), and over that stretch dm/dt stays within 6.8%
+// of its mean ((max − min)/mean; slope d ln ṁ/d ln r = −0.03): constant, as
+// stated. The tolerance 0.1 covers the measurement, not a published number.
+// It holds only in a band of sizes (TestCarryGrowthScaling): we measured
+// spreads of 0.81 (slope +0.56) for 0.1 pc and 1.06 (slope −0.26) for 30 pc
+// clouds launched at R, checked here as "≥ 0.5 with slopes of opposite
+// sign".
 func TestCarryGronkeOh2020(t *testing.T) {
 	w, cf := carryWind(t)
 	c, _ := CriterionByID(BuiltinCriteria(), "gronke-oh-2018")
@@ -170,7 +170,7 @@ func TestCarryGronkeOh2020(t *testing.T) {
 }
 
 // TestCarryDuttaSuppressed checks the direction of Dutta, Sharma & Gronke
-// 2025 (arXiv:2506.08545, confirmed in physics reference §5.10): along a
+// 2025 (arXiv:2506.08545, abstract): along a
 // Chevalier & Clegg wind χ falls steeply downstream and cold-mass growth
 // is suppressed compared with a plane-parallel wind. The plane-parallel
 // wind is Evolve on the launch conditions (Launch), same criterion and
@@ -220,8 +220,8 @@ func TestCarryDuttaSuppressed(t *testing.T) {
 // TestCarryDestructionOnly: the adiabatic baseline (S = 0) with ram drag
 // off and v0 = 0: nothing moves the cloud, so r stays r0, and
 // dm/dt = −m/(κ t_cc) with t_cc ∝ r_cl ∝ m^{1/3} gives
-// m = m0 (1 − t/(3κ t_cc,0))³, destroyed at 2.7κ t_cc,0 (derived, physics
-// reference §6.3, as TestEvolveDestructionOnly).
+// m = m0 (1 − t/(3κ t_cc,0))³, destroyed at 2.7κ t_cc,0 (derived, as
+// TestEvolveDestructionOnly).
 func TestCarryDestructionOnly(t *testing.T) {
 	w, cf := carryWind(t)
 	ad, _ := CriterionByID(BuiltinCriteria(), "adiabatic")

@@ -132,7 +132,7 @@ func TestWindProfileAllocations(t *testing.T) {
 }
 
 // TestWindProfileScaling: at fixed radius the criteria's threshold radii
-// do not depend on r_cl (physics reference §5: τ_cool does not depend on
+// do not depend on r_cl (derived: τ_cool does not depend on
 // it and both τ_dyn ∝ r_cl), so two profiles for different clouds share
 // r_crit(r) row by row, and the verdict flips where r_cl crosses it.
 func TestWindProfileScaling(t *testing.T) {

@@ -236,7 +236,9 @@ func (e *FieldError) Error() string { return e.Field + ": " + e.Reason }
 func (e *FieldError) Unwrap() error { return e.Err }
 
 // Accepted input ranges. They are wide enough for every published set-up
-// (physics reference §8: χ 10–10⁵, M up to ~10, P/k_B 10¹–10⁷ K cm⁻³) and
+// (χ 10–10⁵, up to 10⁵ in Chen & Oh 2024, arXiv:2311.04275; M up to ~10 in
+// Scannapieco & Brüggen 2015, from memory; P/k_B 10¹–10⁷ K cm⁻³ from the
+// CGM to starburst winds, from memory) and
 // exist to catch typos and unit mistakes, not to judge physics.
 const (
 	MaxChi          = 1e8

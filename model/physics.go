@@ -3,7 +3,7 @@ package model
 import "math"
 
 // This file holds the closed-form relations of the cloud-in-wind problem,
-// one function each, in the notation of the physics reference.
+// one function each, in the notation of the package doc (Conventions).
 
 // HotTemperature returns the wind temperature in pressure equilibrium with a
 // cloud at tCl,
@@ -27,13 +27,14 @@ func ParticleDensity(p Pressure, t Temperature) NumberDensity {
 }
 
 // MassDensity returns ρ = μ m_p n for particle density n and mean molecular
-// weight mu (m_p is the mass unit of μ here; physics reference §1).
+// weight mu (m_p is the mass unit of μ here, cloudwind's choice; m_H or m_u
+// would change ρ by 0.05% or 0.7%, derived).
 func MassDensity(n NumberDensity, mu float64) Density {
 	return Density(mu * float64(ProtonMass) * float64(n))
 }
 
 // HydrogenDensity returns the hydrogen nucleus density n_H = X ρ/m_H for mass
-// density rho and hydrogen mass fraction x (physics reference §2).
+// density rho and hydrogen mass fraction x (definition of X).
 func HydrogenDensity(rho Density, x float64) NumberDensity {
 	return NumberDensity(x * float64(rho) / float64(HydrogenAtomMass))
 }
@@ -43,7 +44,7 @@ func HydrogenDensity(rho Density, x float64) NumberDensity {
 //	c_s = (γ k_B T/(μ m_p))^{1/2}
 //
 // of gas at temperature t with mean molecular weight mu and adiabatic index
-// gamma (physics reference §3.2).
+// gamma (the textbook adiabatic sound speed).
 func SoundSpeed(t Temperature, mu, gamma float64) Velocity {
 	return Velocity(math.Sqrt(gamma * Boltzmann * float64(t) / (mu * float64(ProtonMass))))
 }
@@ -92,7 +93,8 @@ func MixTemperature(tCl, tHot Temperature) Temperature {
 //
 // of gas with particle density n at temperature t, where f is the
 // heat-capacity factor (3/2 isochoric, 5/2 isobaric), densityProduct is 𝒩 in
-// cm⁻⁶ (n_H² or n²) and lambda is Λ(T) (physics reference §4.1).
+// cm⁻⁶ (n_H² or n²) and lambda is Λ(T) (definition; f and 𝒩 are the
+// labelled conventions of the package doc).
 //
 // Special cases are:
 //
@@ -111,7 +113,7 @@ func CoolingTime(f float64, n NumberDensity, t Temperature, densityProduct float
 // the standard order-of-magnitude statement (as in the introduction of
 // [GO18]; status: from memory). For a sphere with drag coefficient C_D the
 // exact time to halve the velocity difference is (8/(3C_D)) χ r_cl/v_w
-// (derived, physics reference §6.4).
+// (derived from F_drag = ½ C_D ρ_hot Δv² π r_cl² at constant mass).
 func DragTime(rCl Length, chi float64, vW Velocity) Time {
 	return Time(chi * float64(rCl) / float64(vW))
 }
@@ -123,7 +125,7 @@ func CloudMass(r Length, rho Density) Mass {
 }
 
 // CloudColumn returns the column density N = n r of a cloud of radius r and
-// particle density n (physics reference §3.6; through the centre it is 2 n r).
+// particle density n (derived for a sphere; through the centre it is 2 n r).
 func CloudColumn(n NumberDensity, r Length) ColumnDensity {
 	return ColumnDensity(float64(n) * float64(r))
 }
@@ -155,7 +157,7 @@ func MixingVelocity(alphaV float64, csCold Velocity, tCoolCold, tSoundCold Time)
 //
 //	t_grow = m/ṁ = χ r_cl / (3 v_mix),
 //
-// from ṁ = ρ_hot v_mix 4π r_cl² (derived, physics reference §6.2; [GO20]'s
+// from ṁ = ρ_hot v_mix 4π r_cl² (derived; [GO20]'s
 // area definition is from memory).
 //
 // Special cases are:

@@ -8,9 +8,9 @@ import (
 	"testing"
 )
 
-// Check values of the simulation planner. Sources: the physics reference's
-// check-value table (§9, "ref #N"); "derived" where a value follows from the
-// definitions in plan.go by exact arithmetic (tolerance 1e-12); the
+// Check values of the simulation planner. Sources: derived check values
+// quoted to five figures (tolerance 1e-4); "derived" where a value follows
+// from the definitions in plan.go by exact arithmetic (tolerance 1e-12); the
 // trajectory values are checked against an independent call of Evolve.
 
 const planExact = 1e-12 // derived identities, exact up to rounding
@@ -47,13 +47,13 @@ func hasWarning(pl Plan, code WarningCode) (PlanWarning, bool) {
 }
 
 func TestPlanStepsCheckValue(t *testing.T) {
-	// ref #13 (physics reference §7, derived): N_cc = 20, χ = 100, R = 16,
+	// Derived (Δt = C Δx/(v_w + c_s,hot), t_end = N_cc t_cc): N_cc = 20, χ = 100, R = 16,
 	// M = 1.5, C = 0.3 → N_steps = N_cc χ^{1/2} R (M+1)/(M C) = 17 777.8,
 	// quoted as 17 778 (five figures: 1e-4 relative).
 	set := PlanSettings{CellsPerRadius: 16, CFL: 0.3, RunTcc: 20}
 	pl := mustPlan(t, planState(t, 100, 1.5, 1e3, Parsec), set)
-	near(t, "Steps(ref #13)", pl.Steps, 17778, refTol)
-	near(t, "Steps(ref #13) closed form", pl.Steps, math.Ceil(20*10*16*2.5/(1.5*0.3)), planExact)
+	near(t, "Steps(check value)", pl.Steps, 17778, refTol)
+	near(t, "Steps(check value) closed form", pl.Steps, math.Ceil(20*10*16*2.5/(1.5*0.3)), planExact)
 
 	// Property (derived): with one μ the count depends on χ, M, R, C and N_cc
 	// only, not on r_cl or P.
@@ -70,7 +70,7 @@ func TestPlanStepsCheckValue(t *testing.T) {
 func TestPlanCostIdentities(t *testing.T) {
 	// Derived, exact: N_cells = L_x L_y L_z R³ (box in r_cl), memory = cells ×
 	// bytes, core-hours = cell-updates/throughput/3600, Δx = r_cl/R,
-	// Δt = C Δx/(v_w + c_s,hot), t_end = N_cc t_cc (physics reference §7).
+	// Δt = C Δx/(v_w + c_s,hot), t_end = N_cc t_cc (cloudwind's planning rules).
 	s := planState(t, 300, 0.8, 2e3, 3*Parsec)
 	set := PlanSettings{CellsPerRadius: 20, BoxAlongRcl: 60, BoxAcrossRcl: 12, RunTcc: 7, CFL: 0.4,
 		CellUpdatesPerCoreSecond: 3e5, BytesPerCell: 100}
@@ -121,7 +121,7 @@ func TestPlanDefaults(t *testing.T) {
 	if err := (PlanSettings{}).Validate(); err != nil {
 		t.Errorf("PlanSettings{}.Validate() = %v, want nil", err)
 	}
-	// Automatic box (physics reference §7, derived): upstream + x(t_end) + tail;
+	// Automatic box (cloudwind's rule, derived): upstream + x(t_end) + tail;
 	// in a tracking frame x = 0, so the box is 5 + 35 = 40 r_cl.
 	s := planState(t, 100, 1, 1e3, Parsec)
 	pl := mustPlan(t, s, PlanSettings{Tracking: true})
@@ -177,7 +177,7 @@ func TestPlanRunLengthRules(t *testing.T) {
 func TestPlanNotTestable(t *testing.T) {
 	// At r_cl = 1 pc every criterion predicts destruction (the smallest
 	// threshold, abruzzo-2023's, is 0.255 pc at χ = 100 with Λ = 10^-21.4 and
-	// 𝒩 = n², ref #7, so at 0.1 pc all are above r_cl).
+	// 𝒩 = n², derived, so at 0.1 pc all are above r_cl).
 	small := planState(t, 100, 1, 1e3, 0.1*Parsec)
 	pl := mustPlan(t, small, PlanSettings{})
 	if pl.Testable || !pl.AllDestroyed || !strings.HasPrefix(pl.Verdict, "every criterion predicts destruction") {
@@ -228,10 +228,10 @@ func (stepCooling) Lambda(t Temperature) CoolingRate {
 }
 
 func TestPlanWarnings(t *testing.T) {
-	fid := planState(t, 100, 1, 1e3, Parsec)      // ref #7 fiducial, subsonic (M = 1)
+	fid := planState(t, 100, 1, 1e3, Parsec)      // the fiducial problem, subsonic (M = 1)
 	big := planState(t, 100, 1, 1e3, 100*Parsec)  // one cell of r_cl/16 holds n_cl Δx = 1.9e18 cm⁻²
 	grow := planState(t, 100, 1, 1e3, 30*Parsec)  // grows on the gronke-oh-2018 branch
-	tiny := planState(t, 100, 1, 1e3, 0.1*Parsec) // below every threshold (the smallest is 0.255 pc, ref #7 with α = 1 on t_shear)
+	tiny := planState(t, 100, 1, 1e3, 0.1*Parsec) // below every threshold (the smallest is 0.255 pc, the fiducial with α = 1 on t_shear)
 	q := fiducial()
 	q.DensityProduct = N2
 	nr, err := Evaluate(q, stepCooling{}, BuiltinCriteria())
@@ -315,7 +315,7 @@ func TestPlanWarnings(t *testing.T) {
 }
 
 func TestPlanAdvice(t *testing.T) {
-	// Physics reference §7: 32 cells/r_cl for growth (suggestion), ~100 for
+	// 32 cells/r_cl for growth (cloudwind's suggestion), ~100 for
 	// adiabatic convergence (Yirak et al. 2010), ≥ 64 with MHD
 	// (Banda-Barragán et al. 2018).
 	s := planState(t, 100, 1, 1e3, Parsec)
@@ -335,9 +335,9 @@ func TestPlanAdvice(t *testing.T) {
 }
 
 func TestRamDragDisplacement(t *testing.T) {
-	// Physics reference §6.4 (derived): ram drag alone gives
+	// Derived: ram drag alone gives
 	// Δv = v_w/(1 + t/t_drag), t_drag = (8/(3C_D)) χ r_cl/v_w, so dx/dt = v_w/2
-	// at t = t_drag (ref #11), i.e. d(x/r_cl)/dN = χ^{1/2}/2 there.
+	// at t = t_drag, i.e. d(x/r_cl)/dN = χ^{1/2}/2 there.
 	for _, chi := range []float64{10, 100, 1e4} {
 		n := 8 * math.Sqrt(chi) / 3 // t_drag in t_cc for C_D = 1
 		h := 1e-4 * n
@@ -453,7 +453,7 @@ func TestQuestionStrings(t *testing.T) {
 }
 
 func TestComparePlans(t *testing.T) {
-	// At the fiducial problem with Λ = 10^-21.4 and 𝒩 = n² (ref #7), the
+	// At the fiducial problem with Λ = 10^-21.4 and 𝒩 = n² (derived), the
 	// built-in criteria give r_crit = 0.255 (abruzzo-2023), 2.55 (gronke-oh-2018
 	// and farber-gronke-2022, equal at χ = 100) and 25.5 pc (li-2020 and
 	// sparre-2020); the ExampleEvaluate output. adiabatic has no threshold.

@@ -31,7 +31,7 @@ type Quantity struct {
 	Symbol  string    // as written in formulas, e.g. "t_cool,mix"
 	Name    string    // a few words for people
 	Dim     Dimension // its dimension (its value is CGS)
-	Formula string    // the formula, in the notation of the physics reference
+	Formula string    // the formula, in the notation of this package's doc comments
 	Source  string    // citation or "derived"
 	Value   func(s *State) float64
 }

@@ -46,7 +46,7 @@ func (s Spread) Unanimous() bool {
 // ConventionSpread evaluates criteria cs for problem p under every
 // convention the literature uses for the cooling time: f ∈ {3/2, 5/2} ×
 // 𝒩 ∈ {n_H², n², n_e n_i} (the convention spread that moves published
-// threshold radii by factors 2–10, physics reference §4.3, derived), each
+// threshold radii by factors 2–10; derived from the factors f and 𝒩), each
 // with cf and, when second is not nil, with second too. It returns the
 // cases in order and one Spread per criterion. p's own conventions are
 // among the cases; its other inputs are kept.

@@ -10,8 +10,8 @@ import (
 // TestConventionSpread: the spread holds the six conventions of f × 𝒩 for
 // one cooling function, twelve for two; its r_crit range brackets every
 // case; at the fiducial problem with Λ = 10^-21.4 Gronke & Oh's r_crit runs
-// from 2.5528 pc (f = 3/2, n²) to 21.717 pc (f = 5/2, n_H²), the physics
-// reference §4.3 table (derived, five figures).
+// from 2.5528 pc (f = 3/2, n²) to 21.717 pc (f = 5/2, n_H²) (derived, five
+// figures).
 func TestConventionSpread(t *testing.T) {
 	cs := BuiltinCriteria()
 	cases, sp, err := ConventionSpread(fiducial(), lambdaGO18, nil, cs)
@@ -24,7 +24,7 @@ func TestConventionSpread(t *testing.T) {
 	go18 := sp[0]
 	lo, hi := float64(go18.RCritMin/Parsec), float64(go18.RCritMax/Parsec)
 	if !scalar.EqualWithinRel(lo, 2.5528, 1e-4) || !scalar.EqualWithinRel(hi, 21.717, 1e-4) {
-		t.Errorf("GO18 spread %g–%g pc, want 2.5528–21.717 (§4.3)", lo, hi)
+		t.Errorf("GO18 spread %g–%g pc, want 2.5528–21.717 (derived)", lo, hi)
 	}
 	for i, s := range sp {
 		n := 0

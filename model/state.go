@@ -286,13 +286,14 @@ func (s *State) eiPerH2() float64 {
 // over T ∈ [T_cl, T_hot] at the common pressure.
 //
 // At fixed P/k_B, t_cool(T) = f k_B T²/(ξ(T) (P/k_B) Λ(T)) with ξ ≡ 𝒩/n²
-// (physics reference §4.1; derived). ξ = 1 under N2 and (X μ m_p/m_H)² under
-// NH2. With μ_cl ≠ μ_hot, μ along the mixing line is interpolated as a power
-// law in T between the phases, μ(T) = μ_cl (T/T_cl)^δ with
-// δ = ln(μ_hot/μ_cl)/ln(T_hot/T_cl), which gives (μ_cl μ_hot)^{1/2} at T_mix
-// as ρ_mix = (ρ_cl ρ_hot)^{1/2} requires (a modelling choice of cloudwind).
-// Then t_cool ∝ T^{2−2δ}/Λ under NH2 and c_s t_cool ∝ T^{2.5−2.5δ}/Λ, power
-// laws in T, so the minima are found exactly on piecewise power laws.
+// (derived from t_cool = f n k_B T/(𝒩 Λ) with n = P/(k_B T)). ξ = 1 under
+// N2 and (X μ m_p/m_H)² under NH2. With μ_cl ≠ μ_hot, μ along the mixing
+// line is interpolated as a power law in T between the phases, μ(T) = μ_cl
+// (T/T_cl)^δ with δ = ln(μ_hot/μ_cl)/ln(T_hot/T_cl), which gives (μ_cl
+// μ_hot)^{1/2} at T_mix as ρ_mix = (ρ_cl ρ_hot)^{1/2} requires (a modelling
+// choice of cloudwind). Then t_cool ∝ T^{2−2δ}/Λ under NH2 and c_s t_cool ∝
+// T^{2.5−2.5δ}/Λ, power laws in T, so the minima are found exactly on
+// piecewise power laws.
 func (s *State) minimaAlongIsobar(cf CoolingFunction, f float64) {
 	q := &s.Params
 	lo, hi := q.TCloud, s.THot

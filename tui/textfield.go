@@ -60,8 +60,8 @@ func (f textField) Update(k tea.KeyMsg) (textField, tea.Cmd) {
 }
 
 // View draws the field: the prompt and the value shown as selected while
-// it is, else the text input with its cursor. The selection is reverse
-// video with colour; without colour (NO_COLOR, where no terminal
+// it is, else the text input with its cursor. The selection is drawn in
+// inverted colours; without colour (NO_COLOR, where no terminal
 // attribute is written) it is bracketed, "[300]", so that it still shows.
 func (f textField) View() string {
 	if f.selected {

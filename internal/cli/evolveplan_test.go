@@ -14,7 +14,7 @@ import (
 )
 
 func TestPlanJSON(t *testing.T) {
-	// Physics reference §9 row 13: N_cc = 20, χ = 100, R = 16, M = 1.5, C = 0.3 → 17 778 steps.
+	// Derived (N_steps = N_cc χ^{1/2} R (M+1)/(M C)): N_cc = 20, χ = 100, R = 16, M = 1.5, C = 0.3 → 17 778 steps.
 	code, out, errs := runCmd(t, "", "plan", "--chi", "100", "--mach", "1.5", "--cells-per-radius", "16", "--cfl", "0.3",
 		"--run-tcc", "20", "--box", "60x20x20", "--format", "json")
 	if code != 0 {
@@ -30,7 +30,7 @@ func TestPlanJSON(t *testing.T) {
 		}
 	}
 	if steps, _ := doc["steps"].(float64); steps != 17778 {
-		t.Errorf("steps = %v, want 17778 (physics reference §9 row 13)", doc["steps"])
+		t.Errorf("steps = %v, want 17778 (derived)", doc["steps"])
 	}
 	// Cells = 60 × 20 × 20 × 16³ (derived); dx = r_cl/16 with r_cl = 1 pc.
 	if cells, _ := doc["cells"].(float64); cells != 60*20*20*16*16*16 {
@@ -71,7 +71,7 @@ func TestEvolveOutputs(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatal(err)
 	}
-	// Destruction branch only with ram drag: m^{1/3} = 1 − t/(3κ) (physics reference §6.3, derived),
+	// Destruction branch only with ram drag: m^{1/3} = 1 − t/(3κ) (derived),
 	// so m = 1e-3 m0 at t = 2.7 κ t_cc = 10.8 t_cc with κ = 4.
 	tr := doc.Trajectories[0]
 	if !tr.Destroyed || tr.TDestroy == nil || math.Abs(*tr.TDestroy-10.8) > 1e-3 {

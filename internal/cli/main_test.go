@@ -21,7 +21,7 @@ func runCmd(t *testing.T, stdin string, args ...string) (int, string, string) {
 }
 
 func TestEvalJSONSchema(t *testing.T) {
-	// The Gronke & Oh (2018) normalisation, physics reference §9 #7: r_crit = 2.5528 pc
+	// The Gronke & Oh (2018) normalisation, derived: r_crit = 2.5528 pc
 	// with Λ = 10^-21.4, f = 3/2, 𝒩 = n², χ = 100, T_cl = 1e4 K, P/k = 1e3, M = 1, μ = 0.6.
 	code, out, errs := runCmd(t, "", "eval", "--format", "json", "--density-product", "n2", "--cooling", "const:10^-21.4")
 	if code != 0 {
@@ -43,7 +43,7 @@ func TestEvalJSONSchema(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatalf("eval JSON does not parse: %v\n%s", err, out)
 	}
-	// Physics reference §9 rows #4, #6 and #7 (derived values).
+	// Derived values of the fiducial problem (as in model's TestFiducialState).
 	want := map[string]float64{
 		"t_hot_k": 1e6, "n_hot_cm3": 1e-3, "t_mix_k": 1e5, "v_wind_kms": 151.423,
 		"t_cc_myr": 0.064574, "t_shear_myr": 0.0064574, "t_cool_mix_myr": 0.164843,

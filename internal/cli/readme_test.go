@@ -12,16 +12,16 @@ import (
 	"cloudwind/model"
 )
 
-// TestREADMEExamples runs every example of the README as a user would:
-// each command line that starts with "cloudwind " (in code blocks and in
-// inline code), each TOML file shown (scenario and criteria files), and the
-// Python snippet (with Debian's astropy, when installed). Synopsis lines
-// (with [optional] parts or …) and the explorer (which needs a terminal)
-// are not commands. Files the examples name are provided: the Sutherland &
-// Dopita 1993 tables from Debian's python3-pydl, the CHIANTI-based curves
-// of the reference set, and small files of our own for the rest. Under
-// CI=true a missing external table fails the test instead of skipping its
-// command.
+// TestREADMEExamples runs every example of the README as a user would: each
+// command line that starts with "cloudwind " (in code blocks and in inline
+// code), each TOML file shown (scenario and criteria files), and the Python
+// snippet (with Debian's astropy, when installed). Synopsis lines (with
+// [optional] parts or …) and the explorer (which needs a terminal) are not
+// commands. Files the examples name are provided: the Sutherland & Dopita
+// 1993 tables from Debian's python3-pydl, the CHIANTI-based curves of Ryden
+// & Pogge 2021 in testdata/cie-cooling-chianti, and small files of our own
+// for the rest. Under CI=true a missing external table fails the test
+// instead of skipping its command.
 func TestREADMEExamples(t *testing.T) {
 	text, err := os.ReadFile(filepath.Join("..", "..", "README.md"))
 	if err != nil {
@@ -260,8 +260,8 @@ func readmeFixtures(t *testing.T, dir string) map[string]bool {
 		z.WriteString(strings.Join([]string{ftoa(row[0]), ftoa(row[1]), ftoa(row[2]), ftoa(row[3])}, " ") + "\n")
 	}
 	put("z_collis.txt", z.Bytes())
-	// Sutherland & Dopita 1993 from Debian's python3-pydl (cooling.md §12.1 of
-	// the reference set names the package's folder).
+	// Sutherland & Dopita 1993 from Debian's python3-pydl (installed in the
+	// package's pydlutils/data/cooling/ folder).
 	if out, err := exec.Command("/usr/bin/python3", "-c", "import pydl, os; print(os.path.dirname(pydl.__file__))").Output(); err == nil {
 		cdir := filepath.Join(strings.TrimSpace(string(out)), "pydlutils", "data", "cooling")
 		for _, f := range []string{"m-00.cie", "mzero.cie"} {

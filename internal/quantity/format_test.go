@@ -36,7 +36,7 @@ func TestFormatSig(t *testing.T) {
 }
 
 func TestFormatUnits(t *testing.T) {
-	// Physics reference §9 #3: c_s(1e6 K, μ = 0.6) = 151.423 km/s.
+	// Derived: c_s(1e6 K, μ = 0.6) = 151.423 km/s.
 	if got := Format(model.DimVelocity, float64(model.SoundSpeed(1e6, 0.6, 5.0/3))); got != "151.4 km s⁻¹" {
 		t.Errorf("Format(velocity, c_s(1e6 K)) = %q, want %q", got, "151.4 km s⁻¹")
 	}

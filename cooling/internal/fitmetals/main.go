@@ -12,7 +12,8 @@
 // cie-cooling-chianti/, or that directory itself) overrides that, and -data
 // overrides both. The target is the
 // metal part per unit Z/Z☉, normalised per n_e n_H as the files are
-// (cooling reference §7):
+// (inferred, the files do not state it: their hydrogen peak matches Gnat &
+// Ferland 2012's value per n_e n_H to ~1.5%):
 //
 //	Λ_met(T) = (Λ_z1(T) − Λ_z0.001(T)) / 0.999.
 //
@@ -329,7 +330,7 @@ func optimiseKnots(t target, knots []float64, evals int) []float64 {
 // bands are the log10 T ranges over which the accuracy is measured and
 // stated: below 10^4.3 K the metal part is a small difference beside the
 // hydrogen peak; above 10^7.5 K it is a small, noisy difference
-// (cooling reference §7).
+// (measured on the files).
 var bands = [...][2]float64{{4.0, 4.3}, {4.3, 7.5}, {7.5, 8.0}}
 
 // accuracy is the measured error of the fit against its target.
