@@ -219,3 +219,61 @@ func TestPropertiesEvolveAndPlan(t *testing.T) {
 		}
 	}
 }
+
+// TestPropertiesRadiusFree: a quantity that says it is radius-free
+// (Quantity.RadiusFree) keeps its value bit for bit when only the cloud
+// radius changes, through Reevaluate with the same Mach number and through
+// a full Evaluate; every other quantity changes at some of the points
+// (derived from State.deriveRadius, no source). Sweeps rely on the first
+// to read such columns once along their radius axis.
+func TestPropertiesRadiusFree(t *testing.T) {
+	b, err := cooling.NewBuiltin()
+	if err != nil {
+		t.Fatal(err)
+	}
+	rng := rand.New(rand.NewPCG(5, 6))
+	cs := model.BuiltinCriteria()
+	qs := model.Quantities()
+	changed := make([]bool, len(qs))
+	tested := 0
+	for tested < 500 {
+		p := randomParams(rng)
+		if p.Validate() != nil {
+			continue
+		}
+		cf := builtinAt(t, b, p.Metallicity)
+		r, err := model.Evaluate(p, cf, cs)
+		if err != nil {
+			t.Fatalf("Evaluate(%+v) = %v", p, err)
+		}
+		r2 := p
+		r2.RCloud *= model.Length(math.Pow(10, 2*rng.Float64()-1))
+		if r2.Validate() != nil {
+			continue
+		}
+		tested++
+		fast := r
+		fast.Outcomes = append([]model.Outcome(nil), r.Outcomes...)
+		if err := fast.Reevaluate(p.Mach, r2.RCloud); err != nil {
+			t.Fatalf("Reevaluate(%g, %g): %v", p.Mach, float64(r2.RCloud), err)
+		}
+		full, err := model.Evaluate(r2, cf, cs)
+		if err != nil {
+			t.Fatalf("Evaluate(%+v) = %v", r2, err)
+		}
+		for i, q := range qs {
+			v0, vFast, vFull := q.Value(&r.State), q.Value(&fast.State), q.Value(&full.State)
+			same := math.Float64bits(v0) == math.Float64bits(vFast) && math.Float64bits(v0) == math.Float64bits(vFull)
+			if q.RadiusFree() && !same {
+				t.Fatalf("%s is radius-free but changes from %v to %v (Reevaluate) and %v (Evaluate) at %+v, r_cl → %g cm",
+					q.Key, v0, vFast, vFull, p, float64(r2.RCloud))
+			}
+			changed[i] = changed[i] || !same
+		}
+	}
+	for i, q := range qs {
+		if !q.RadiusFree() && !changed[i] {
+			t.Errorf("%s is not radius-free but never changed with the radius at %d points", q.Key, tested)
+		}
+	}
+}

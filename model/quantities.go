@@ -36,6 +36,20 @@ type Quantity struct {
 	Value   func(s *State) float64
 }
 
+// radiusQuantities are the keys of the quantities that State.deriveRadius
+// sets, or that are computed from those: the only ones that change when
+// the cloud radius alone does.
+var radiusQuantities = map[string]bool{
+	"t_cc": true, "t_shear": true, "t_sc_cloud": true, "t_drag": true, "mass_cloud": true, "column_cloud": true,
+	"v_mix": true, "t_grow": true, "t_cool_hot_per_t_cc": true, "t_grow_per_t_cc": true,
+}
+
+// RadiusFree reports whether q keeps its value, bit for bit, when only the
+// cloud radius changes: through Result.Reevaluate with the Mach number of
+// the last evaluation, or through Evaluate at another radius. A sweep reads
+// such a quantity once along its radius axis.
+func (q Quantity) RadiusFree() bool { return !radiusQuantities[q.Key] }
+
 // Quantities returns the derived quantities in display order.
 func Quantities() []Quantity {
 	return []Quantity{

@@ -29,10 +29,10 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 		return err
 	}
 	pool := sync.Pool{New: func() any { return make([]byte, 0, 1<<20) }}
-	err = runChunks(ctx, e, opt, 2*opt.workers,
-		func() func(k int) ([]byte, error) {
+	err = runChunks(ctx, e, opt, sweepChunk, 2*opt.workers,
+		func() func(lo, hi int) ([]byte, error) {
 			sw := newSweepWorker(opt, plan)
-			return func(k int) ([]byte, error) { return sw.chunk(pool.Get().([]byte)[:0], k) }
+			return func(lo, hi int) ([]byte, error) { return sw.chunk(pool.Get().([]byte)[:0], lo, hi) }
 		},
 		func(buf []byte) error { _, err := w.Write(buf); return err },
 		func(buf []byte) { pool.Put(buf[:0]) })
@@ -42,15 +42,17 @@ func runSweepTo(ctx context.Context, e *env, opt *sweepOptions, w io.Writer) err
 	return err
 }
 
-// runChunks is the pipeline of every sweep format: the chunks of
-// sweepChunk rows of the shard are produced on opt.workers goroutines
-// (newWorker gives each its own producer) and consumed in grid order on
-// this one, with at most inFlight chunks produced and not yet consumed, so
-// memory stays flat. release returns a chunk's storage once consumed (or
-// dropped after an error). It draws the progress bar, stops at the first
+// runChunks is the pipeline of every sweep format: the shard's rows are
+// cut into chunks of unit rows (the last may be shorter), counted from the
+// shard's first row; the chunks are produced on opt.workers goroutines
+// (newWorker gives each its own producer, called with the chunk's grid
+// rows [lo, hi)) and consumed in grid order on this one, with at most
+// inFlight chunks produced and not yet consumed, so memory stays flat.
+// release returns a chunk's storage once consumed (or dropped after an
+// error). It draws the progress bar, stops at the first
 // error, and reports an interruption as such.
-func runChunks[T any](ctx context.Context, e *env, opt *sweepOptions, inFlight int,
-	newWorker func() func(k int) (T, error), consume func(T) error, release func(T)) error {
+func runChunks[T any](ctx context.Context, e *env, opt *sweepOptions, unit, inFlight int,
+	newWorker func() func(lo, hi int) (T, error), consume func(T) error, release func(T)) error {
 	type result struct {
 		v   T
 		err error
@@ -61,7 +63,7 @@ func runChunks[T any](ctx context.Context, e *env, opt *sweepOptions, inFlight i
 		out chan result
 	}
 	rows := opt.shard.hi - opt.shard.lo
-	nChunks := (rows + sweepChunk - 1) / sweepChunk
+	nChunks := (rows + unit - 1) / unit
 	jobs := make(chan job)
 	queue := make(chan chan result, inFlight)
 	ctx, cancel := context.WithCancel(ctx)
@@ -74,7 +76,8 @@ func runChunks[T any](ctx context.Context, e *env, opt *sweepOptions, inFlight i
 			defer wg.Done()
 			produce := newWorker()
 			for j := range jobs {
-				v, err := produce(j.k)
+				lo := opt.shard.lo + j.k*unit
+				v, err := produce(lo, min(lo+unit, opt.shard.hi))
 				j.out <- result{v, err, true}
 			}
 		}()
@@ -126,7 +129,7 @@ func runChunks[T any](ctx context.Context, e *env, opt *sweepOptions, inFlight i
 		if r.ok {
 			release(r.v)
 		}
-		done += sweepChunk
+		done += unit
 		if bar != nil && werr == nil {
 			bar.update(min(done, rows), false)
 		}
@@ -208,6 +211,10 @@ type sweepWorker struct {
 	fast     []bool // axis k may change on the fast path
 	kMach    int    // the Mach-number axis, or -1
 	kRadius  int    // the radius axis, or -1
+	// radiusOnly: the current point differs from the last evaluated one in
+	// its radius alone, so the radius-free columns (report.Column.RadiusFree)
+	// keep their values in num and str.
+	radiusOnly bool
 }
 
 func newSweepWorker(opt *sweepOptions, plan sweepPlan) *sweepWorker {
@@ -226,11 +233,9 @@ func newSweepWorker(opt *sweepOptions, plan sweepPlan) *sweepWorker {
 	return sw
 }
 
-// chunk appends the rows of chunk k of the shard to buf.
-func (sw *sweepWorker) chunk(buf []byte, k int) ([]byte, error) {
+// chunk appends grid rows lo to hi (exclusive) to buf.
+func (sw *sweepWorker) chunk(buf []byte, lo, hi int) ([]byte, error) {
 	sh := &sw.opt.shard
-	lo := sh.lo + k*sweepChunk
-	hi := min(lo+sweepChunk, sh.hi)
 	g := &sw.opt.grid
 	g.point(lo, sw.idx)
 	for i := lo; i < hi; i++ {
@@ -251,6 +256,9 @@ func (sw *sweepWorker) chunk(buf []byte, k int) ([]byte, error) {
 func (sw *sweepWorker) values() {
 	for c := range sw.cols {
 		col := &sw.cols[c]
+		if sw.radiusOnly && col.RadiusFree {
+			continue
+		}
 		if col.IsString {
 			sw.str[c] = col.Str(&sw.res)
 		} else {
@@ -307,8 +315,14 @@ func (sw *sweepWorker) evaluate(i int) error {
 			r = g.axes[k].values[sw.idx[k]]
 		}
 		copy(sw.prev, sw.idx)
-		return sw.res.Reevaluate(mach, model.Length(r))
+		sw.radiusOnly = mach == sw.res.Params.Mach
+		err := sw.res.Reevaluate(mach, model.Length(r))
+		if err != nil {
+			sw.radiusOnly = false
+		}
+		return err
 	}
+	sw.radiusOnly = false
 	p := sw.opt.base
 	g.apply(&p, sw.idx)
 	if sw.cf == nil || p.Metallicity != sw.coolZ {

@@ -23,6 +23,10 @@ type Column struct {
 	Str         func(r *model.Result) string
 	JSONKey     []byte // `"name":`, set by sweepColumns
 	Twin        int    // an earlier column that holds the same value when the criteria share a form; -1 for none
+	// RadiusFree: the value stays the same, bit for bit, when only the
+	// cloud radius changes (model.Quantity.RadiusFree), so a sweep reads it
+	// once along its radius axis.
+	RadiusFree bool
 }
 
 // sweepDerivedKeys are the derived quantities every sweep row carries.
@@ -36,7 +40,7 @@ var sweepDerivedKeys = []string{
 // threshold radius, margin and verdict.
 func SweepColumns(cs []model.Criterion) []Column {
 	in := func(name string, k quantity.Kind, desc string, get func(p *model.Params) float64) Column {
-		return Column{Name: quantity.JSONKey(name, k), Unit: quantity.UnitASCII(k), Description: desc,
+		return Column{Name: quantity.JSONKey(name, k), Unit: quantity.UnitASCII(k), Description: desc, RadiusFree: name != "radius",
 			Num: func(r *model.Result) float64 { return quantity.Convert(k, get(&r.Params)) }}
 	}
 	cols := []Column{
@@ -59,8 +63,8 @@ func SweepColumns(cs []model.Criterion) []Column {
 		get := q.Value
 		dim := q.Dim
 		cols = append(cols, Column{Name: quantity.JSONKey(key, dim), Unit: quantity.UnitASCII(dim),
-			Description: q.Name + ": " + q.Formula + " (" + q.Source + ")",
-			Num:         func(r *model.Result) float64 { return quantity.Convert(dim, get(&r.State)) }})
+			Description: q.Name + ": " + q.Formula + " (" + q.Source + ")", RadiusFree: q.RadiusFree(),
+			Num: func(r *model.Result) float64 { return quantity.Convert(dim, get(&r.State)) }})
 	}
 	for i := range cols {
 		cols[i].Twin = -1

@@ -18,23 +18,35 @@ import (
 )
 
 // RowGroupRows is the number of rows in each row group of a Parquet file
-// but the last. The writer holds the pages of one row group in memory
-// before they go to w (at most 8 bytes a number, about 17 MB for 16
-// numeric columns, less once compressed), so memory stays flat whatever
-// the number of rows: the heap peaked near 20 MB for 10⁶ rows and 25 MB
-// for 4×10⁶ rows of BenchmarkParquetWrite's columns. Groups of this size
-// also let readers load a large file one group at a time (common
+// but the last. A row group's pages are held in memory, compressed, until
+// the group is committed to w, and only a few groups are in flight at
+// once, so memory stays flat whatever the number of rows. Groups of this
+// size also let readers load a large file one group at a time (common
 // practice, no source).
 const RowGroupRows = 1 << 17
 
-// rowGroupBytes bounds the numbers one row group holds before it is
-// flushed: a table with more than 16 columns gets shorter row groups, a
-// multiple of parquetValueChunk rows. Measured on sweeps: 16 columns peak
-// near 39 MB of RSS at 10⁷ rows; 58 columns near 80 MB whether the bound
-// is 4, 8 or 16 MiB, since smaller groups trade buffered numbers for
-// footer metadata (parquet-go keeps every group's column chunk and page
-// index entries until Close).
+// rowGroupBytes bounds the numbers one row group holds: a table with more
+// than 16 columns gets shorter row groups, a multiple of parquetValueChunk
+// rows, so that a group's pages stay small even where the numbers do not
+// compress. Measured on sweeps at 10⁷ rows: 16 columns peak near 36 MB of
+// RSS; 58 columns near 80 MB, which grows with the rows, since parquet-go
+// keeps every group's column chunk and page index entries (about 1.2 KB a
+// column chunk) until Close; bounds of 4, 8 or 16 MiB trade buffered pages
+// for that metadata and peak alike.
 const rowGroupBytes = 16 << 20
+
+// pageBytes returns the size of the data pages of a table of ncols
+// columns: pageBudget shared by the columns, from 64 KiB (readers' usual
+// lower bound, common practice, no source) to the library's 256 KiB. Each
+// column fills one page in memory before it is encoded, in every row group
+// in flight: measured on the 16-column sweep at 10⁷ rows, 64 KiB pages
+// peaked at 36 MB of RSS and 256 KiB pages at 48 MB, at the same speed.
+func pageBytes(ncols int) int {
+	return max(64<<10, min(256<<10, pageBudget/max(ncols, 1)))
+}
+
+// pageBudget is the page memory of one row group, shared by its columns.
+const pageBudget = 1 << 20
 
 // GroupRows returns the rows of each row group but the last for a table
 // of ncols columns: RowGroupRows up to 16 columns, fewer beyond so that a
@@ -58,54 +70,80 @@ const (
 
 // parquetValueChunk is the number of values handed to a column writer at
 // a time. The library cuts a page at the end of a call, once its buffer
-// exceeds the page size (256 KiB, 32768 doubles), so calls of a fixed size
-// that divides RowGroupRows, counted from the start of the row group, cut
-// the pages at the same rows however the caller splits the rows into
-// batches: the file depends on the rows alone. Each column stages one
-// chunk (24 bytes a value, 48 KiB); of 1024, 2048 and 4096, 2048 measured
-// fastest, the staging buffers of all columns staying in cache.
-const parquetValueChunk = 2048
+// exceeds the page size (pageBytes), so calls of a fixed size that divides
+// RowGroupRows, counted from the start of the row group, cut the pages at
+// the same rows however the caller splits the rows into batches: the file
+// depends on the rows alone. Each column stages one chunk (24 bytes a
+// value, 6 KiB); of 256 to 4096, none measured faster than another, and
+// 256 keeps a row group of 58 columns 2.5 MB smaller (measured: 79 MB of
+// RSS against 95 MB for the widest sweep at 10⁷ rows).
+const parquetValueChunk = 256
 
-// A Batch is a run of consecutive rows in columnar form: Num[c] holds the
-// values of numeric column c (nil for string/bool columns), Str[c] those of
-// string column c, Bool[c] those of bool column c; every non-nil slice has
-// length Rows.
+// A Batch is a run of consecutive rows of a table of Width columns. The
+// numbers are held row by row: row i's value in numeric column c is
+// Num[i*Width+c] (the slots of string and bool columns are ignored; Num is
+// nil when there is no numeric column). Strings and booleans, a few
+// columns at most, are held column by column: Str[c] holds the Rows values
+// of string column c, Bool[c] those of bool column c, nil for the others.
+// Numbers row by row because that is how a sweep computes its rows:
+// AppendRow adds one with a single copy rather than a store per column
+// (measured on the 16-column sweep, the stores per column took a sixth of
+// the Parquet writing time).
 type Batch struct {
-	Rows int
-	Num  [][]float64
-	Str  [][]string
-	Bool [][]bool
+	Width int
+	Rows  int
+	Num   []float64
+	Str   [][]string
+	Bool  [][]bool
+
+	strCols, boolCols []int // the string and bool columns
 }
 
-// NewBatch returns an empty batch for cols with room for capacity rows in
-// each column: the slice of each column's kind is allocated with length 0,
-// the others are nil. Fill it by appending to each column and setting Rows.
+// NewBatch returns an empty batch for cols with room for capacity rows.
 func NewBatch(cols []Column, capacity int) *Batch {
-	b := &Batch{Num: make([][]float64, len(cols)), Str: make([][]string, len(cols)), Bool: make([][]bool, len(cols))}
+	b := &Batch{Width: len(cols), Str: make([][]string, len(cols)), Bool: make([][]bool, len(cols))}
 	for c := range cols {
 		switch {
 		case cols[c].IsString:
 			b.Str[c] = make([]string, 0, capacity)
+			b.strCols = append(b.strCols, c)
 		case cols[c].IsBool:
 			b.Bool[c] = make([]bool, 0, capacity)
+			b.boolCols = append(b.boolCols, c)
 		default:
-			b.Num[c] = make([]float64, 0, capacity)
+			if b.Num == nil {
+				b.Num = make([]float64, 0, capacity*len(cols))
+			}
 		}
 	}
 	return b
 }
 
-// Reset empties b (Rows = 0, every column of length 0) and keeps the
-// memory for the next rows.
+// AppendRow adds a row: num, str and bools hold its values by column (each
+// with Width values, the slots of the other kinds ignored), or are nil for
+// a kind the table has no column of.
+func (b *Batch) AppendRow(num []float64, str []string, bools []bool) {
+	if b.Num != nil {
+		b.Num = append(b.Num, num[:b.Width]...)
+	}
+	for _, c := range b.strCols {
+		b.Str[c] = append(b.Str[c], str[c])
+	}
+	for _, c := range b.boolCols {
+		b.Bool[c] = append(b.Bool[c], bools[c])
+	}
+	b.Rows++
+}
+
+// Reset empties b and keeps the memory for the next rows.
 func (b *Batch) Reset() {
 	b.Rows = 0
-	for c := range b.Num {
-		if b.Num[c] != nil {
-			b.Num[c] = b.Num[c][:0]
-		}
+	if b.Num != nil {
+		b.Num = b.Num[:0]
 	}
 	for c := range b.Str {
 		if b.Str[c] != nil {
+			clear(b.Str[c]) // drop the references to the strings
 			b.Str[c] = b.Str[c][:0]
 		}
 	}
@@ -120,19 +158,22 @@ func (b *Batch) Reset() {
 // column per Column, named Column.Name, in order; numeric columns as
 // DOUBLE (NaN and ±Inf kept as IEEE values), bool columns as BOOLEAN,
 // string columns as dictionary-encoded UTF-8 strings; Snappy-compressed
-// pages, row groups of RowGroupRows rows, and the units, descriptions and
+// pages, row groups of GroupRows rows, and the units, descriptions and
 // run metadata in the file's key–value metadata (ParquetMetaKey,
 // ParquetColumnsKey). The same rows and metadata give the same bytes.
 //
-// A ParquetWriter is not safe for concurrent use. After an error every
-// later call returns that error.
+// Rows reach the file in one of two ways, which give the same bytes:
+// Write, on one goroutine, or row groups (NewGroup) filled and encoded on
+// several goroutines at once and handed to Commit in file order.
+//
+// A ParquetWriter is not safe for concurrent use: Write, Commit and Close
+// are called by one goroutine. After an error every later call returns
+// that error.
 type ParquetWriter struct {
 	pw        *parquet.Writer
 	cols      []Column
-	cws       []*parquet.ColumnWriter
-	groupRows int               // rows in the row group being filled
-	groupSize int               // rows of a full row group, GroupRows
-	staged    [][]parquet.Value // per column, the values of the chunk being filled
+	groupSize int           // rows of a full row group, GroupRows
+	cur       *ParquetGroup // the row group Write fills; nil before the first Write
 	err       error
 	closed    bool
 }
@@ -204,6 +245,7 @@ func NewParquetWriter(w io.Writer, cols []Column, meta []Meta) (*ParquetWriter, 
 		// pyarrow's default, from memory); with required columns there
 		// are no levels, so version 2 would save nothing.
 		parquet.DataPageVersion(1),
+		parquet.PageBufferSize(pageBytes(len(cols))),
 		parquet.KeyValueMetadata(ParquetMetaKey, string(safetext.EscapeJSON(metaJSON))),
 		parquet.KeyValueMetadata(ParquetColumnsKey, string(safetext.EscapeJSON(colJSON))),
 	}
@@ -215,12 +257,7 @@ func NewParquetWriter(w io.Writer, cols []Column, meta []Meta) (*ParquetWriter, 
 			opts = append(opts, parquet.SkipPageBounds(cols[i].Name), parquet.SkipPageStatistics(cols[i].Name))
 		}
 	}
-	pw := parquet.NewWriter(w, opts...)
-	staged := make([][]parquet.Value, len(cols))
-	for c := range staged {
-		staged[c] = make([]parquet.Value, 0, parquetValueChunk)
-	}
-	return &ParquetWriter{pw: pw, cols: cols, cws: pw.ColumnWriters(), staged: staged, groupSize: GroupRows(len(cols))}, nil
+	return &ParquetWriter{pw: parquet.NewWriter(w, opts...), cols: cols, groupSize: GroupRows(len(cols))}, nil
 }
 
 // Write adds the rows of b. A full row group goes to w at once; the rest
@@ -228,42 +265,169 @@ func NewParquetWriter(w io.Writer, cols []Column, meta []Meta) (*ParquetWriter, 
 // refilled once Write returns: numbers are copied, and strings, which Go
 // never changes, are only referred to.
 func (p *ParquetWriter) Write(b *Batch) error {
+	if err := p.usable(); err != nil {
+		return err
+	}
+	if p.cur == nil {
+		p.cur = p.NewGroup()
+	}
+	if err := p.cur.check(b); err != nil {
+		return err
+	}
+	for lo := 0; lo < b.Rows; {
+		hi := min(b.Rows, lo+p.groupSize-p.cur.rows)
+		if err := p.cur.writeRows(b, lo, hi); err != nil {
+			p.err = err
+			return err
+		}
+		lo = hi
+		if p.cur.rows == p.groupSize {
+			if err := p.Commit(p.cur); err != nil {
+				return err
+			}
+		}
+	}
+	return nil
+}
+
+// usable returns the error that stops every call after a failure, or
+// after Close.
+func (p *ParquetWriter) usable() error {
 	if p.err != nil {
 		return p.err
 	}
 	if p.closed {
 		return errors.New("parquet: write after close")
 	}
-	if err := p.check(b); err != nil {
+	return nil
+}
+
+// NewGroup returns an empty row group of p's columns. It may be filled
+// (ParquetGroup.Write) and encoded (ParquetGroup.Encode) on any goroutine
+// while other groups are, and is then handed to Commit. A committed group
+// is empty again and may be refilled.
+func (p *ParquetWriter) NewGroup() *ParquetGroup {
+	g := &ParquetGroup{rg: p.pw.BeginRowGroup(), cols: p.cols, size: p.groupSize, staged: make([][]parquet.Value, len(p.cols))}
+	for c := range g.staged {
+		g.staged[c] = make([]parquet.Value, parquetValueChunk)
+		switch {
+		case p.cols[c].IsString:
+			g.str = append(g.str, c)
+		case p.cols[c].IsBool:
+			g.bool = append(g.bool, c)
+		default:
+			g.num = append(g.num, c)
+		}
+	}
+	return g
+}
+
+// Commit encodes what g still holds and appends it to the file as its
+// next row group; g is then empty, to be refilled or dropped. A group with
+// no rows adds nothing. Groups are committed in the order of their rows.
+func (p *ParquetWriter) Commit(g *ParquetGroup) error {
+	if err := p.usable(); err != nil {
 		return err
 	}
-	for lo := 0; lo < b.Rows; {
-		hi := min(b.Rows, lo+p.groupSize-p.groupRows)
-		if err := p.writeRows(b, lo, hi); err != nil {
-			p.err = err
+	if g.rows == 0 {
+		return nil
+	}
+	if err := g.Encode(); err != nil {
+		p.err = err
+		return err
+	}
+	if _, err := g.rg.Commit(); err != nil {
+		p.err = err
+		return err
+	}
+	g.rows = 0
+	return nil
+}
+
+// Close writes the buffered rows and the file's footer. It does not close
+// w. A writer given no rows writes a valid file with 0 rows. After an
+// error w holds a truncated file without a footer, which readers refuse;
+// callers write through internal/atomicfile, which then leaves no file.
+func (p *ParquetWriter) Close() error {
+	if p.err != nil {
+		return p.err
+	}
+	if p.closed {
+		return nil
+	}
+	if p.cur != nil {
+		if err := p.Commit(p.cur); err != nil {
 			return err
 		}
-		p.groupRows += hi - lo
-		lo = hi
-		if p.groupRows == p.groupSize {
-			if err := p.flushGroup(); err != nil {
-				p.err = err
-				return err
-			}
-			p.groupRows = 0
-		}
+	}
+	p.closed = true
+	if err := p.pw.Close(); err != nil {
+		p.err = err
+		return err
+	}
+	return nil
+}
+
+// A ParquetGroup holds the rows of one row group of a ParquetWriter's file
+// while they are encoded: up to GroupRows rows, written in order. Encoding
+// and compressing the pages, most of a file's cost, happens as the group
+// fills and in Encode, on the goroutine that calls them; Commit then only
+// copies the pages to the file. A group is used by one goroutine at a time.
+type ParquetGroup struct {
+	rg             *parquet.ConcurrentRowGroupWriter
+	cols           []Column
+	num, str, bool []int             // the numeric, string and bool columns
+	size           int               // the most rows the group takes, GroupRows
+	rows           int               // rows written since the group was begun or committed
+	staged         [][]parquet.Value // per column, parquetValueChunk slots for the chunk being filled
+	nstaged        int               // the values staged in each column
+}
+
+// Rows returns the number of rows the group holds.
+func (g *ParquetGroup) Rows() int { return g.rows }
+
+// Write adds the rows of b after those the group holds; they must fit
+// (at most GroupRows rows in all). b may be reset and refilled once Write
+// returns, as for ParquetWriter.Write.
+func (g *ParquetGroup) Write(b *Batch) error {
+	if err := g.check(b); err != nil {
+		return err
+	}
+	if g.rows+b.Rows > g.size {
+		return fmt.Errorf("parquet: %d rows do not fit a row group of %d rows holding %d", b.Rows, g.size, g.rows)
+	}
+	return g.writeRows(b, 0, b.Rows)
+}
+
+// Encode encodes and compresses the rows still staged, so that Commit has
+// only to copy the group's pages.
+func (g *ParquetGroup) Encode() error {
+	if err := g.flushStaged(); err != nil {
+		return err
+	}
+	if err := g.rg.Flush(); err != nil {
+		return fmt.Errorf("parquet: %w", err)
 	}
 	return nil
 }
 
 // check reports a batch whose shape does not match the columns: a
 // programming error, returned rather than panicking mid-file.
-func (p *ParquetWriter) check(b *Batch) error {
-	if b.Rows < 0 {
+func (g *ParquetGroup) check(b *Batch) error {
+	switch {
+	case b.Rows < 0:
 		return fmt.Errorf("parquet: batch has %d rows", b.Rows)
+	case b.Rows == 0:
+		return nil // nothing to write, whatever the shape
 	}
-	for c := range p.cols {
-		col := &p.cols[c]
+	if b.Width != len(g.cols) {
+		return fmt.Errorf("parquet: batch rows have %d columns, want %d", b.Width, len(g.cols))
+	}
+	if len(g.num) > 0 && len(b.Num) != b.Rows*b.Width {
+		return fmt.Errorf("parquet: a batch of %d rows of %d columns has %d numbers, want %d", b.Rows, b.Width, len(b.Num), b.Rows*b.Width)
+	}
+	for c := range g.cols {
+		col := &g.cols[c]
 		var n int
 		switch {
 		case col.IsString:
@@ -271,7 +435,7 @@ func (p *ParquetWriter) check(b *Batch) error {
 		case col.IsBool:
 			n = lenAt(b.Bool, c)
 		default:
-			n = lenAt(b.Num, c)
+			continue
 		}
 		if n != b.Rows {
 			return fmt.Errorf("parquet: column %s has %d values in a batch of %d rows", safetext.AppendJSON(nil, col.Name), n, b.Rows)
@@ -288,89 +452,61 @@ func lenAt[T any](s [][]T, i int) int {
 	return len(s[i])
 }
 
-// writeRows stages rows lo to hi of b, column by column, and hands each
-// full chunk of parquetValueChunk values to its column writer.
-func (p *ParquetWriter) writeRows(b *Batch, lo, hi int) error {
-	for c := range p.cols {
-		col := &p.cols[c]
-		for i := lo; i < hi; {
-			st := p.staged[c]
-			k := min(hi-i, parquetValueChunk-len(st))
-			vs := st[len(st) : len(st)+k]
-			switch {
-			case col.IsString:
-				for j, s := range b.Str[c][i : i+k] {
-					// A read-only view of the string's bytes, without a
-					// copy; the dictionary copies each new value it sees.
-					vs[j] = parquet.ByteArrayValue(unsafe.Slice(unsafe.StringData(s), len(s)))
-				}
-			case col.IsBool:
-				for j, v := range b.Bool[c][i : i+k] {
-					vs[j] = parquet.BooleanValue(v)
-				}
-			default:
-				for j, v := range b.Num[c][i : i+k] {
-					vs[j] = parquet.DoubleValue(v)
-				}
+// writeRows stages rows lo to hi of b and hands each full chunk of
+// parquetValueChunk values of every column to the column writers. The
+// numbers are staged row by row, in the order b holds them.
+func (g *ParquetGroup) writeRows(b *Batch, lo, hi int) error {
+	w := b.Width
+	for i := lo; i < hi; {
+		n := g.nstaged
+		k := min(hi-i, parquetValueChunk-n)
+		for j := range k {
+			row := b.Num[(i+j)*w : (i+j+1)*w]
+			for _, c := range g.num {
+				g.staged[c][n+j] = parquet.DoubleValue(row[c])
 			}
-			p.staged[c] = st[:len(st)+k]
-			i += k
-			if len(p.staged[c]) == parquetValueChunk {
-				if err := p.flushColumn(c); err != nil {
-					return err
-				}
+		}
+		for _, c := range g.str {
+			vs := g.staged[c][n : n+k]
+			for j, s := range b.Str[c][i : i+k] {
+				// A read-only view of the string's bytes, without a copy;
+				// the dictionary copies each new value it sees.
+				vs[j] = parquet.ByteArrayValue(unsafe.Slice(unsafe.StringData(s), len(s)))
+			}
+		}
+		for _, c := range g.bool {
+			vs := g.staged[c][n : n+k]
+			for j, v := range b.Bool[c][i : i+k] {
+				vs[j] = parquet.BooleanValue(v)
+			}
+		}
+		g.nstaged += k
+		g.rows += k
+		i += k
+		if g.nstaged == parquetValueChunk {
+			if err := g.flushStaged(); err != nil {
+				return err
 			}
 		}
 	}
 	return nil
 }
 
-// flushColumn hands the staged values of column c to its writer.
-func (p *ParquetWriter) flushColumn(c int) error {
-	if len(p.staged[c]) == 0 {
+// flushStaged hands the staged values of every column to its writer.
+func (g *ParquetGroup) flushStaged() error {
+	if g.nstaged == 0 {
 		return nil
 	}
-	_, err := p.cws[c].WriteRowValues(p.staged[c])
-	clear(p.staged[c]) // drop the references to the caller's strings
-	p.staged[c] = p.staged[c][:0]
-	if err != nil {
-		return fmt.Errorf("parquet: column %s: %w", safetext.AppendJSON(nil, p.cols[c].Name), err)
-	}
-	return nil
-}
-
-// flushGroup writes the row group being filled to w.
-func (p *ParquetWriter) flushGroup() error {
-	for c := range p.cols {
-		if err := p.flushColumn(c); err != nil {
-			return err
+	cws := g.rg.ColumnWriters()
+	for c := range g.cols {
+		vs := g.staged[c][:g.nstaged]
+		_, err := cws[c].WriteRowValues(vs)
+		clear(vs) // drop the references to the caller's strings
+		if err != nil {
+			return fmt.Errorf("parquet: column %s: %w", safetext.AppendJSON(nil, g.cols[c].Name), err)
 		}
 	}
-	return p.pw.Flush()
-}
-
-// Close writes the buffered rows and the file's footer. It does not close
-// w. A writer given no rows writes a valid file with 0 rows. After an
-// error w holds a truncated file without a footer, which readers refuse;
-// callers write through internal/atomicfile, which then leaves no file.
-func (p *ParquetWriter) Close() error {
-	if p.err != nil {
-		return p.err
-	}
-	if p.closed {
-		return nil
-	}
-	p.closed = true
-	for c := range p.cols {
-		if err := p.flushColumn(c); err != nil {
-			p.err = err
-			return err
-		}
-	}
-	if err := p.pw.Close(); err != nil {
-		p.err = err
-		return err
-	}
+	g.nstaged = 0
 	return nil
 }
 

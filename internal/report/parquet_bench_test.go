@@ -66,17 +66,18 @@ func benchVerdict(margin float64) string {
 	return "destroyed"
 }
 
-// batch returns rows lo to hi of t as a Batch that shares t's memory.
+// batch returns rows lo to hi of t as a Batch, the numbers row by row as a
+// sweep gives them.
 func (t *benchTable) batch(lo, hi int) *Batch {
-	b := &Batch{Rows: hi - lo, Num: make([][]float64, len(t.cols)), Str: make([][]string, len(t.cols)), Bool: make([][]bool, len(t.cols))}
+	num, str := make([][]float64, len(t.cols)), make([][]string, len(t.cols))
 	for c := range t.cols {
 		if t.num[c] != nil {
-			b.Num[c] = t.num[c][lo:hi]
+			num[c] = t.num[c][lo:hi]
 		} else {
-			b.Str[c] = t.str[c][lo:hi]
+			str[c] = t.str[c][lo:hi]
 		}
 	}
-	return b
+	return fromColumns(t.cols, hi-lo, num, str, nil)
 }
 
 // benchBatchRows is the batch size of the benchmarks: one sweep chunk.

@@ -77,7 +77,7 @@ func hyparquetCase(t *testing.T, n int) (pq, csv string, csvText []byte) {
 	special := []string{"nan", "inf", "-inf", "0", "-0", "4.94065646e-324", "2.22507386e-308",
 		"1.79769313e+308", "-1.79769313e+308", "1e-300", "3.0857e+18", "-2.5e-22", "1", "123456789"}
 	ids := []string{"go18", "li20", "abruzzo22"}
-	b := NewBatch(cols, n)
+	cn, cs, cb := make([][]float64, len(cols)), make([][]string, len(cols)), make([][]bool, len(cols))
 	for i := 0; i < n; i++ {
 		num := func(s string) float64 {
 			switch s {
@@ -94,16 +94,16 @@ func hyparquetCase(t *testing.T, n int) (pq, csv string, csvText []byte) {
 			}
 			return v
 		}
-		b.Num[0] = append(b.Num[0], num(special[i%len(special)]))
+		cn[0] = append(cn[0], num(special[i%len(special)]))
 		// Nine-figure values over 40 decades: 1.23456789e-20 … e+19.
-		b.Num[1] = append(b.Num[1], num(strconv.FormatFloat(1.23456789+float64(i%97)*1e-8, 'f', 8, 64)+"e"+strconv.Itoa(i%40-20)))
-		b.Str[2] = append(b.Str[2], testVerdicts[(i/5)%3])
-		b.Bool[3] = append(b.Bool[3], i%7 < 3)
-		b.Num[4] = append(b.Num[4], num(special[(i*5+3)%len(special)]))
-		b.Str[5] = append(b.Str[5], ids[i%3])
-		b.Num[6] = append(b.Num[6], float64(i)*0.5-37)
+		cn[1] = append(cn[1], num(strconv.FormatFloat(1.23456789+float64(i%97)*1e-8, 'f', 8, 64)+"e"+strconv.Itoa(i%40-20)))
+		cs[2] = append(cs[2], testVerdicts[(i/5)%3])
+		cb[3] = append(cb[3], i%7 < 3)
+		cn[4] = append(cn[4], num(special[(i*5+3)%len(special)]))
+		cs[5] = append(cs[5], ids[i%3])
+		cn[6] = append(cn[6], float64(i)*0.5-37)
 	}
-	b.Rows = n
+	b := fromColumns(cols, n, cn, cs, cb)
 
 	dir := t.TempDir()
 	pq = filepath.Join(dir, "sweep.parquet")
@@ -129,7 +129,7 @@ func hyparquetCase(t *testing.T, n int) (pq, csv string, csvText []byte) {
 			case col.IsBool:
 				line = strconv.AppendBool(line, b.Bool[c][i])
 			default:
-				line = AppendNumber(line, b.Num[c][i], false)
+				line = AppendNumber(line, b.num(i, c), false)
 			}
 		}
 		out.Write(append(line, '\n'))

@@ -9,6 +9,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"sync"
 	"testing"
 
 	"github.com/parquet-go/parquet-go"
@@ -46,27 +47,50 @@ var testVerdicts = []string{"survives-and-grows", "transformed", "destroyed"}
 // testTable returns n rows of testColumns: the special numbers in turn,
 // every verdict, both booleans, three criterion ids.
 func testTable(n int) *Batch {
-	b := NewBatch(testColumns, n)
+	num, str, bools := make([][]float64, 6), make([][]string, 6), make([][]bool, 6)
 	ids := []string{"go18", "li20", "sparre20"}
 	for i := 0; i < n; i++ {
-		b.Num[0] = append(b.Num[0], specialValues[i%len(specialValues)])
-		b.Num[1] = append(b.Num[1], float64(i)*0.25)
-		b.Bool[2] = append(b.Bool[2], i%3 == 0)
-		b.Str[3] = append(b.Str[3], testVerdicts[i%3])
-		b.Num[4] = append(b.Num[4], specialValues[(i+5)%len(specialValues)])
-		b.Str[5] = append(b.Str[5], ids[i/7%3])
+		num[0] = append(num[0], specialValues[i%len(specialValues)])
+		num[1] = append(num[1], float64(i)*0.25)
+		bools[2] = append(bools[2], i%3 == 0)
+		str[3] = append(str[3], testVerdicts[i%3])
+		num[4] = append(num[4], specialValues[(i+5)%len(specialValues)])
+		str[5] = append(str[5], ids[i/7%3])
 	}
-	b.Rows = n
+	return fromColumns(testColumns, n, num, str, bools)
+}
+
+// fromColumns returns a batch of the n rows given column by column: num[c]
+// for a numeric column c, str[c] or bools[c] for the others.
+func fromColumns(cols []Column, n int, num [][]float64, str [][]string, bools [][]bool) *Batch {
+	b := NewBatch(cols, n)
+	row, srow, brow := make([]float64, len(cols)), make([]string, len(cols)), make([]bool, len(cols))
+	for i := 0; i < n; i++ {
+		for c := range cols {
+			switch {
+			case cols[c].IsString:
+				srow[c] = str[c][i]
+			case cols[c].IsBool:
+				brow[c] = bools[c][i]
+			default:
+				row[c] = num[c][i]
+			}
+		}
+		b.AppendRow(row, srow, brow)
+	}
 	return b
 }
 
+// num returns row i's value in numeric column c.
+func (b *Batch) num(i, c int) float64 { return b.Num[i*b.Width+c] }
+
 // slice returns rows lo to hi of b as a batch sharing its memory.
 func (b *Batch) slice(lo, hi int) *Batch {
-	s := &Batch{Rows: hi - lo, Num: make([][]float64, len(b.Num)), Str: make([][]string, len(b.Str)), Bool: make([][]bool, len(b.Bool))}
-	for c := range b.Num {
-		if b.Num[c] != nil {
-			s.Num[c] = b.Num[c][lo:hi]
-		}
+	s := &Batch{Width: b.Width, Rows: hi - lo, Str: make([][]string, len(b.Str)), Bool: make([][]bool, len(b.Bool))}
+	if b.Num != nil {
+		s.Num = b.Num[lo*b.Width : hi*b.Width]
+	}
+	for c := range b.Str {
 		if b.Str[c] != nil {
 			s.Str[c] = b.Str[c][lo:hi]
 		}
@@ -214,8 +238,8 @@ func TestParquetRoundTrip(t *testing.T) {
 					t.Errorf("row %d %s = %v, want %v", i, col.Name, got, b.Bool[c][i])
 				}
 			default:
-				if got, want := math.Float64bits(v.Double()), math.Float64bits(b.Num[c][i]); got != want {
-					t.Errorf("row %d %s = %g (%#x), want %g (%#x)", i, col.Name, v.Double(), got, b.Num[c][i], want)
+				if got, want := math.Float64bits(v.Double()), math.Float64bits(b.num(i, c)); got != want {
+					t.Errorf("row %d %s = %g (%#x), want %g (%#x)", i, col.Name, v.Double(), got, b.num(i, c), want)
 				}
 			}
 		}
@@ -255,7 +279,7 @@ func TestParquetMetadataEscaped(t *testing.T) {
 	evil := "abc\u202edef\x1b[2J"
 	cols := []Column{{Name: "x", Description: "from a criteria file: " + evil}}
 	b := NewBatch(cols, 1)
-	b.Num[0], b.Rows = append(b.Num[0], 1), 1
+	b.AppendRow([]float64{1}, nil, nil)
 	f := openParquet(t, writeParquet(t, cols, []Meta{KV("label", evil)}, b))
 	for _, key := range []string{ParquetMetaKey, ParquetColumnsKey} {
 		raw, _ := f.Lookup(key)
@@ -287,11 +311,9 @@ func TestParquetRowGroups(t *testing.T) {
 	for written < n {
 		b.Reset()
 		for k := 0; k < 10007 && written < n; k++ {
-			b.Num[0] = append(b.Num[0], float64(written))
-			b.Str[1] = append(b.Str[1], testVerdicts[written/1000%3])
+			b.AppendRow([]float64{float64(written), 0}, []string{"", testVerdicts[written/1000%3]}, nil)
 			written++
 		}
-		b.Rows = len(b.Num[0])
 		before := written - b.Rows
 		if err := p.Write(b); err != nil {
 			t.Fatal(err)
@@ -310,10 +332,8 @@ func TestParquetRowGroups(t *testing.T) {
 	// The same rows again, kept, to read back.
 	b = NewBatch(cols, n)
 	for i := 0; i < n; i++ {
-		b.Num[0] = append(b.Num[0], float64(i))
-		b.Str[1] = append(b.Str[1], testVerdicts[i/1000%3])
+		b.AppendRow([]float64{float64(i), 0}, []string{"", testVerdicts[i/1000%3]}, nil)
 	}
-	b.Rows = n
 	data := writeParquet(t, cols, nil, b)
 	if !bytes.Equal(data, streamed.Bytes()) {
 		t.Errorf("one batch of %d rows gave %d bytes, batches of 10007 rows %d bytes, want the same file", n, len(data), streamed.Len())
@@ -447,9 +467,14 @@ func TestParquetBadInput(t *testing.T) {
 		t.Errorf("Write of a short string column = %v, want the column named", err)
 	}
 	b = testTable(10)
-	b.Num[0], b.Str[0] = nil, make([]string, 10) // a numeric column given as strings
-	if err := p.Write(b); err == nil || !strings.Contains(err.Error(), `"chi" has 0 values`) {
-		t.Errorf("Write of a numeric column as strings = %v, want the column named", err)
+	b.Num = b.Num[:len(b.Num)-1] // a number short
+	if err := p.Write(b); err == nil || !strings.Contains(err.Error(), "a batch of 10 rows of 6 columns has 59 numbers, want 60") {
+		t.Errorf("Write of a batch a number short = %v, want the count", err)
+	}
+	b = testTable(10)
+	b.Width = 5
+	if err := p.Write(b); err == nil || !strings.Contains(err.Error(), "batch rows have 5 columns, want 6") {
+		t.Errorf("Write of rows of another width = %v, want the widths", err)
 	}
 	// A refused batch does not spoil the writer: the next good one is written.
 	if err := p.Write(testTable(10)); err != nil {
@@ -467,18 +492,11 @@ func TestParquetBadInput(t *testing.T) {
 // criterion are a valid schema (no repeated name), and the kinds are kept.
 func TestParquetSweepColumns(t *testing.T) {
 	cols := SweepColumns(model.BuiltinCriteria())
-	b := NewBatch(cols, 2)
+	num, str, bools := make([][]float64, len(cols)), make([][]string, len(cols)), make([][]bool, len(cols))
 	for c := range cols {
-		switch {
-		case cols[c].IsString:
-			b.Str[c] = append(b.Str[c], "destroyed", "transformed")
-		case cols[c].IsBool:
-			b.Bool[c] = append(b.Bool[c], true, false)
-		default:
-			b.Num[c] = append(b.Num[c], float64(c), math.NaN())
-		}
+		num[c], str[c], bools[c] = []float64{float64(c), math.NaN()}, []string{"destroyed", "transformed"}, []bool{true, false}
 	}
-	b.Rows = 2
+	b := fromColumns(cols, 2, num, str, bools)
 	f := openParquet(t, writeParquet(t, cols, nil, b))
 	fields := f.Schema().Fields()
 	if len(fields) != len(cols) {
@@ -501,27 +519,94 @@ func TestParquetSweepColumns(t *testing.T) {
 // TestBatchReset: Reset empties every column and keeps its memory.
 func TestBatchReset(t *testing.T) {
 	b := testTable(50)
-	caps := []int{cap(b.Num[0]), cap(b.Bool[2]), cap(b.Str[3])}
+	caps := []int{cap(b.Num), cap(b.Bool[2]), cap(b.Str[3])}
 	b.Reset()
-	if b.Rows != 0 || len(b.Num[0]) != 0 || len(b.Bool[2]) != 0 || len(b.Str[3]) != 0 {
-		t.Errorf("after Reset: Rows %d, lengths %d %d %d, want 0", b.Rows, len(b.Num[0]), len(b.Bool[2]), len(b.Str[3]))
+	if b.Rows != 0 || len(b.Num) != 0 || len(b.Bool[2]) != 0 || len(b.Str[3]) != 0 {
+		t.Errorf("after Reset: Rows %d, lengths %d %d %d, want 0", b.Rows, len(b.Num), len(b.Bool[2]), len(b.Str[3]))
 	}
-	if got := []int{cap(b.Num[0]), cap(b.Bool[2]), cap(b.Str[3])}; !slices.Equal(got, caps) {
+	if got := []int{cap(b.Num), cap(b.Bool[2]), cap(b.Str[3])}; !slices.Equal(got, caps) {
 		t.Errorf("after Reset: capacities %v, want %v", got, caps)
 	}
-	if b.Num[3] != nil || b.Str[0] != nil || b.Bool[0] != nil {
+	if b.Str[0] != nil || b.Bool[0] != nil {
 		t.Errorf("after Reset: slices of other kinds are not nil")
+	}
+	b.AppendRow([]float64{1, 2, 0, 0, 5, 0}, []string{"", "", "", "destroyed", "", "li20"}, []bool{false, false, true, false, false, false})
+	if b.Rows != 1 || !slices.Equal(b.Num, []float64{1, 2, 0, 0, 5, 0}) || b.Str[3][0] != "destroyed" || b.Str[5][0] != "li20" || !b.Bool[2][0] {
+		t.Errorf("AppendRow after Reset: %+v", b)
 	}
 }
 
 // TestParquetGroupRows: wide tables get shorter row groups so that a
-// group's numbers stay near 16 MiB (cloudwind's bound): 2^24/(8·17) = 123361 → 60 × 2048;
-// 2^24/(8·58) = 36157 → 17 × 2048 (arithmetic, no source).
+// group's numbers stay near 16 MiB (cloudwind's bound): 2^24/(8·17) =
+// 123361 → 481 × 256; 2^24/(8·58) = 36157 → 141 × 256 (arithmetic, no
+// source).
 func TestParquetGroupRows(t *testing.T) {
-	for _, c := range []struct{ ncols, want int }{{1, RowGroupRows}, {16, RowGroupRows}, {17, 122880}, {58, 34816}, {100000, parquetValueChunk}} {
+	for _, c := range []struct{ ncols, want int }{{1, RowGroupRows}, {16, RowGroupRows}, {17, 123136}, {58, 36096}, {100000, parquetValueChunk}} {
 		got := GroupRows(c.ncols)
 		if got != c.want || got%parquetValueChunk != 0 {
 			t.Errorf("GroupRows(%d) = %d, want %d (a multiple of %d)", c.ncols, got, c.want, parquetValueChunk)
 		}
+	}
+}
+
+// TestParquetGroups: row groups filled on several goroutines at once and
+// committed in order give the same file as Write of the same rows, and a
+// committed group is empty and may be refilled.
+func TestParquetGroups(t *testing.T) {
+	cols := []Column{{Name: "i"}, {Name: "v", IsString: true}, {Name: "b", IsBool: true}, {Name: "x"}}
+	const n = 2*RowGroupRows + 777
+	num, str, bools := make([][]float64, 4), make([][]string, 4), make([][]bool, 4)
+	for i := 0; i < n; i++ {
+		num[0] = append(num[0], float64(i))
+		str[1] = append(str[1], testVerdicts[i/1000%3])
+		bools[2] = append(bools[2], i%5 == 0)
+		num[3] = append(num[3], specialValues[i%len(specialValues)])
+	}
+	all := fromColumns(cols, n, num, str, bools)
+	want := writeParquet(t, cols, testMeta, all)
+
+	var got bytes.Buffer
+	p, err := NewParquetWriter(&got, cols, testMeta)
+	if err != nil {
+		t.Fatal(err)
+	}
+	groups := []*ParquetGroup{p.NewGroup(), p.NewGroup(), p.NewGroup()}
+	errs := make([]error, len(groups))
+	var wg sync.WaitGroup
+	for k, g := range groups {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			lo, hi := k*RowGroupRows, min(n, (k+1)*RowGroupRows)
+			for i := lo; i < hi && errs[k] == nil; i += 1000 { // batches that do not divide the chunks
+				errs[k] = g.Write(all.slice(i, min(hi, i+1000)))
+			}
+			if errs[k] == nil {
+				errs[k] = g.Encode()
+			}
+		}()
+	}
+	wg.Wait()
+	for k, g := range groups {
+		if errs[k] != nil {
+			t.Fatalf("group %d: %v", k, errs[k])
+		}
+		if err := p.Commit(g); err != nil {
+			t.Fatalf("Commit(group %d): %v", k, err)
+		}
+		if g.Rows() != 0 {
+			t.Errorf("group %d holds %d rows after Commit, want 0", k, g.Rows())
+		}
+	}
+	if err := p.Close(); err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(got.Bytes(), want) {
+		t.Errorf("groups filled concurrently gave %d bytes, Write %d bytes; want the same file", got.Len(), len(want))
+	}
+	// A group takes at most GroupRows rows.
+	g := p.NewGroup()
+	if err := g.Write(all.slice(0, RowGroupRows+1)); err == nil || !strings.Contains(err.Error(), "do not fit") {
+		t.Errorf("Write of %d rows to one group = %v, want an error", RowGroupRows+1, err)
 	}
 }
