@@ -53,11 +53,17 @@ func benchSweep(b *testing.B, workers int) (*env, *sweepOptions) {
 	return e, opt
 }
 
+// runBenchSweep runs the sweep of opt to a discarding writer as text, or
+// as Parquet when opt.parquet is set, and reports ns/row.
 func runBenchSweep(b *testing.B, e *env, opt *sweepOptions) {
 	b.Helper()
 	rows := opt.grid.total
+	run := runSweepTo
+	if opt.parquet {
+		run = runSweepParquet
+	}
 	for b.Loop() {
-		if err := runSweepTo(context.Background(), e, opt, io.Discard); err != nil {
+		if err := run(context.Background(), e, opt, io.Discard); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -93,61 +99,37 @@ func BenchmarkSweep1e6CSV16Columns(b *testing.B) {
 	}
 }
 
-// BenchmarkSweepEvaluateOnly evaluates the 10⁶ points on one worker
-// without formatting, to split the time between evaluation and output:
-// every criterion, and only the two the 16 columns name.
-func BenchmarkSweepEvaluateOnly(b *testing.B) {
+// BenchmarkSweepEvaluate evaluates the 10⁶ points on one worker without
+// formatting, to split the time between evaluation and output: every
+// criterion, and only the two the 16 columns name; evaluation alone, and
+// with reading the column values.
+func BenchmarkSweepEvaluate(b *testing.B) {
 	for _, c := range []struct{ name, cols string }{{"all columns", ""}, {"16 columns", goldenColumns16}} {
-		b.Run(c.name, func(b *testing.B) {
-			_, opt := benchSweepArgs(b, 1, c.cols, numpyGrid...)
-			plan, err := planSweep(opt)
-			if err != nil {
-				b.Fatal(err)
+		for _, withColumns := range []bool{false, true} {
+			name := c.name + "/evaluate"
+			if withColumns {
+				name += " and columns"
 			}
-			sw := newSweepWorker(opt, plan)
-			for b.Loop() {
-				sw.prev = nil
-				opt.grid.point(0, sw.idx)
-				for i := 0; i < opt.grid.total; i++ {
-					if i > 0 {
-						opt.grid.next(sw.idx)
-					}
-					if err := sw.evaluate(i); err != nil {
+			b.Run(name, func(b *testing.B) {
+				_, opt := benchSweepArgs(b, 1, c.cols, numpyGrid...)
+				plan, err := planSweep(opt)
+				if err != nil {
+					b.Fatal(err)
+				}
+				sw := newSweepWorker(opt, plan)
+				row := func(int) {}
+				if withColumns {
+					row = func(int) { sw.values() }
+				}
+				for b.Loop() {
+					sw.prev = nil
+					if err := sw.eachRow(0, opt.grid.total, row); err != nil {
 						b.Fatal(err)
 					}
 				}
-			}
-			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(opt.grid.total), "ns/row")
-		})
-	}
-}
-
-// BenchmarkSweepEvaluateAndColumns adds reading the column values, still
-// without text formatting.
-func BenchmarkSweepEvaluateAndColumns(b *testing.B) {
-	for _, c := range []struct{ name, cols string }{{"all columns", ""}, {"16 columns", goldenColumns16}} {
-		b.Run(c.name, func(b *testing.B) {
-			_, opt := benchSweepArgs(b, 1, c.cols, numpyGrid...)
-			plan, err := planSweep(opt)
-			if err != nil {
-				b.Fatal(err)
-			}
-			sw := newSweepWorker(opt, plan)
-			for b.Loop() {
-				sw.prev = nil
-				opt.grid.point(0, sw.idx)
-				for i := 0; i < opt.grid.total; i++ {
-					if i > 0 {
-						opt.grid.next(sw.idx)
-					}
-					if err := sw.evaluate(i); err != nil {
-						b.Fatal(err)
-					}
-					sw.values()
-				}
-			}
-			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(opt.grid.total), "ns/row")
-		})
+				b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(opt.grid.total), "ns/row")
+			})
+		}
 	}
 }
 
@@ -212,13 +194,7 @@ func BenchmarkSweep1e6Parquet16Columns(b *testing.B) {
 		b.Run(w.name, func(b *testing.B) {
 			e, opt := benchSweepArgs(b, w.workers, goldenColumns16, numpyGrid...)
 			opt.parquet = true
-			rows := opt.grid.total
-			for b.Loop() {
-				if err := runSweepParquet(context.Background(), e, opt, io.Discard); err != nil {
-					b.Fatal(err)
-				}
-			}
-			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(rows), "ns/row")
+			runBenchSweep(b, e, opt)
 		})
 	}
 }

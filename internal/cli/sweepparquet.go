@@ -84,19 +84,10 @@ func (sw *sweepWorker) group(g *report.ParquetGroup, b *report.Batch, lo, hi int
 // batch fills b with grid rows lo to hi (exclusive).
 func (sw *sweepWorker) batch(b *report.Batch, lo, hi int) error {
 	b.Reset()
-	g := &sw.opt.grid
-	g.point(lo, sw.idx)
-	for i := lo; i < hi; i++ {
-		if i > lo {
-			g.next(sw.idx)
-		}
-		if err := sw.evaluate(i); err != nil {
-			return err
-		}
+	return sw.eachRow(lo, hi, func(int) {
 		sw.values()
 		b.AppendRow(sw.num, sw.str, nil)
-	}
-	return nil
+	})
 }
 
 // parquetBatchRows is the number of rows a worker evaluates into its batch

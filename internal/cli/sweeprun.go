@@ -233,9 +233,9 @@ func newSweepWorker(opt *sweepOptions, plan sweepPlan) *sweepWorker {
 	return sw
 }
 
-// chunk appends grid rows lo to hi (exclusive) to buf.
-func (sw *sweepWorker) chunk(buf []byte, lo, hi int) ([]byte, error) {
-	sh := &sw.opt.shard
+// eachRow evaluates grid rows lo to hi (exclusive) in grid order into
+// sw.res, calling row after each.
+func (sw *sweepWorker) eachRow(lo, hi int, row func(i int)) error {
 	g := &sw.opt.grid
 	g.point(lo, sw.idx)
 	for i := lo; i < hi; i++ {
@@ -243,13 +243,22 @@ func (sw *sweepWorker) chunk(buf []byte, lo, hi int) ([]byte, error) {
 			g.next(sw.idx)
 		}
 		if err := sw.evaluate(i); err != nil {
-			return buf, err
+			return err
 		}
+		row(i)
+	}
+	return nil
+}
+
+// chunk appends grid rows lo to hi (exclusive) to buf.
+func (sw *sweepWorker) chunk(buf []byte, lo, hi int) ([]byte, error) {
+	first := sw.opt.shard.lo
+	err := sw.eachRow(lo, hi, func(i int) {
 		sw.values()
 		sw.format()
-		buf = sw.opt.format.AppendRow(buf, sw.cols, sw.text, i == sh.lo)
-	}
-	return buf, nil
+		buf = sw.opt.format.AppendRow(buf, sw.cols, sw.text, i == first)
+	})
+	return buf, err
 }
 
 // values reads the columns of the current point into sw.num and sw.str.
